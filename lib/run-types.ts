@@ -1,0 +1,27 @@
+/**
+ * The normalised run: the one shape every way in (upload, grid, stream, simulator) produces and
+ * every analysis consumes. Loads are in newtons; units are converted only at the edges.
+ */
+export interface NormalisedStep {
+  /** 1-based order of the step within the run. */
+  order: number;
+  /** 1-based pass number this step belongs to. */
+  pass: number;
+  /** Position (1..studCount, clockwise from 1) of the stud tightened in this step. */
+  position: number;
+  /** Applied torque in N·m when the tool was a torque wrench and it was recorded. */
+  appliedTorqueNm?: number | null;
+  /** Applied hydraulic pressure in bar when a tensioner/hydraulic wrench was used and it was recorded. */
+  appliedPressureBar?: number | null;
+  /** Seconds since the start of the run, when known. */
+  timeS?: number | null;
+  /** Load of every stud right after this step, in N; index 0 is position 1. Length = studCount. */
+  loadsN: number[];
+}
+
+export interface NormalisedRun {
+  studCount: number;
+  /** Target stud load in N. */
+  targetLoadN: number;
+  steps: NormalisedStep[];
+}

@@ -1,0 +1,28 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { User } from './user';
+
+export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttributes<Cohort>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare site: string;
+  declare startsOn: string;
+  declare endsOn: string;
+  declare instructorId: ForeignKey<User['id']>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Cohort.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        site: { type: DataTypes.STRING(160), allowNull: false },
+        startsOn: { type: DataTypes.DATEONLY, allowNull: false },
+        endsOn: { type: DataTypes.DATEONLY, allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'cohorts', underscored: true },
+    );
+  }
+}

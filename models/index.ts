@@ -1,0 +1,37 @@
+import { sequelize } from '../lib/db';
+import { Cohort } from './cohort';
+import { CohortMember } from './cohort-member';
+import { Joint } from './joint';
+import { JointPosition } from './joint-position';
+import { Lubricant } from './lubricant';
+import { Method } from './method';
+import { Reading } from './reading';
+import { Run } from './run';
+import { RunComment } from './run-comment';
+import { SignInAttempt } from './sign-in-attempt';
+import { TighteningStep } from './tightening-step';
+import { Upload } from './upload';
+import { User } from './user';
+
+// Module code runs once per module instance: init and wire the models here.
+{
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt]) {
+    model.initModel(sequelize);
+  }
+
+  Cohort.belongsTo(User, { as: 'instructor', foreignKey: 'instructorId' });
+  Cohort.belongsToMany(User, { through: CohortMember, as: 'members', foreignKey: 'cohortId', otherKey: 'userId' });
+  User.belongsToMany(Cohort, { through: CohortMember, as: 'cohorts', foreignKey: 'userId', otherKey: 'cohortId' });
+  Joint.hasMany(JointPosition, { as: 'positions', foreignKey: 'jointId' });
+  Run.belongsTo(Joint, { as: 'joint', foreignKey: 'jointId' });
+  Run.belongsTo(Method, { as: 'method', foreignKey: 'methodId' });
+  Run.belongsTo(Lubricant, { as: 'lubricant', foreignKey: 'lubricantId' });
+  Run.belongsTo(User, { as: 'operator', foreignKey: 'operatorId' });
+  Run.belongsTo(Cohort, { as: 'cohort', foreignKey: 'cohortId' });
+  Run.hasMany(TighteningStep, { as: 'steps', foreignKey: 'runId' });
+  Run.hasMany(RunComment, { as: 'comments', foreignKey: 'runId' });
+  TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
+  RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+}
+
+export { sequelize, Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User };

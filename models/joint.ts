@@ -1,0 +1,48 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes<Joint>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare nominalSize: string;
+  declare pressureClass: string;
+  declare studCount: number;
+  declare threadSystem: 'inch' | 'metric';
+  /** inch: nominal diameter in inches; metric: millimetres. */
+  declare threadDiameter: number;
+  /** inch: threads per inch; metric: pitch in millimetres. */
+  declare threadPitch: number;
+  declare studGrade: string;
+  declare nutGrade: CreationOptional<string | null>;
+  declare washer: CreationOptional<string | null>;
+  declare gasketType: string;
+  declare targetLoadN: number;
+  declare bandPercent: CreationOptional<number>;
+  declare notes: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Joint.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        nominalSize: { type: DataTypes.STRING(40), allowNull: false },
+        pressureClass: { type: DataTypes.STRING(40), allowNull: false },
+        studCount: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false },
+        threadSystem: { type: DataTypes.ENUM('inch', 'metric'), allowNull: false },
+        threadDiameter: { type: DataTypes.DOUBLE, allowNull: false },
+        threadPitch: { type: DataTypes.DOUBLE, allowNull: false },
+        studGrade: { type: DataTypes.STRING(80), allowNull: false },
+        nutGrade: { type: DataTypes.STRING(80), allowNull: true },
+        washer: { type: DataTypes.STRING(120), allowNull: true },
+        gasketType: { type: DataTypes.STRING(160), allowNull: false },
+        targetLoadN: { type: DataTypes.DOUBLE, allowNull: false },
+        bandPercent: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 10 },
+        notes: { type: DataTypes.TEXT, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'joints', underscored: true },
+    );
+  }
+}

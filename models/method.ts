@@ -1,0 +1,43 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export const TOOL_KINDS = ['manual_torque_wrench', 'hydraulic_torque_wrench', 'hydraulic_tensioner', 'other'] as const;
+export type ToolKind = (typeof TOOL_KINDS)[number];
+export interface MethodPass {
+  percentOfTarget: number;
+  order: number[];
+}
+
+export class Method extends Model<InferAttributes<Method>, InferCreationAttributes<Method>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare toolKind: ToolKind;
+  declare passes: MethodPass[];
+  declare checkPasses: CreationOptional<number>;
+  declare notes: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Method.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        name: { type: DataTypes.STRING(160), allowNull: false, unique: true },
+        toolKind: { type: DataTypes.ENUM(...TOOL_KINDS), allowNull: false },
+        passes: {
+          type: DataTypes.JSON,
+          allowNull: false,
+          // MariaDB stores JSON as LONGTEXT: parse on read.
+          get() {
+            const raw = this.getDataValue('passes') as unknown;
+            return (typeof raw === 'string' ? JSON.parse(raw) : raw) as MethodPass[];
+          },
+        },
+        checkPasses: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 0 },
+        notes: { type: DataTypes.TEXT, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'methods', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,33 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+/** The raw logger file as uploaded, kept with its sha256 and the parse report. */
+export class Upload extends Model<InferAttributes<Upload>, InferCreationAttributes<Upload>> {
+  declare id: CreationOptional<number>;
+  declare runId: number | null;
+  declare uploadedById: number;
+  declare fileName: string;
+  declare sha256: string;
+  declare sizeBytes: number;
+  declare contentType: string;
+  declare content: Buffer;
+  declare parseReport: CreationOptional<unknown>;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Upload.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        runId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        uploadedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        fileName: { type: DataTypes.STRING(255), allowNull: false },
+        sha256: { type: DataTypes.CHAR(64), allowNull: false },
+        sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        contentType: { type: DataTypes.STRING(120), allowNull: false },
+        content: { type: DataTypes.BLOB('long'), allowNull: false },
+        parseReport: { type: DataTypes.JSON, allowNull: true },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'uploads', underscored: true, updatedAt: false },
+    );
+  }
+}

@@ -1,0 +1,2 @@
+// In tests, `import 'server-only'` resolves here: the real package throws outside a React server build.
+export {};

@@ -1,0 +1,50 @@
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+import path from 'node:path';
+
+const alias = { '@': path.resolve(__dirname), 'server-only': path.resolve(__dirname, 'tests/support/server-only-stub.ts') };
+
+// Four projects: pure units (node), components (jsdom), integration against the real MariaDB
+// the test command starts, and end-to-end against the built app in Debian's Chromium.
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', environment: 'node', include: ['tests/{stats,lib,charts,ingest,calc,sim}/**/*.test.ts'] },
+      },
+      {
+        plugins: [react()],
+        resolve: { alias },
+        test: {
+          name: 'component',
+          environment: 'jsdom',
+          include: ['tests/components/**/*.test.tsx'],
+          setupFiles: ['tests/support/component-setup.ts'],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'integration',
+          environment: 'node',
+          include: ['tests/{integration,api}/**/*.test.ts'],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'e2e',
+          environment: 'node',
+          include: ['tests/e2e/**/*.test.ts'],
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+});
