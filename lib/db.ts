@@ -8,8 +8,8 @@ import { mariadbDriver } from './mariadb-driver';
  * that cannot get a connection within the timeout fails fast with a clear 503 instead of queueing
  * for ever. With DB_READ_HOSTS set, Sequelize sends reads to the replicas and writes to DB_HOST.
  */
-function createSequelize(): Sequelize {
-  const common = { username: env.DB_USER, password: env.DB_PASSWORD, database: env.DB_NAME };
+export function createSequelize(database: string = env.DB_NAME): Sequelize {
+  const common = { username: env.DB_USER, password: env.DB_PASSWORD, database };
   const readHosts = (env.DB_READ_HOSTS ?? '')
     .split(',')
     .map((entry) => entry.trim())
@@ -18,7 +18,7 @@ function createSequelize(): Sequelize {
       const [host, port] = entry.split(':');
       return { ...common, host: host ?? '127.0.0.1', port: Number(port ?? env.DB_PORT) };
     });
-  return new Sequelize(env.DB_NAME, env.DB_USER, env.DB_PASSWORD, {
+  return new Sequelize(database, env.DB_USER, env.DB_PASSWORD, {
     dialect: 'mariadb',
     dialectModule: mariadbDriver,
     host: env.DB_HOST,

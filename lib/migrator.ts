@@ -10,10 +10,23 @@ export type Seeder = MigrationFn<SeedContext>;
 
 const root = path.resolve(__dirname, '..');
 
+/**
+ * Loads a migration file with this module's own `import()`, so whichever loader runs us (tsx for
+ * the scripts, vitest for the tests) also compiles the TypeScript migration.
+ */
+function importMigration<C>({ name, path: file }: { name: string; path?: string }) {
+  const load = async () => (await import(/* @vite-ignore */ file as string)) as { up: MigrationFn<C>; down: MigrationFn<C> };
+  return {
+    name,
+    up: async (params: Parameters<MigrationFn<C>>[0]) => (await load()).up(params),
+    down: async (params: Parameters<MigrationFn<C>>[0]) => (await load()).down(params),
+  };
+}
+
 /** Migrations: schema changes, recorded in `schema_migrations`. */
 export function createMigrator(sequelize: Sequelize) {
   return new Umzug({
-    migrations: { glob: ['migrations/*.ts', { cwd: root }] },
+    migrations: { glob: ['migrations/*.ts', { cwd: root }], resolve: importMigration },
     context: sequelize.getQueryInterface(),
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
     logger: undefined,
@@ -23,7 +36,7 @@ export function createMigrator(sequelize: Sequelize) {
 /** Seeders: demo data, recorded in `schema_seeds` (a separate meta table). Seeders are idempotent. */
 export function createSeeder(sequelize: Sequelize) {
   return new Umzug({
-    migrations: { glob: ['seeders/*.ts', { cwd: root }] },
+    migrations: { glob: ['seeders/*.ts', { cwd: root }], resolve: importMigration },
     context: { sequelize },
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_seeds' }),
     logger: undefined,

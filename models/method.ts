@@ -2,9 +2,15 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 export const TOOL_KINDS = ['manual_torque_wrench', 'hydraulic_torque_wrench', 'hydraulic_tensioner', 'other'] as const;
 export type ToolKind = (typeof TOOL_KINDS)[number];
+/**
+ * One pass of a method: a % of the target load and the stud order. Cross and circular orders are
+ * generated per stud count; a custom order is given explicitly. `orderByStudCount` holds the order
+ * for each stud count the method is used with (key = stud count as a string).
+ */
 export interface MethodPass {
   percentOfTarget: number;
-  order: number[];
+  pattern: 'cross' | 'circular' | 'custom';
+  orderByStudCount: Record<string, number[]>;
 }
 
 export class Method extends Model<InferAttributes<Method>, InferCreationAttributes<Method>> {

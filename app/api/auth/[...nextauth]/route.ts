@@ -1,0 +1,7 @@
+import NextAuth from 'next-auth';
+import { authOptions } from '@/lib/auth';
+
+// GET|POST /api/auth/* - next-auth's sign-in, session and sign-out endpoints
+const handler = NextAuth(authOptions);
+
+export { handler as GET, handler as POST };

@@ -1,0 +1,10 @@
+import { NextResponse } from 'next/server';
+import { searchParamsObject, withRole } from '@/lib/api';
+import { listRuns, runListQuerySchema } from '@/lib/data/runs';
+import { ALL_ROLES } from '@/lib/session';
+
+// GET /api/runs - the runs the signed-in person may see, filtered, sorted and paged
+export const GET = withRole(ALL_ROLES, async (request, user) => {
+  const query = runListQuerySchema.parse(searchParamsObject(request));
+  return NextResponse.json(await listRuns(user, query));
+});

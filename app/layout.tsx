@@ -1,0 +1,32 @@
+import type { Metadata } from 'next';
+import localFont from 'next/font/local';
+import './globals.css';
+
+const sans = localFont({
+  src: '../public/fonts/inter-latin-wght-normal.woff2',
+  variable: '--font-sans',
+  weight: '100 900',
+  display: 'swap',
+});
+
+const mono = localFont({
+  src: [
+    { path: '../public/fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400' },
+    { path: '../public/fonts/ibm-plex-mono-latin-600-normal.woff2', weight: '600' },
+  ],
+  variable: '--font-mono',
+  display: 'swap',
+});
+
+export const metadata: Metadata = {
+  title: { default: 'Evenload', template: '%s · Evenload' },
+  description: 'The web lab for bolted flange joint assembly: per-stud load runs, scatter and elastic interaction.',
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${sans.variable} ${mono.variable}`}>
+      <body className="min-h-screen bg-paper font-sans text-ink antialiased">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,72 @@
+import 'server-only';
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { z } from 'zod';
+import { authSecret, env } from './env';
+import { verifyPassword } from './passwords';
+import { clearFailures, isLocked, recordFailure } from './rate-limit';
+import { User } from '@/models';
+import type { Role } from '@/models/user';
+
+const credentialsSchema = z.object({
+  email: z.string().trim().toLowerCase().email().max(254),
+  password: z.string().min(1).max(200),
+});
+
+/** The one message for every failed sign-in: it never says whether the account exists. */
+export const SIGN_IN_FAILED = 'That e-mail and password do not match an account.';
+export const SIGN_IN_LOCKED = 'Too many failed attempts. Wait 15 minutes, then try again.';
+
+function clientAddress(headers: Record<string, unknown> | undefined): string {
+  const forwarded = headers?.['x-forwarded-for'];
+  const first = typeof forwarded === 'string' ? forwarded.split(',')[0]?.trim() : undefined;
+  return first || 'local';
+}
+
+export const authOptions: NextAuthOptions = {
+  secret: authSecret(),
+  session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+  pages: { signIn: '/sign-in', error: '/sign-in' },
+  useSecureCookies: env.NODE_ENV === 'production' && (env.NEXTAUTH_URL ?? '').startsWith('https://'),
+  providers: [
+    CredentialsProvider({
+      name: 'E-mail and password',
+      credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+      async authorize(raw, request) {
+        const parsed = credentialsSchema.safeParse(raw);
+        if (!parsed.success) throw new Error(SIGN_IN_FAILED);
+        const { email, password } = parsed.data;
+        const keys = [`email:${email}`, `addr:${clientAddress(request?.headers)}`];
+        if (await isLocked(keys)) throw new Error(SIGN_IN_LOCKED);
+        const user = await User.findOne({ where: { email } });
+        const ok = await verifyPassword(password, user?.passwordHash);
+        if (!user || !ok || !user.isActive) {
+          await recordFailure(keys);
+          throw new Error(SIGN_IN_FAILED);
+        }
+        await clearFailures([keys[0] as string]);
+        return { id: String(user.id), name: user.name, email: user.email, role: user.role, units: user.preferredUnits };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) {
+        const u = user as unknown as { id: string; role: Role; units: 'si' | 'us' };
+        token.uid = Number(u.id);
+        token.role = u.role;
+        token.units = u.units;
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      session.user = {
+        ...session.user,
+        id: token.uid as number,
+        role: token.role as Role,
+        units: (token.units as 'si' | 'us') ?? 'si',
+      };
+      return session;
+    },
+  },
+};

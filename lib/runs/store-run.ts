@@ -1,0 +1,105 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import { AppError } from '../errors';
+import type { NormalisedRun } from '../run-types';
+import { sequelize } from '../db';
+import { storedRunFigures } from './run-figures';
+import type { RunSource, RunStatus } from '@/models/run';
+
+export interface RunHeader {
+  jointId: number;
+  methodId: number;
+  lubricantId: number;
+  operatorId: number;
+  cohortId: number | null;
+  targetLoadN: number;
+  bandPercent: number;
+  source: RunSource;
+  status: RunStatus;
+  recordedAt: Date;
+  notes?: string | null;
+  setAsideReason?: string | null;
+  setAsideById?: number | null;
+}
+
+/** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */
+const READINGS_PER_INSERT = 5000;
+
+const sqlNumber = (value: number | null | undefined): string => {
+  if (value === null || value === undefined) return 'NULL';
+  if (!Number.isFinite(value)) throw new AppError('invalid_input', `A value is not a finite number (${value}).`);
+  return String(value);
+};
+
+/**
+ * Stores a normalised run (header, steps, readings and the per-run figures) inside the given
+ * transaction, with multi-row INSERTs (no row-by-row writes). The caller owns the transaction, so
+ * a failure anywhere leaves nothing behind. Returns the new run's id.
+ */
+export async function storeRun(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<number> {
+  if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
+    throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
+  }
+  const figures = storedRunFigures(run);
+  const now = new Date();
+  const [runId] = await sequelize.query(
+    `INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status,
+       set_aside_reason, set_aside_by_id, recorded_at, notes, stud_count, step_count, pass_count,
+       final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, created_at, updated_at)
+     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
+    {
+      type: QueryTypes.INSERT,
+      transaction,
+      replacements: [
+        header.jointId, header.methodId, header.lubricantId, header.operatorId, header.cohortId, header.targetLoadN,
+        header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
+        header.recordedAt, header.notes ?? null, figures.studCount, figures.stepCount, figures.passCount,
+        figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, now, now,
+      ],
+    },
+  );
+  await appendSteps(Number(runId), run, 0, transaction);
+  return Number(runId);
+}
+
+/**
+ * Appends steps (and their readings) to an existing run, starting after `existingSteps` steps.
+ * Used by storeRun and by the live stream.
+ */
+export async function appendSteps(runId: number, run: NormalisedRun, existingSteps: number, transaction: Transaction): Promise<void> {
+  const steps = run.steps.slice(existingSteps);
+  for (let start = 0; start < steps.length; start += Math.max(1, Math.floor(READINGS_PER_INSERT / run.studCount))) {
+    const chunk = steps.slice(start, start + Math.max(1, Math.floor(READINGS_PER_INSERT / run.studCount)));
+    const stepValues = chunk
+      .map((s) => `(${runId},${sqlNumber(s.order)},${sqlNumber(s.pass)},${sqlNumber(s.position)},${sqlNumber(s.appliedTorqueNm)},${sqlNumber(s.appliedPressureBar)},${sqlNumber(s.timeS)})`)
+      .join(',');
+    await sequelize.query(
+      `INSERT INTO tightening_steps (run_id, step_order, pass_number, position, applied_torque_nm, applied_pressure_bar, time_s) VALUES ${stepValues}`,
+      { type: QueryTypes.INSERT, transaction },
+    );
+    const first = chunk[0]!.order;
+    const last = chunk[chunk.length - 1]!.order;
+    const ids = await sequelize.query<{ id: number; step_order: number }>(
+      'SELECT id, step_order FROM tightening_steps WHERE run_id = ? AND step_order BETWEEN ? AND ?',
+      { type: QueryTypes.SELECT, transaction, replacements: [runId, first, last] },
+    );
+    const idByOrder = new Map(ids.map((row) => [Number(row.step_order), Number(row.id)]));
+    const readingValues: string[] = [];
+    for (const step of chunk) {
+      const stepId = idByOrder.get(step.order);
+      step.loadsN.forEach((load, index) => readingValues.push(`(${stepId},${index + 1},${runId},${sqlNumber(load)})`));
+    }
+    await sequelize.query(`INSERT INTO readings (step_id, position, run_id, load_n) VALUES ${readingValues.join(',')}`, {
+      type: QueryTypes.INSERT,
+      transaction,
+    });
+  }
+}
+
+/** Recomputes the stored per-run figures after a run's readings changed. */
+export async function refreshRunFigures(runId: number, run: NormalisedRun, transaction: Transaction): Promise<void> {
+  const f = storedRunFigures(run);
+  await sequelize.query(
+    `UPDATE runs SET step_count=?, pass_count=?, final_mean_n=?, final_sd_n=?, final_cv=?, final_min_n=?, final_max_n=?, updated_at=? WHERE id=?`,
+    { transaction, replacements: [f.stepCount, f.passCount, f.finalMeanN, f.finalSdN, f.finalCv, f.finalMinN, f.finalMaxN, new Date(), runId] },
+  );
+}

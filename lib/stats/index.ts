@@ -1,0 +1,63 @@
+/**
+ * The statistics layer of Evenload: pure, synchronous functions over `readonly number[]` and
+ * normalised runs. One function per file; this index re-exports them by topic.
+ */
+
+// Errors
+export { StatsError } from './stats-error';
+
+// Descriptive statistics and scatter
+export { mean } from './mean';
+export { sampleVariance } from './sample-variance';
+export { sampleStandardDeviation } from './sample-standard-deviation';
+export { coefficientOfVariation } from './coefficient-of-variation';
+export { valueExtent } from './value-extent';
+export { rangeOverMean } from './range-over-mean';
+export { largestDeviationFromMean } from './largest-deviation-from-mean';
+export { largestDeviationFromTarget } from './largest-deviation-from-target';
+export { shareWithinBand } from './share-within-band';
+export { quantile } from './quantile';
+export { lagOneAutocorrelation } from './lag-one-autocorrelation';
+export { tighteningFactor } from './tightening-factor';
+export { threeSigmaOverMean } from './three-sigma-over-mean';
+
+// Capability
+export { processCapability, type ProcessCapabilityResult } from './process-capability';
+
+// Runs: final loads, passes, elastic interaction
+export { finalLoads } from './final-loads';
+export { loadsAfterEachPass, type PassSnapshot } from './loads-after-each-pass';
+export { elasticInteractionDrift, type StudDrift } from './elastic-interaction-drift';
+export { lossPerPass, type PassLoss } from './loss-per-pass';
+export {
+  interactionCoefficients,
+  type InteractionAtDistance,
+  type InteractionCoefficientsResult,
+} from './interaction-coefficients';
+export { summariseRun, type RunSummary } from './summarise-run';
+
+// Comparison of groups
+export { oneWayAnova, type OneWayAnovaResult } from './one-way-anova';
+export { welchAnova, type WelchAnovaResult } from './welch-anova';
+export { welchTTest, type WelchTTestResult } from './welch-t-test';
+export { leveneTest, type LeveneTypeResult } from './levene-test';
+export { brownForsytheTest } from './brown-forsythe-test';
+export { bartlettTest, type BartlettTestResult } from './bartlett-test';
+export { varianceRatioTest, type VarianceRatioTestResult } from './variance-ratio-test';
+export { tukeyHsd, type TukeyHsdComparison, type TukeyHsdResult } from './tukey-hsd';
+export { cvConfidenceInterval, type CvConfidenceIntervalResult } from './cv-confidence-interval';
+export { readStatisticalResult, type ReadableResult, type ReadingOptions } from './read-statistical-result';
+
+// Regression and nut factor
+export { multipleLinearRegression, type LinearRegressionResult } from './multiple-linear-regression';
+export { regressionThroughOrigin } from './regression-through-origin';
+export { nutFactor, type NutFactorResult } from './nut-factor';
+
+// Distribution functions
+export { fUpperTail } from './f-upper-tail';
+export { studentTUpperTail } from './student-t-upper-tail';
+export { chiSquareUpperTail } from './chi-square-upper-tail';
+export { studentizedRangeUpperTail } from './studentized-range-upper-tail';
+export { studentTQuantile } from './student-t-quantile';
+export { chiSquareQuantile } from './chi-square-quantile';
+export { studentizedRangeQuantile } from './studentized-range-quantile';

@@ -1,0 +1,33 @@
+import type { NormalisedRun } from '../run-types';
+import { assertRun } from './internal/assert-run';
+
+/** One pass snapshot in {@link loadsAfterEachPass}. */
+export interface PassSnapshot {
+  pass: number;
+  /** `order` of the pass's last step. */
+  lastStepOrder: number;
+  /** Every stud's load after that step, in N, index 0 = position 1. */
+  loadsN: number[];
+}
+
+/**
+ * Loads after each pass: for every pass, in order, the snapshot after its last step.
+ *
+ * Algorithm: one scan of the steps (passes are non-decreasing, validated).
+ *
+ * References: lib/run-types.ts; REFERENCE.md §4 (multi-pass practice) and §9 (CV and
+ * (max − min)/mean per pass, common practice).
+ *
+ * @throws {StatsError} any malformed run (see assertRun).
+ * @example
+ * loadsAfterEachPass(run).map((p) => p.pass); // [1, 2, 3]
+ */
+export function loadsAfterEachPass(run: NormalisedRun): PassSnapshot[] {
+  assertRun('loadsAfterEachPass', run);
+  const out: PassSnapshot[] = [];
+  run.steps.forEach((step, i) => {
+    const next = run.steps[i + 1];
+    if (!next || next.pass !== step.pass) out.push({ pass: step.pass, lastStepOrder: step.order, loadsN: [...step.loadsN] });
+  });
+  return out;
+}

@@ -1,0 +1,22 @@
+import { getToken } from 'next-auth/jwt';
+import { NextResponse, type NextRequest } from 'next/server';
+
+/**
+ * Optimistic redirect only: signed-out visitors of app pages go to /sign-in. The real checks sit in
+ * lib/data, every server action and every route handler (API routes answer 401 themselves).
+ */
+export async function proxy(request: NextRequest) {
+  const secret = process.env.NEXTAUTH_SECRET ?? 'evenload-local-development-secret-not-for-production';
+  const token = await getToken({ req: request, secret });
+  if (!token) {
+    const url = request.nextUrl.clone();
+    url.pathname = '/sign-in';
+    url.search = '';
+    return NextResponse.redirect(url);
+  }
+  return NextResponse.next();
+}
+
+export const config = {
+  matcher: ['/((?!api|_next|fonts|favicon.ico|sign-in|robots.txt).*)'],
+};

@@ -1,0 +1,14 @@
+#!/usr/bin/env bash
+# npm start: everything needed on a fresh machine, then the app on http://127.0.0.1:3000 with the
+# invented demo data (seeded when the database is empty).
+set -euo pipefail
+source "$(dirname "$0")/setup.sh"
+evenload_setup
+npx tsx scripts/migrate.ts seed >&2
+if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib models proxy.ts next.config.mjs tailwind.config.ts -newer .next/BUILD_ID -print -quit 2>/dev/null)" ]; then
+  evenload_log "building the app"
+  npx next build
+fi
+export NEXTAUTH_URL="${NEXTAUTH_URL:-http://127.0.0.1:${PORT:-3000}}"
+evenload_log "serving on http://127.0.0.1:${PORT:-3000} (demo accounts in README.md; Ctrl-C to stop the app; 'npm run db:stop' stops MariaDB)"
+exec npx next start -H 127.0.0.1 -p "${PORT:-3000}"

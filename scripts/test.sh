@@ -1,0 +1,45 @@
+#!/usr/bin/env bash
+# npm test: a test database of its own (own data directory and port, so the demo data is never
+# touched), Chromium installed with apt if missing, a production build, then every vitest project.
+# Ends with one line: "vitest: N passed, N failed, N skipped"; non-zero exit if anything failed or
+# nothing ran.
+set -euo pipefail
+source "$(dirname "$0")/setup.sh"
+export EVENLOAD_DB_DIR="${EVENLOAD_TEST_DB_DIR:-$PWD/.data/mariadb-test}"
+export DB_PORT="${EVENLOAD_TEST_DB_PORT:-3308}"
+export DB_NAME="${EVENLOAD_TEST_DB_NAME:-evenload_test}"
+export EVENLOAD_TEST_PORT="${EVENLOAD_TEST_PORT:-3100}"
+export NEXTAUTH_URL="http://127.0.0.1:${EVENLOAD_TEST_PORT}"
+evenload_setup
+# The test database holds the same invented demo scenario; tests add and remove their own rows.
+npx tsx scripts/migrate.ts seed >&2
+
+if ! command -v chromium >/dev/null 2>&1; then
+  evenload_log "chromium not found: installing Debian's chromium"
+  export DEBIAN_FRONTEND=noninteractive
+  apt-get update -qq
+  apt-get install -y -qq chromium >/dev/null
+fi
+
+if [ "${EVENLOAD_SKIP_BUILD:-0}" != "1" ]; then
+  evenload_log "type-checking"
+  npx tsc --noEmit -p .
+  evenload_log "building the app for the end-to-end tests"
+  npx next build >&2
+fi
+
+mkdir -p test-results
+set +e
+npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/vitest.json "$@"
+status=$?
+set -e
+node -e '
+const fs = require("fs");
+let r = null;
+try { r = JSON.parse(fs.readFileSync("test-results/vitest.json", "utf8")); } catch {}
+if (!r) { console.log("vitest: 0 passed, 0 failed, 0 skipped"); process.exit(1); }
+const skipped = (r.numPendingTests || 0) + (r.numTodoTests || 0);
+console.log(`vitest: ${r.numPassedTests} passed, ${r.numFailedTests} failed, ${skipped} skipped`);
+process.exit(r.numTotalTests > 0 && r.numFailedTests === 0 && r.success !== false ? 0 : 1);
+' || status=1
+exit $status

@@ -1,0 +1,136 @@
+import { describe, expect, it } from 'vitest';
+import {
+  barToPsi,
+  formatArea,
+  formatForce,
+  formatLength,
+  formatNumber,
+  formatPercent,
+  formatPressure,
+  formatStress,
+  formatTorque,
+  fromInputUnit,
+  ftLbToNm,
+  in2ToMm2,
+  inToMm,
+  ksiToMpa,
+  lbfToN,
+  mm2ToIn2,
+  mmToIn,
+  mpaToKsi,
+  nmToFtLb,
+  nToLbf,
+  psiToBar,
+  toInputUnit,
+  type Quantity,
+  type UnitSystem,
+} from '@/lib/calc/units';
+
+const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+const SP = '\u00a0';
+
+// A small deterministic generator (mulberry32) so a failure can be reproduced.
+function rng(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+describe('unit conversions', () => {
+  it('use the exact defining factors (1 in = 25.4 mm, 1 lbf = 4.4482216152605 N: international yard and pound, 1959)', () => {
+    expect(inToMm(1)).toBe(25.4);
+    expect(lbfToN(1)).toBe(4.4482216152605);
+    expect(in2ToMm2(1)).toBe(645.16);
+    // 0.3048 m × 4.4482216152605 N = 1.3558179483314004 N·m (decimal product)
+    expect(rel(ftLbToNm(1), 1.3558179483314004)).toBeLessThan(1e-15);
+    // 1000 × 4.4482216152605 / 645.16 = 6.894757293168361 MPa per ksi (quotient)
+    expect(rel(ksiToMpa(1), 1000 * 4.4482216152605 / 645.16)).toBeLessThan(1e-15);
+    // 1 bar = 0.1 MPa; 0.1 / 0.006894757293168361 = 14.503773773 psi (computed from the above)
+    expect(rel(barToPsi(1), 14.503773773)).toBeLessThan(1e-10);
+  });
+
+  it('round-trip random values to a relative 1e-12 for every quantity and system', () => {
+    const next = rng(20260101);
+    const pairs: [(x: number) => number, (x: number) => number][] = [
+      [inToMm, mmToIn],
+      [lbfToN, nToLbf],
+      [ftLbToNm, nmToFtLb],
+      [in2ToMm2, mm2ToIn2],
+      [ksiToMpa, mpaToKsi],
+      [barToPsi, psiToBar],
+    ];
+    const quantities: Quantity[] = ['length', 'area', 'force', 'stress', 'torque', 'pressure'];
+    const systems: UnitSystem[] = ['si', 'us'];
+    for (let i = 0; i < 500; i++) {
+      const x = 10 ** (next() * 12 - 6) * (next() < 0.5 ? -1 : 1); // 1e-6 … 1e6, both signs
+      for (const [to, back] of pairs) {
+        expect(rel(back(to(x)), x)).toBeLessThan(1e-12);
+        expect(rel(to(back(x)), x)).toBeLessThan(1e-12);
+      }
+      for (const q of quantities) {
+        for (const s of systems) {
+          expect(rel(fromInputUnit(q, toInputUnit(q, x, s), s), x)).toBeLessThan(1e-12);
+        }
+      }
+    }
+  });
+
+  it('take force inputs in kN and pressure inputs in bar in SI', () => {
+    expect(toInputUnit('force', 81_300, 'si')).toBeCloseTo(81.3, 12);
+    expect(fromInputUnit('pressure', 1000, 'si')).toBeCloseTo(100, 12); // 1000 bar = 100 MPa
+    expect(toInputUnit('length', 25.4, 'us')).toBe(1);
+  });
+});
+
+describe('formatNumber', () => {
+  it('rounds to significant figures but keeps whole units', () => {
+    expect(formatNumber(17_535.2, 3)).toBe('17,535');
+    expect(formatNumber(81.34, 3)).toBe('81.3');
+    expect(formatNumber(0.14187, 3)).toBe('0.142');
+    expect(formatNumber(0.14187, 4)).toBe('0.1419');
+    expect(formatNumber(-2.5, 3)).toBe('-2.50');
+    expect(formatNumber(0, 3)).toBe('0');
+  });
+
+  it('keeps the stated significant figures when rounding carries to the next power of ten', () => {
+    expect(formatNumber(0.09996, 3)).toBe('0.100');
+    expect(formatNumber(9.996, 3)).toBe('10.0');
+  });
+
+  it('shows an em dash for a non-finite value', () => {
+    expect(formatNumber(Number.NaN)).toBe('—');
+    expect(formatNumber(Infinity)).toBe('—');
+  });
+});
+
+describe('format helpers', () => {
+  it('put the unit beside the number with a no-break space', () => {
+    expect(formatForce(81_300, 'si')).toBe(`81.3${SP}kN`);
+    expect(formatForce(lbfToN(18_280), 'us')).toBe(`18,280${SP}lbf`);
+    expect(formatForce(950, 'si')).toBe(`950${SP}N`);
+    expect(formatForce(2_345_000, 'si')).toBe(`2.35${SP}MN`);
+  });
+
+  it('format torque, stress, pressure, area, length and percent in both systems', () => {
+    expect(formatTorque(ftLbToNm(219.2), 'us')).toBe(`219${SP}ft-lb`);
+    expect(formatTorque(352.5, 'si')).toBe(`353${SP}N·m`);
+    expect(formatStress(ksiToMpa(105), 'us')).toBe(`105${SP}ksi`);
+    expect(formatStress(ksiToMpa(105), 'si')).toBe(`724${SP}MPa`); // REFERENCE §2: 105 ksi (724 MPa)
+    expect(formatPressure(100, 'si')).toBe(`1,000${SP}bar`);
+    expect(formatPressure(100, 'us')).toBe(`14,504${SP}psi`);
+    expect(formatArea(in2ToMm2(0.3345), 'us')).toBe(`0.3345${SP}in²`);
+    expect(formatArea(84.27, 'si')).toBe(`84.27${SP}mm²`);
+    expect(formatLength(19.05, 'si')).toBe(`19.05${SP}mm`);
+    expect(formatLength(19.05, 'us')).toBe(`0.7500${SP}in`);
+    expect(formatPercent(50)).toBe(`50.0${SP}%`);
+  });
+
+  it('accept a number of significant figures', () => {
+    expect(formatForce(81_313, 'si', { sig: 4 })).toBe(`81.31${SP}kN`);
+  });
+});

@@ -1,0 +1,47 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+
+const root = path.resolve(__dirname, '../..');
+
+export interface AppServer {
+  baseUrl: string;
+  stop: () => Promise<void>;
+}
+
+/**
+ * Starts the built app (`next start`) against the test database on its own port and waits until
+ * /api/health answers. The test command builds the app first.
+ */
+export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_PORT ?? 3100)): Promise<AppServer> {
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '-H', '127.0.0.1', '-p', String(port)], {
+    cwd: root,
+    env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let output = '';
+  child.stdout?.on('data', (chunk) => (output += String(chunk)));
+  child.stderr?.on('data', (chunk) => (output += String(chunk)));
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    if (child.exitCode !== null) throw new Error(`next start exited early:\n${output}`);
+    try {
+      const response = await fetch(`${baseUrl}/api/health`);
+      if (response.status === 200) break;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+  if (Date.now() >= deadline) throw new Error(`the app did not become healthy within 60 s:\n${output}`);
+  return {
+    baseUrl,
+    stop: () =>
+      new Promise<void>((resolve) => {
+        if (child.exitCode !== null) return resolve();
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+        setTimeout(() => child.kill('SIGKILL'), 5000).unref();
+      }),
+  };
+}

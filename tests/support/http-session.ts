@@ -1,0 +1,69 @@
+/** A signed-in HTTP client for API tests: signs in through next-auth's credentials endpoint. */
+export const DEMO_PASSWORD = 'even-load-demo';
+
+export const DEMO_ACCOUNTS = {
+  admin: 'sam.pellowe@demo.evenload.test',
+  instructor: 'marta.ilvesaar@demo.evenload.test',
+  researcher: 'lena.okoro-strand@demo.evenload.test',
+  trainee: 'aino.varga@demo.evenload.test',
+} as const;
+
+function cookiesFrom(response: Response, jar: Map<string, string>) {
+  for (const line of response.headers.getSetCookie()) {
+    const [pair] = line.split(';');
+    const index = pair!.indexOf('=');
+    jar.set(pair!.slice(0, index), pair!.slice(index + 1));
+  }
+}
+
+export interface HttpSession {
+  cookie: string;
+  get: (path: string) => Promise<Response>;
+  send: (method: string, path: string, body?: unknown, headers?: Record<string, string>) => Promise<Response>;
+}
+
+export function anonymous(baseUrl: string): HttpSession {
+  return makeSession(baseUrl, '');
+}
+
+function makeSession(baseUrl: string, cookie: string): HttpSession {
+  return {
+    cookie,
+    get: (path) => fetch(`${baseUrl}${path}`, { headers: { cookie }, redirect: 'manual' }),
+    send: (method, path, body, headers = {}) =>
+      fetch(`${baseUrl}${path}`, {
+        method,
+        redirect: 'manual',
+        headers: { cookie, ...(body !== undefined && typeof body !== 'string' ? { 'content-type': 'application/json' } : {}), ...headers },
+        body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
+      }),
+  };
+}
+
+/** Returns the response of the credentials callback and, when it worked, a session. */
+export async function signIn(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<{ ok: boolean; session: HttpSession; error: string | null }> {
+  const jar = new Map<string, string>();
+  const csrfResponse = await fetch(`${baseUrl}/api/auth/csrf`);
+  cookiesFrom(csrfResponse, jar);
+  const { csrfToken } = (await csrfResponse.json()) as { csrfToken: string };
+  const response = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; ') },
+    body: new URLSearchParams({ email, password, csrfToken, json: 'true' }),
+  });
+  cookiesFrom(response, jar);
+  const cookie = [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+  // With json=true next-auth answers { url } instead of redirecting; the error rides in that URL.
+  const body = (await response.json().catch(() => ({}))) as { url?: string };
+  const location = body.url ?? response.headers.get('location') ?? '';
+  const error = new URL(location, baseUrl).searchParams.get('error');
+  const ok = [...jar.keys()].some((key) => key.endsWith('next-auth.session-token'));
+  return { ok, session: makeSession(baseUrl, cookie), error };
+}
+
+export async function signInAs(baseUrl: string, email: string): Promise<HttpSession> {
+  const result = await signIn(baseUrl, email);
+  if (!result.ok) throw new Error(`sign-in as ${email} failed: ${result.error}`);
+  return result.session;
+}
