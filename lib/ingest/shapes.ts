@@ -1,0 +1,245 @@
+/**
+ * The three generic table shapes we import, and a first guess at the column mapping from the
+ * header names. The guess is our own heuristic; the upload screen shows it for the user to confirm
+ * or correct, then sends the confirmed mapping back (validated with {@link columnMappingSchema}).
+ *
+ * - **wide**: one row per scan; a time column, one load column per stud, optionally a step/event
+ *   and/or pass column (and a tightened-position column).
+ * - **long**: one row per reading; time, stud position and load (optionally step/pass markers).
+ * - **step_table**: one row per reading after each step; pass, step, stud position, load, and
+ *   optionally applied torque or pressure, tightened position and time (our CSV export is one).
+ */
+import { z } from 'zod';
+import { AppError } from '@/lib/errors';
+import { LOAD_UNITS, TORQUE_UNITS, type LoadUnit, type TorqueUnit } from './units';
+import { isNumericText } from './numbers';
+
+/** The table shapes we import. */
+export const SHAPES = ['wide', 'long', 'step_table'] as const;
+/** A table shape. */
+export type Shape = (typeof SHAPES)[number];
+
+const column = z.string().trim().min(1);
+
+/**
+ * Zod schema of a column mapping. Column references are header names exactly as in the file
+ * (trimmed). `tightenedColumn` (the stud the tool was on) is our addition to the brief's field
+ * list; it is optional and, when absent, the tightened stud is inferred from the loads.
+ */
+export const columnMappingSchema = z
+  .object({
+    shape: z.enum(SHAPES),
+    timeColumn: column.nullable(),
+    studColumns: z.array(z.object({ column, position: z.number().int().min(1) })),
+    positionColumn: column.nullable(),
+    loadColumn: column.nullable(),
+    stepColumn: column.nullable(),
+    passColumn: column.nullable(),
+    torqueColumn: column.nullable(),
+    pressureColumn: column.nullable(),
+    tightenedColumn: column.nullable().default(null),
+    loadUnit: z.enum(LOAD_UNITS),
+    torqueUnit: z.enum(TORQUE_UNITS),
+  })
+  .superRefine((m, ctx) => {
+    const need = (field: keyof typeof m, why: string) => {
+      if (m[field] === null) ctx.addIssue({ code: 'custom', path: [field], message: why });
+    };
+    if (m.shape === 'wide' && m.studColumns.length === 0) {
+      ctx.addIssue({ code: 'custom', path: ['studColumns'], message: 'A wide table needs one load column per stud.' });
+    }
+    if (m.shape === 'long') {
+      need('timeColumn', 'A long table needs a time column.');
+      need('positionColumn', 'A long table needs a stud position column.');
+      need('loadColumn', 'A long table needs a load column.');
+    }
+    if (m.shape === 'step_table') {
+      need('stepColumn', 'A step table needs a step column.');
+      need('positionColumn', 'A step table needs a stud position column.');
+      need('loadColumn', 'A step table needs a load column.');
+    }
+  });
+
+/** A column mapping: which header holds what, and the units of loads and torques. */
+export type ColumnMapping = z.output<typeof columnMappingSchema>;
+
+/** A proposed mapping with the reasons behind its guesses, for the confirmation screen. */
+export interface MappingProposal {
+  mapping: ColumnMapping;
+  /** e.g. `Load unit kN taken from "Stud 1 [kN]".` or `No unit in the headers; assumed kN ...`. */
+  notes: string[];
+}
+
+/** Lower-case word tokens of a header: `"Bolt 3 [kN]"` → `["bolt", "3", "kn"]`. */
+export function headerTokens(header: string): string[] {
+  return header
+    .toLowerCase()
+    .split(/[^a-z0-9µμεε]+/u)
+    .filter((t) => t !== '');
+}
+
+const STUD_HEADER = /^\s*(?:stud|bolt|load|force|preload|position|pos|s|b|f)\s*[-_#.]?\s*(?:no\.?\s*|nr\.?\s*)?0*(\d{1,3})(?![\d.])/i;
+
+/**
+ * The stud position a header names, or null: `Stud 1`, `S1`, `Bolt 3 [kN]`, `stud_03_kN`, `B4`,
+ * `Load 2`, `F2 (lbf)`, `Position 5`.
+ */
+export function studPositionOfHeader(header: string): number | null {
+  const m = STUD_HEADER.exec(header);
+  if (!m || !m[1]) return null;
+  const n = Number(m[1]);
+  return n >= 1 ? n : null;
+}
+
+/** The load unit a header names (`[kN]`, `(lbf)`, `_kip`, `ue`, `µε`, `microstrain`, `N`), or null. */
+export function loadUnitOfHeader(header: string): LoadUnit | null {
+  const lower = header.toLowerCase();
+  if (/µε|με|µe|microstrain|µstrain|ustrain/u.test(lower)) return 'microstrain';
+  const tokens = headerTokens(header);
+  if (tokens.includes('ue')) return 'microstrain';
+  if (tokens.includes('kip') || tokens.includes('kips')) return 'kip';
+  if (tokens.includes('lbf') || tokens.includes('lb') || tokens.includes('lbs')) return 'lbf';
+  if (tokens.includes('kn')) return 'kN';
+  if (tokens.includes('n')) return 'N';
+  return null;
+}
+
+/** The torque unit a header names (`ft-lb`, `ft·lbf`, `lb-ft`, `N·m`, `Nm`), or null. */
+export function torqueUnitOfHeader(header: string): TorqueUnit | null {
+  const lower = header.toLowerCase();
+  if (/ft[\s\-·.]*lbf?|lbf?[\s\-·.]*ft/.test(lower)) return 'ft-lb';
+  if (/n[\s\-·.]*m(?![a-z])/.test(lower)) return 'N·m';
+  return null;
+}
+
+type Role = 'time' | 'step' | 'pass' | 'tightened' | 'position' | 'load' | 'torque' | 'pressure' | 'ignore';
+
+function roleOfHeader(header: string): Role {
+  const t = headerTokens(header);
+  const first = t[0] ?? '';
+  if (t.includes('torque')) return 'torque';
+  if (t.includes('pressure')) return 'pressure';
+  if (t.includes('tightened') || (first === 'tool' && (t.includes('position') || t.includes('stud')))) return 'tightened';
+  if (['t', 'time', 'elapsed', 'timestamp', 'seconds', 'sec', 'secs'].includes(first)) return 'time';
+  if (['pass', 'round'].includes(first)) return 'pass';
+  if (['step', 'event', 'marker', 'seq', 'sequence'].includes(first)) return 'step';
+  if (['position', 'pos', 'stud', 'bolt'].includes(first)) return 'position';
+  if (['load', 'force', 'preload', 'tension', 'strain', 'microstrain', 'reading', 'value'].includes(first)) return 'load';
+  return 'ignore';
+}
+
+/**
+ * Proposes a mapping from the header and a few data rows, with notes on each guess.
+ *
+ * Shape: two or more stud load columns → wide. Otherwise a position and a load column → step table
+ * when there is a step column and no position repeats within one step in the sample, else long
+ * (which needs a time column). Load unit: from the first header that names one; failing that, kN
+ * when every sampled load is below 2000, else N (a guess the notes flag). Torque unit from the
+ * torque header, N·m by default.
+ *
+ * @param headerLine the header's line number, used in error messages.
+ * @throws AppError('invalid_input') when no shape fits the headers.
+ */
+export function proposeMappingWithNotes(headers: readonly string[], sampleRows: readonly (readonly string[])[], headerLine = 1): MappingProposal {
+  const notes: string[] = [];
+  const first: Partial<Record<Role, string>> = {};
+  const studColumns: ColumnMapping['studColumns'] = [];
+  headers.forEach((raw) => {
+    const h = raw.trim();
+    const role = roleOfHeader(h);
+    const pos = role === 'torque' || role === 'pressure' || role === 'tightened' ? null : studPositionOfHeader(h);
+    if (pos !== null) {
+      studColumns.push({ column: h, position: pos });
+      return;
+    }
+    if (role !== 'ignore' && first[role] === undefined) first[role] = h;
+  });
+  const col = (r: Role): string | null => first[r] ?? null;
+  const index = (name: string | null) => (name === null ? -1 : headers.findIndex((h) => h.trim() === name));
+
+  let shape: Shape;
+  if (studColumns.length >= 2) shape = 'wide';
+  else if (col('position') !== null && col('load') !== null) {
+    const stepIdx = index(col('step'));
+    const posIdx = index(col('position'));
+    const passIdx = index(col('pass'));
+    let repeats = false;
+    if (stepIdx >= 0) {
+      const seen = new Set<string>();
+      let key = '';
+      for (const row of sampleRows) {
+        const k = `${passIdx >= 0 ? row[passIdx] : ''}\u0000${row[stepIdx] ?? ''}`;
+        if (k !== key) {
+          key = k;
+          seen.clear();
+        }
+        const p = (row[posIdx] ?? '').trim();
+        if (seen.has(p)) repeats = true;
+        seen.add(p);
+      }
+    }
+    shape = stepIdx >= 0 && !repeats ? 'step_table' : 'long';
+    if (shape === 'long' && col('time') === null) {
+      throw new AppError(
+        'invalid_input',
+        `Line ${headerLine}, column "${col('position')}": the columns look like one reading per row (stud position here, load in "${col('load')}") but there is no time or step column to group them.`,
+        { row: headerLine, column: col('position') ?? undefined },
+      );
+    }
+  } else {
+    throw new AppError(
+      'invalid_input',
+      `Line ${headerLine}: could not recognise the columns (${headers.map((h) => `"${h.trim()}"`).join(', ')}). Name the stud load columns "Stud 1", "Stud 2", ... (wide), or give "position" and "load" columns (long or step table).`,
+      { row: headerLine },
+    );
+  }
+
+  const loadHeaders = shape === 'wide' ? studColumns.map((s) => s.column) : [col('load')!];
+  let loadUnit: LoadUnit | null = null;
+  for (const h of loadHeaders) {
+    loadUnit = loadUnitOfHeader(h);
+    if (loadUnit) {
+      notes.push(`Load unit ${loadUnit} taken from "${h}".`);
+      break;
+    }
+  }
+  if (!loadUnit) {
+    const idx = loadHeaders.map((h) => index(h));
+    let max = 0;
+    for (const row of sampleRows)
+      for (const i of idx) {
+        const c = (row[i] ?? '').trim().replace(',', '.');
+        if (isNumericText(c)) max = Math.max(max, Math.abs(Number(c)));
+      }
+    loadUnit = max < 2000 ? 'kN' : 'N';
+    notes.push(`No load unit in the headers; assumed ${loadUnit} from the size of the values (largest ${max}). Check it.`);
+  }
+  const torqueColumn = col('torque');
+  const torqueUnit = (torqueColumn && torqueUnitOfHeader(torqueColumn)) || 'N·m';
+  if (torqueColumn) notes.push(`Torque unit ${torqueUnit}${torqueUnitOfHeader(torqueColumn) ? ` taken from "${torqueColumn}"` : ' assumed (no unit in the header)'}.`);
+
+  const mapping: ColumnMapping = {
+    shape,
+    timeColumn: col('time'),
+    studColumns: shape === 'wide' ? studColumns : [],
+    positionColumn: shape === 'wide' ? null : col('position'),
+    loadColumn: shape === 'wide' ? null : col('load'),
+    stepColumn: col('step'),
+    passColumn: col('pass'),
+    torqueColumn,
+    pressureColumn: col('pressure'),
+    tightenedColumn: col('tightened'),
+    loadUnit,
+    torqueUnit,
+  };
+  notes.unshift(`Shape: ${shape === 'step_table' ? 'step table' : shape}.`);
+  return { mapping, notes };
+}
+
+/**
+ * Proposes a column mapping from the header and sample rows; see {@link proposeMappingWithNotes}
+ * for the rules (this returns only the mapping).
+ */
+export function proposeMapping(headers: readonly string[], sampleRows: readonly (readonly string[])[], headerLine = 1): ColumnMapping {
+  return proposeMappingWithNotes(headers, sampleRows, headerLine).mapping;
+}
