@@ -14,7 +14,7 @@ import { assertNumber } from './internal/assert-number';
  *
  * @throws {StatsError} `chiSquareQuantile requires a probability in (0, 1) as p (got 0)`, or a non-positive df.
  * @example
- * chiSquareQuantile(0.975, 9); // 19.02276779864163 (scipy.stats.chi2.ppf(0.975, 9) = 19.02276779864163)
+ * chiSquareQuantile(0.975, 9); // 19.022767798641635 (scipy.stats.chi2.ppf(0.975, 9) = 19.02276779864163)
  */
 export function chiSquareQuantile(p: number, df: number): number {
   assertNumber('chiSquareQuantile', 'p', p, 'probability');

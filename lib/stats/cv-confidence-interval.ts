@@ -36,7 +36,8 @@ export interface CvConfidenceIntervalResult {
  * @throws {StatsError} fewer than two values, non-finite values, `cvConfidenceInterval requires a positive mean`,
  *   `cvConfidenceInterval requires some variation in the values`, or a confidence outside (0, 1).
  * @example
- * cvConfidenceInterval([326, 302, 307, 299, 329]).lower; // see tests/fixtures/scipy (scipy chi2.ppf formula)
+ * cvConfidenceInterval([326, 302, 307, 299, 329]); // cv 0.04459, lower 0.02670, upper 0.12867
+ * // (same formula evaluated with scipy.stats.chi2.ppf in Python; the data are Vangel's example as quoted in K. Wright's R code)
  */
 export function cvConfidenceInterval(
   values: readonly number[],

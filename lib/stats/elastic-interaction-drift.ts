@@ -27,7 +27,8 @@ export interface StudDrift {
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example
- * elasticInteractionDrift(run)[0]; // { position: 1, lastTightenedStepOrder: 1, loadAfterTighteningN: 100, finalLoadN: 85, driftN: -15, driftPercent: -15 }
+ * // run = the hand-worked one-pass 4-stud run in tests/stats/support/four-stud-runs.ts
+ * elasticInteractionDrift(run)[0]; // { position: 1, lastTightenedStepOrder: 1, loadAfterTighteningN: 100, finalLoadN: 75, driftN: -25, driftPercent: -25 }
  */
 export function elasticInteractionDrift(run: NormalisedRun): StudDrift[] {
   assertRun('elasticInteractionDrift', run);

@@ -16,7 +16,7 @@ import { assertNumber } from './internal/assert-number';
  *
  * @throws {StatsError} `fUpperTail requires a non-negative f (got -1)`, `fUpperTail requires a positive dfNumerator (got 0)`.
  * @example
- * fUpperTail(3.5, 2, 10); // 0.07030000000000003 (scipy.stats.f.sf(3.5, 2, 10) = 0.0703; exact (1 + 0.7)^-5 = 0.07030…)
+ * fUpperTail(3.5, 2, 10); // 0.07042962777237427 (scipy.stats.f.sf(3.5, 2, 10) = 0.07042962777237427; exact 1.7^-5)
  */
 export function fUpperTail(f: number, dfNumerator: number, dfDenominator: number): number {
   if (f !== Number.POSITIVE_INFINITY) assertNumber('fUpperTail', 'f', f, 'nonNegative');

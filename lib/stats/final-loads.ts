@@ -10,7 +10,8 @@ import { assertRun } from './internal/assert-run';
  *
  * @throws {StatsError} `finalLoads requires a run with at least one step`, or any malformed run (see assertRun).
  * @example
- * finalLoads(run); // [98000, 101500, 99000, 100200] for a 4-stud run
+ * // run = the hand-worked two-pass 4-stud run in tests/stats/support/four-stud-runs.ts
+ * finalLoads(run); // [82.5, 82.5, 82.5, 82.5]
  */
 export function finalLoads(run: NormalisedRun): number[] {
   assertRun('finalLoads', run);

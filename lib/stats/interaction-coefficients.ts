@@ -43,7 +43,8 @@ export interface InteractionCoefficientsResult {
  *   `interactionCoefficients requires at least one step with an earlier snapshot`,
  *   `interactionCoefficients requires a step that changes the tightened stud's load`.
  * @example
- * interactionCoefficients(run).byDistance[1]; // { distance: 1, coefficient: -0.1, standardError: 0, observations: 24 }
+ * // run = the hand-worked two-pass 4-stud run in tests/stats/support/four-stud-runs.ts (neighbours −0.1Δ, opposite −0.05Δ)
+ * interactionCoefficients(run, { initialLoadsN: [0, 0, 0, 0] }).byDistance[1]; // { distance: 1, coefficient: -0.1 (to 1e-15), standardError: ≈0, observations: 16 }
  */
 export function interactionCoefficients(
   run: NormalisedRun,

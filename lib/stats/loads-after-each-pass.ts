@@ -20,7 +20,8 @@ export interface PassSnapshot {
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example
- * loadsAfterEachPass(run).map((p) => p.pass); // [1, 2, 3]
+ * // run = the hand-worked two-pass 4-stud run in tests/stats/support/four-stud-runs.ts
+ * loadsAfterEachPass(run).map((p) => p.loadsN[0]); // [75, 82.5]
  */
 export function loadsAfterEachPass(run: NormalisedRun): PassSnapshot[] {
   assertRun('loadsAfterEachPass', run);

@@ -24,7 +24,8 @@ export interface PassLoss {
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example
- * lossPerPass(run)[0]; // { pass: 1, positions: [1, 3, 2, 4], meanChangeN: -6.25, meanChangePercent: -6.25 }
+ * // run = the hand-worked two-pass 4-stud run in tests/stats/support/four-stud-runs.ts
+ * lossPerPass(run)[0]; // { pass: 1, positions: [1, 3, 2, 4], meanChangeN: -12.5, meanChangePercent: -13.0757 (hand) }
  */
 export function lossPerPass(run: NormalisedRun): PassLoss[] {
   assertRun('lossPerPass', run);

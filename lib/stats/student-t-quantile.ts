@@ -14,7 +14,7 @@ import { studentTUpperTail } from './student-t-upper-tail';
  *
  * @throws {StatsError} `studentTQuantile requires a probability in (0, 1) as p (got 1)`, or a non-positive df.
  * @example
- * studentTQuantile(0.975, 10); // 2.2281388519649385 (scipy.stats.t.ppf(0.975, 10) = 2.228138851986274)
+ * studentTQuantile(0.975, 10); // 2.2281388519862744 (scipy.stats.t.ppf(0.975, 10) = 2.228138851986274)
  */
 export function studentTQuantile(p: number, df: number): number {
   assertNumber('studentTQuantile', 'p', p, 'probability');

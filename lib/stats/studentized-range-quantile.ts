@@ -17,7 +17,7 @@ import { StatsError } from './stats-error';
  * @throws {StatsError} `studentizedRangeQuantile requires a probability in (0, 1) as p (got 1)`,
  *   `studentizedRangeQuantile requires at least two means (got 1)`, `... requires df of at least 2 (got 1)`.
  * @example
- * studentizedRangeQuantile(0.95, 3, 10); // 3.877 (e-Handbook/Tukey table q(0.05; 3, 10) = 3.877; scipy 3.8767…)
+ * studentizedRangeQuantile(0.95, 3, 10); // 3.876776750017816 (scipy.stats.studentized_range.ppf(0.95, 3, 10) = 3.876776750013158)
  */
 export function studentizedRangeQuantile(p: number, means: number, df: number): number {
   assertNumber('studentizedRangeQuantile', 'p', p, 'probability');

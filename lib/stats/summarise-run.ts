@@ -44,7 +44,7 @@ export interface RunSummary {
  * @throws {StatsError} any malformed run (see assertRun), `summariseRun requires a positive bandPercent (got 0)`,
  *   `summariseRun requires final loads with a positive mean`.
  * @example
- * summariseRun(run, { bandPercent: 10 }).cv; // 0.0129 for final loads [98, 101.5, 99, 100.2] kN
+ * summariseRun(run, { bandPercent: 5 }).cv; // 0.015179325095609217 for final loads [98, 101.5, 99, 100.2] kN (numpy std(ddof=1)/mean)
  */
 export function summariseRun(run: NormalisedRun, options: { bandPercent: number }): RunSummary {
   assertRun('summariseRun', run);

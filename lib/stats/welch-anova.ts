@@ -33,7 +33,7 @@ export interface WelchAnovaResult {
  *   `welchAnova requires at least two values of group 1 (got 1)`, non-finite values,
  *   `welchAnova requires some variation within every group (group 2 is constant)`.
  * @example
- * welchAnova([[1, 2, 3, 4], [2, 4, 6, 8, 10]]).statistic; // 5.128205128205128 (scipy f_oneway(equal_var=False))
+ * welchAnova([[1, 2, 3, 4], [2, 4, 6, 8, 10]]).statistic; // 5.06896551724138 (scipy.stats.f_oneway(..., equal_var=False) = 5.06896551724138)
  */
 export function welchAnova(groups: readonly (readonly number[])[]): WelchAnovaResult {
   assertGroups('welchAnova', groups, 2, 2);

@@ -33,7 +33,7 @@ export interface WelchTTestResult {
  * @throws {StatsError} `welchTTest requires at least two values of sample a (got 1)`, non-finite
  *   values, `welchTTest requires some variation in at least one sample`.
  * @example
- * welchTTest([1, 2, 3, 4], [2, 4, 6, 8, 10]).statistic; // -1.9518001458970664 (scipy ttest_ind equal_var=False)
+ * welchTTest([1, 2, 3, 4], [2, 4, 6, 8, 10]).statistic; // -2.2514363231593695 (scipy.stats.ttest_ind(..., equal_var=False) = -2.2514363231593695)
  */
 export function welchTTest(
   a: readonly number[],
