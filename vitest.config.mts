@@ -2,7 +2,7 @@ import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import path from 'node:path';
 
-const alias = { '@': path.resolve(__dirname), 'server-only': path.resolve(__dirname, 'tests/support/server-only-stub.ts') };
+const alias = { '@': path.resolve(import.meta.dirname), 'server-only': path.resolve(import.meta.dirname, 'tests/support/server-only-stub.ts') };
 
 // Four projects: pure units (node), components (jsdom), integration against the real MariaDB
 // the test command starts, and end-to-end against the built app in Debian's Chromium.
@@ -32,6 +32,17 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 60_000,
           hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'faults',
+          environment: 'node',
+          include: ['tests/faults/**/*.test.ts'],
+          fileParallelism: false,
+          testTimeout: 180_000,
+          hookTimeout: 180_000,
         },
       },
       {

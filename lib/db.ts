@@ -8,7 +8,7 @@ import { mariadbDriver } from './mariadb-driver';
  * that cannot get a connection within the timeout fails fast with a clear 503 instead of queueing
  * for ever. With DB_READ_HOSTS set, Sequelize sends reads to the replicas and writes to DB_HOST.
  */
-export function createSequelize(database: string = env.DB_NAME): Sequelize {
+export function createSequelize(database: string = env.DB_NAME, overrides: { port?: number } = {}): Sequelize {
   const common = { username: env.DB_USER, password: env.DB_PASSWORD, database };
   const readHosts = (env.DB_READ_HOSTS ?? '')
     .split(',')
@@ -22,7 +22,7 @@ export function createSequelize(database: string = env.DB_NAME): Sequelize {
     dialect: 'mariadb',
     dialectModule: mariadbDriver,
     host: env.DB_HOST,
-    port: env.DB_PORT,
+    port: overrides.port ?? env.DB_PORT,
     logging: env.EVENLOAD_LOG_SQL === '1' ? console.log : false,
     timezone: '+00:00',
     dialectOptions: { connectTimeout: 3000, permitLocalInfile: true },

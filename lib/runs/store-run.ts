@@ -44,8 +44,8 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   const [runId] = await sequelize.query(
     `INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status,
        set_aside_reason, set_aside_by_id, recorded_at, notes, stud_count, step_count, pass_count,
-       final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, created_at, updated_at)
-     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
+       final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at)
+     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
     {
       type: QueryTypes.INSERT,
       transaction,
@@ -53,7 +53,7 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
         header.jointId, header.methodId, header.lubricantId, header.operatorId, header.cohortId, header.targetLoadN,
         header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
         header.recordedAt, header.notes ?? null, figures.studCount, figures.stepCount, figures.passCount,
-        figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, now, now,
+        figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, figures.finalLoadsJson, figures.driftJson, now, now,
       ],
     },
   );
@@ -99,7 +99,7 @@ export async function appendSteps(runId: number, run: NormalisedRun, existingSte
 export async function refreshRunFigures(runId: number, run: NormalisedRun, transaction: Transaction): Promise<void> {
   const f = storedRunFigures(run);
   await sequelize.query(
-    `UPDATE runs SET step_count=?, pass_count=?, final_mean_n=?, final_sd_n=?, final_cv=?, final_min_n=?, final_max_n=?, updated_at=? WHERE id=?`,
-    { transaction, replacements: [f.stepCount, f.passCount, f.finalMeanN, f.finalSdN, f.finalCv, f.finalMinN, f.finalMaxN, new Date(), runId] },
+    `UPDATE runs SET step_count=?, pass_count=?, final_mean_n=?, final_sd_n=?, final_cv=?, final_min_n=?, final_max_n=?, final_loads_json=?, drift_json=?, updated_at=? WHERE id=?`,
+    { transaction, replacements: [f.stepCount, f.passCount, f.finalMeanN, f.finalSdN, f.finalCv, f.finalMinN, f.finalMaxN, f.finalLoadsJson, f.driftJson, new Date(), runId] },
   );
 }

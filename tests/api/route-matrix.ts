@@ -17,8 +17,14 @@ const signedIn = (status: number): Record<Caller, number> => ({ anonymous: 401, 
 
 export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/health', method: 'GET', path: '/api/health', expect: { anonymous: 200, admin: 200, instructor: 200, researcher: 200, trainee: 200 } },
+  { route: '/api/ping', method: 'GET', path: '/api/ping', expect: { anonymous: 200, admin: 200, instructor: 200, researcher: 200, trainee: 200 } },
   { route: '/api/runs', method: 'GET', path: '/api/runs', expect: signedIn(200) },
   { route: '/api/runs/options', method: 'GET', path: '/api/runs/options', expect: signedIn(200) },
+  // Run 1 of the demo scenario belongs to a spring-cohort trainee taught by the first instructor.
+  { route: '/api/runs/[id]', method: 'GET', path: '/api/runs/{springRun}', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
+  { route: '/api/runs/[id]/analysis', method: 'GET', path: '/api/runs/{springRun}/analysis', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
+  { route: '/api/runs/[id]/export', method: 'GET', path: '/api/runs/{springRun}/export', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
+  { route: '/api/compare', method: 'GET', path: '/api/compare?by=method', expect: { anonymous: 401, admin: 403, instructor: 200, researcher: 200, trainee: 403 } },
 ];
 
 /** Routes that are not ours to check here (next-auth's own endpoints). */

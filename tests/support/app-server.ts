@@ -12,11 +12,11 @@ export interface AppServer {
  * Starts the built app (`next start`) against the test database on its own port and waits until
  * /api/health answers. The test command builds the app first.
  */
-export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_PORT ?? 3100)): Promise<AppServer> {
+export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_PORT ?? 3100), extraEnv: Record<string, string> = {}): Promise<AppServer> {
   const baseUrl = `http://127.0.0.1:${port}`;
   const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
-    env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1' },
+    env: { ...process.env, ...extraEnv, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';

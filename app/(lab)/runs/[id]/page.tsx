@@ -1,0 +1,33 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { RunReport } from '@/components/run-report/run-report';
+import { analyseRun } from '@/lib/analysis/analyse-run';
+import { isAppError } from '@/lib/errors';
+import { runIdSchema } from '@/lib/data/run-params';
+import { loadRun } from '@/lib/data/run-report';
+import { requirePageUser } from '@/lib/session';
+import { addCommentAction } from './actions';
+
+export const metadata: Metadata = { title: 'Run report' };
+export const dynamic = 'force-dynamic';
+
+export default async function RunReportPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageUser();
+  const parsed = runIdSchema.safeParse((await params).id);
+  if (!parsed.success) notFound();
+  const loaded = await loadRun(user, parsed.data).catch((error: unknown) => {
+    if (isAppError(error) && error.code === 'not_found') notFound();
+    throw error;
+  });
+  const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
+  return (
+    <RunReport
+      header={loaded.header}
+      analysis={analysis}
+      comments={loaded.comments}
+      units={user.units}
+      role={user.role}
+      commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
+    />
+  );
+}

@@ -1,0 +1,113 @@
+import 'server-only';
+import { Op, QueryTypes } from 'sequelize';
+import { AppError } from '../errors';
+import type { NormalisedRun } from '../run-types';
+import type { SessionUser } from '../session';
+import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
+import type { MethodPass } from '@/models/method';
+import { operatorLabel, runScope } from './scope';
+
+export interface RunHeaderDto {
+  id: number;
+  recordedAt: string;
+  status: string;
+  setAsideReason: string | null;
+  source: string;
+  notes: string | null;
+  targetLoadN: number;
+  bandPercent: number;
+  studCount: number;
+  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string };
+  method: { id: number; name: string; toolKind: string; passPercents: number[]; checkPasses: number; passOrders: number[][] };
+  lubricant: { id: number; name: string; nominalNutFactor: number };
+  operator: { id: number; label: string };
+  cohort: { id: number; name: string } | null;
+}
+
+export interface RunCommentDto {
+  id: number;
+  authorName: string;
+  body: string;
+  createdAt: string;
+}
+
+export interface LoadedRun {
+  header: RunHeaderDto;
+  run: NormalisedRun;
+  comments: RunCommentDto[];
+}
+
+type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; operator: User; cohort: Cohort | null };
+
+const threadLabel = (j: Joint) =>
+  j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
+
+/** The method's % of target per pass, check passes (circular, 100 %) appended. */
+export function passPercentsOf(method: { passes: MethodPass[]; checkPasses: number }): number[] {
+  return [...method.passes.map((p) => p.percentOfTarget), ...Array.from({ length: method.checkPasses }, () => 100)];
+}
+
+/**
+ * A run the viewer may see, with its steps and readings. Throws not_found when it does not exist
+ * or is not the viewer's to see (the two are not told apart).
+ */
+export async function loadRun(user: SessionUser, runId: number): Promise<LoadedRun> {
+  const scope = await runScope(user);
+  const run = (await Run.findOne({
+    where: { [Op.and]: [{ id: runId }, scope] },
+    include: [
+      { model: Joint, as: 'joint' },
+      { model: Method, as: 'method' },
+      { model: Lubricant, as: 'lubricant' },
+      { model: User, as: 'operator', attributes: ['id', 'name'] },
+      { model: Cohort, as: 'cohort', attributes: ['id', 'name'] },
+    ],
+  })) as RunWithParts | null;
+  if (!run) throw new AppError('not_found', 'This run does not exist, or it is not yours to see.');
+  const rows = await sequelize.query<{ step_order: number; pass_number: number; tightened: number; applied_torque_nm: number | null; applied_pressure_bar: number | null; time_s: number | null; position: number; load_n: number }>(
+    `SELECT s.step_order, s.pass_number, s.position AS tightened, s.applied_torque_nm, s.applied_pressure_bar, s.time_s, r.position, r.load_n
+     FROM tightening_steps s JOIN readings r ON r.step_id = s.id WHERE s.run_id = ? ORDER BY s.step_order, r.position`,
+    { type: QueryTypes.SELECT, replacements: [runId] },
+  );
+  const steps: NormalisedRun['steps'] = [];
+  for (const row of rows) {
+    let step = steps[steps.length - 1];
+    if (!step || step.order !== row.step_order) {
+      step = { order: row.step_order, pass: row.pass_number, position: row.tightened, appliedTorqueNm: row.applied_torque_nm, appliedPressureBar: row.applied_pressure_bar, timeS: row.time_s, loadsN: new Array(run.studCount).fill(0) };
+      steps.push(step);
+    }
+    step.loadsN[row.position - 1] = row.load_n;
+  }
+  const comments = await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
+  const method = run.method;
+  return {
+    header: {
+      id: run.id,
+      recordedAt: run.recordedAt.toISOString(),
+      status: run.status,
+      setAsideReason: run.setAsideReason,
+      source: run.source,
+      notes: run.notes,
+      targetLoadN: run.targetLoadN,
+      bandPercent: run.bandPercent,
+      studCount: run.studCount,
+      joint: { id: run.joint.id, name: run.joint.name, nominalSize: run.joint.nominalSize, pressureClass: run.joint.pressureClass, studGrade: run.joint.studGrade, gasketType: run.joint.gasketType, thread: threadLabel(run.joint) },
+      method: {
+        id: method.id,
+        name: method.name,
+        toolKind: method.toolKind,
+        passPercents: passPercentsOf(method),
+        checkPasses: method.checkPasses,
+        passOrders: method.passes.map((p) => p.orderByStudCount[String(run.studCount)] ?? []),
+      },
+      lubricant: { id: run.lubricant.id, name: run.lubricant.name, nominalNutFactor: run.lubricant.nominalNutFactor },
+      operator: { id: run.operator.id, label: operatorLabel(user, run.operator) },
+      cohort: run.cohort ? { id: run.cohort.id, name: run.cohort.name } : null,
+    },
+    run: { studCount: run.studCount, targetLoadN: run.targetLoadN, steps },
+    comments: comments.map((c) => {
+      const author = (c as RunComment & { author: User }).author;
+      return { id: c.id, authorName: operatorLabel(user, author), body: c.body, createdAt: c.createdAt.toISOString() };
+    }),
+  };
+}

@@ -1,0 +1,186 @@
+/**
+ * The benchmarks of `npm run bench`, side by side in one run:
+ *  1. ingest: parse + store of a 1,000,000-reading wide CSV (8 studs) vs MariaDB's LOAD DATA LOCAL
+ *     INFILE of the equivalent readings into a scratch table (target >= 0.5x).
+ *  2. compare: GET /api/compare over 10,000 runs in 6 groups vs one bare SQL aggregate returning
+ *     the same group counts and means (target <= 2x).
+ *  3. load: runs-list and run-analysis APIs under 50 connections vs a constant-JSON handler
+ *     (target: runs-list >= 0.5x throughput, p99 < 100 ms).
+ *  4. burst: 200 connections for 60 s on the runs list: errors, non-2xx, timeouts (target 0).
+ * Prints a table; writes bench-results/bench-<time>.json.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import * as mariadb from 'mariadb';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../lib/db';
+import { env } from '../../lib/env';
+import { startAppServer } from '../../tests/support/app-server';
+import { DEMO_ACCOUNTS, signInAs } from '../../tests/support/http-session';
+
+const root = path.resolve(__dirname, '../..');
+const results: Record<string, unknown> = { machine: { cpus: os.cpus().length, memoryGiB: Math.round(os.totalmem() / 2 ** 30), node: process.version }, startedAt: new Date().toISOString() };
+const rows: [string, string, string, string][] = [];
+const only = process.argv.slice(2);
+const want = (name: string) => only.length === 0 || only.includes(name);
+
+const q = <T extends object>(sql: string, replacements: unknown[] = []) => sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] ?? NaN;
+
+async function demoIds() {
+  const [joint] = await q<{ id: number }>('SELECT id FROM joints WHERE stud_count = 8 ORDER BY id LIMIT 1');
+  const [method] = await q<{ id: number }>('SELECT id FROM methods ORDER BY id LIMIT 1');
+  const [lubricant] = await q<{ id: number }>('SELECT id FROM lubricants ORDER BY id LIMIT 1');
+  const [operator] = await q<{ id: number }>("SELECT id FROM users WHERE role = 'researcher' LIMIT 1");
+  return { jointId: joint!.id, methodId: method!.id, lubricantId: lubricant!.id, operatorId: operator!.id };
+}
+
+async function benchIngest() {
+  const dir = path.join(root, '.data', 'bench');
+  mkdirSync(dir, { recursive: true });
+  const csvPath = path.join(dir, 'wide-1m.csv');
+  const tsvPath = path.join(dir, 'readings-1m.tsv');
+  const studs = 8;
+  const steps = 125_000;
+  const lines = ['time_s,step,pass,' + Array.from({ length: studs }, (_, i) => `Stud ${i + 1} [kN]`).join(',')];
+  const tsv: string[] = [];
+  for (let s = 0; s < steps; s += 1) {
+    const loads = Array.from({ length: studs }, (_, i) => (40 + ((s * 7 + i * 13) % 200) / 10).toFixed(3));
+    lines.push(`${(s * 0.5).toFixed(1)},${s + 1},${Math.floor(s / 8) + 1},${loads.join(',')}`);
+    loads.forEach((load, i) => tsv.push(`${s + 1}\t${i + 1}\t1\t${Number(load) * 1000}`));
+  }
+  writeFileSync(csvPath, `${lines.join('\n')}\n`);
+  writeFileSync(tsvPath, `${tsv.join('\n')}\n`);
+  const ids = await demoIds();
+
+  const child = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['scripts/bench/ingest-child.ts', csvPath, String(ids.jointId), String(ids.methodId), String(ids.lubricantId), String(ids.operatorId)], { cwd: root, env: process.env, encoding: 'utf8', maxBuffer: 10 * 2 ** 20 });
+  if (child.status !== 0) throw new Error(`ingest child failed: ${child.stderr}`);
+  const ingest = JSON.parse(child.stdout.trim().split('\n').pop() as string) as { runId: number; readings: number; totalSeconds: number; parseSeconds: number; storeSeconds: number; maxRssMb: number };
+  await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [ingest.runId] });
+
+  const connection = await mariadb.createConnection({ host: env.DB_HOST, port: env.DB_PORT, user: env.DB_USER, password: env.DB_PASSWORD, database: env.DB_NAME, permitLocalInfile: true });
+  await connection.query('DROP TABLE IF EXISTS bench_load_data');
+  await connection.query('CREATE TABLE bench_load_data (step_id INT UNSIGNED NOT NULL, position SMALLINT UNSIGNED NOT NULL, run_id INT UNSIGNED NOT NULL, load_n DOUBLE NOT NULL, PRIMARY KEY (step_id, position), KEY (run_id, step_id)) ENGINE=InnoDB');
+  const loadStarted = performance.now();
+  await connection.query(`LOAD DATA LOCAL INFILE ? INTO TABLE bench_load_data FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n'`, [tsvPath]);
+  const loadSeconds = (performance.now() - loadStarted) / 1000;
+  const [{ n }] = (await connection.query('SELECT COUNT(*) AS n FROM bench_load_data')) as [{ n: bigint }];
+  await connection.query('DROP TABLE bench_load_data');
+  await connection.end();
+  rmSync(dir, { recursive: true, force: true });
+
+  const ingestRate = ingest.readings / ingest.totalSeconds;
+  const loadRate = Number(n) / loadSeconds;
+  results.ingest = { ...ingest, loadDataRows: Number(n), loadDataSeconds: loadSeconds, ingestReadingsPerSecond: ingestRate, loadDataRowsPerSecond: loadRate, ratio: ingestRate / loadRate, target: '>= 0.5' };
+  rows.push(['ingest 1M readings (parse + store)', `${Math.round(ingestRate).toLocaleString('en-US')} readings/s (${ingest.totalSeconds.toFixed(1)} s; parse ${ingest.parseSeconds.toFixed(1)} s, store ${ingest.storeSeconds.toFixed(1)} s)`, `LOAD DATA ${Math.round(loadRate).toLocaleString('en-US')} rows/s (${loadSeconds.toFixed(1)} s)`, `${(ingestRate / loadRate).toFixed(2)}x (>= 0.5x)`]);
+  rows.push(['ingest peak memory', `${ingest.maxRssMb.toFixed(0)} MB max RSS`, '', ingest.maxRssMb < 500 ? 'under 500 MB' : 'OVER 500 MB']);
+}
+
+async function ensureCompareRuns(): Promise<number[]> {
+  const wanted = 10_000;
+  const ids = await demoIds();
+  let methods = (await q<{ id: number }>('SELECT id FROM methods ORDER BY id')).map((m) => m.id);
+  for (let i = methods.length; i < 6; i += 1) {
+    await sequelize.query("INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?, 'manual_torque_wrench', '[]', 0, 'bench method', NOW(), NOW())", { replacements: [`Bench method ${i + 1}`] });
+  }
+  methods = (await q<{ id: number }>('SELECT id FROM methods ORDER BY id LIMIT 6')).map((m) => m.id);
+  const [existing] = await q<{ n: number }>("SELECT COUNT(*) AS n FROM runs WHERE notes = 'bench compare run'");
+  let have = Number(existing?.n ?? 0);
+  let seed = 1;
+  const rand = () => ((seed = (seed * 1_103_515_245 + 12_345) % 2 ** 31) / 2 ** 31);
+  while (have < wanted) {
+    const batch: string[] = [];
+    for (let i = 0; i < 1000 && have < wanted; i += 1, have += 1) {
+      const group = have % 6;
+      const spread = 0.02 + group * 0.015;
+      const loads = Array.from({ length: 8 }, () => 60_000 * (1 + spread * (rand() + rand() + rand() - 1.5) * 2));
+      const m = loads.reduce((a, b) => a + b, 0) / 8;
+      const sd = Math.sqrt(loads.reduce((a, b) => a + (b - m) ** 2, 0) / 7);
+      const drift = loads.map((_, p) => -10 * spread * (8 - p) * rand());
+      batch.push(`(${ids.jointId},${methods[group]},${ids.lubricantId},${ids.operatorId},NULL,60000,10,'simulated','complete',NOW(),'bench compare run',8,8,1,${m},${sd},${sd / m},${Math.min(...loads)},${Math.max(...loads)},'${JSON.stringify(loads)}','${JSON.stringify(drift)}',NOW(),NOW())`);
+    }
+    await sequelize.query(`INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status, recorded_at, notes, stud_count, step_count, pass_count, final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at) VALUES ${batch.join(',')}`);
+  }
+  return methods;
+}
+
+async function benchCompare(baseUrl: string) {
+  const methods = await ensureCompareRuns();
+  const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
+  const url = `/api/compare?by=method&ids=${methods.join(',')}`;
+  const api: number[] = [];
+  const sql: number[] = [];
+  let totalRuns = 0;
+  for (let i = 0; i < 12; i += 1) {
+    let t = performance.now();
+    const response = await researcher.get(url);
+    const body = (await response.json()) as { totalRuns: number };
+    api.push(performance.now() - t);
+    totalRuns = body.totalRuns;
+    t = performance.now();
+    await q("SELECT method_id, COUNT(*) AS n, AVG(final_mean_n / target_load_n) AS mean_ratio, AVG(final_cv) AS mean_cv FROM runs WHERE status = 'complete' AND method_id IN (?) GROUP BY method_id", [methods]);
+    sql.push(performance.now() - t);
+  }
+  const apiMs = median(api.slice(2));
+  const sqlMs = median(sql.slice(2));
+  results.compare = { runs: totalRuns, groups: methods.length, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, target: '<= 2' };
+  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median)`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 2x)`]);
+}
+
+async function cannon(url: string, cookie: string, connections: number, seconds: number) {
+  const result = await autocannon({ url, connections, duration: seconds, headers: cookie ? { cookie } : {}, timeout: 10 });
+  return { requestsPerSecond: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx, total: result.requests.total };
+}
+
+async function benchLoad(baseUrl: string) {
+  const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
+  const [run] = await q<{ id: number }>("SELECT id FROM runs WHERE notes <> 'bench compare run' AND step_count > 8 ORDER BY id LIMIT 1");
+  const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 10);
+  const constant = await cannon(`${baseUrl}/api/ping`, '', 50, seconds);
+  const list = await cannon(`${baseUrl}/api/runs?pageSize=25`, researcher.cookie, 50, seconds);
+  const analysis = await cannon(`${baseUrl}/api/runs/${run!.id}/analysis`, researcher.cookie, 50, seconds);
+  results.load = { connections: 50, seconds, constant, runsList: list, runAnalysis: analysis, runsListRatio: list.requestsPerSecond / constant.requestsPerSecond, analysisRatio: analysis.requestsPerSecond / constant.requestsPerSecond, target: 'runs list >= 0.5x constant, p99 < 100 ms' };
+  const line = (name: string, r: typeof list) => `${Math.round(r.requestsPerSecond)} req/s, p50 ${r.p50} ms, p99 ${r.p99} ms, errors ${r.errors + r.timeouts + r.non2xx}`;
+  rows.push(['load 50 conn: constant JSON', line('constant', constant), '', 'baseline']);
+  rows.push(['load 50 conn: GET /api/runs', line('list', list), '', `${(list.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.5x), p99 ${list.p99 < 100 ? '<' : '>='} 100 ms`]);
+  rows.push(['load 50 conn: GET /api/runs/:id/analysis', line('analysis', analysis), '', `${(analysis.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x`]);
+}
+
+async function benchBurst(baseUrl: string) {
+  const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
+  const seconds = Number(process.env.BENCH_BURST_SECONDS ?? 60);
+  const burst = await cannon(`${baseUrl}/api/runs?pageSize=25`, researcher.cookie, 200, seconds);
+  results.burst = { connections: 200, seconds, ...burst, poolMax: env.DB_POOL_MAX, poolAcquireMs: env.DB_POOL_ACQUIRE_MS, target: '0 errors' };
+  rows.push([`burst 200 conn x ${seconds} s: GET /api/runs`, `${burst.total.toLocaleString('en-US')} requests, ${Math.round(burst.requestsPerSecond)} req/s, p99 ${burst.p99} ms`, `pool max ${env.DB_POOL_MAX}`, `errors ${burst.errors}, timeouts ${burst.timeouts}, non-2xx ${burst.non2xx}`]);
+}
+
+async function main() {
+  if (want('ingest')) await benchIngest();
+  const needsServer = ['compare', 'load', 'burst'].some(want);
+  const server = needsServer ? await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200)) : null;
+  try {
+    if (server && want('compare')) await benchCompare(server.baseUrl);
+    if (server && want('load')) await benchLoad(server.baseUrl);
+    if (server && want('burst')) await benchBurst(server.baseUrl);
+  } finally {
+    await server?.stop();
+    await sequelize.close();
+  }
+  const widths = [0, 1, 2, 3].map((i) => Math.max(...[['benchmark', 'measured', 'beside', 'ratio / target'], ...rows].map((r) => r[i]!.length)));
+  const print = (r: string[]) => console.log(r.map((c, i) => c.padEnd(widths[i]!)).join(' | '));
+  print(['benchmark', 'measured', 'beside', 'ratio / target']);
+  console.log(widths.map((w) => '-'.repeat(w)).join('-|-'));
+  rows.forEach(print);
+  mkdirSync(path.join(root, 'bench-results'), { recursive: true });
+  const file = path.join(root, 'bench-results', `bench-${new Date().toISOString().replace(/[:.]/g, '-')}.json`);
+  writeFileSync(file, JSON.stringify(results, null, 2));
+  console.log(`\nwritten: ${path.relative(root, file)}`);
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
