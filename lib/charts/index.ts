@@ -1,0 +1,12 @@
+export type { ChartSpec, ChartTable, ChartLegend, LegendSwatch } from './chart-spec';
+export { finalLoadsChart } from './final-loads-chart';
+export { loadsThroughTimeChart } from './loads-through-time-chart';
+export { driftChart } from './drift-chart';
+export { reachChart } from './reach-chart';
+export { passSummaryChart } from './pass-summary-chart';
+export { compareFinalLoadsChart } from './compare-final-loads-chart';
+export { compareRunCvChart } from './compare-run-cv-chart';
+export { compareDriftByPositionChart } from './compare-drift-by-position-chart';
+export { nutFactorChart, type NutFactorRow } from './nut-factor-chart';
+export { GROUP_COLOURS, groupColour, deviationColour, deviationColourHex, THEME } from './palette';
+export { readStud, type StudReading } from './stud-reading';

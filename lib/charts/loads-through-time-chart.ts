@@ -1,0 +1,203 @@
+import * as Plot from '@observablehq/plot';
+import type { UnitSystem } from '@/lib/calc/units';
+import type { RunAnalysis } from '@/lib/analysis/types';
+import { AppError } from '@/lib/errors';
+import type { ChartSpec } from './chart-spec';
+import { chartForceText, forceUnit, numberText, passLabel, percentText, toChartForce } from './chart-format';
+import { THEME } from './palette';
+import { basePlotOptions } from './plot-theme';
+
+export type LoadsThroughTimeInput = Pick<RunAnalysis, 'steps' | 'passes' | 'targetLoadN' | 'bandPercent'>;
+
+export interface LoadsThroughTimeOptions {
+  units: UnitSystem;
+  /** Replay: the step shown as "now" (1-based step order). Steps after it are dimmed. */
+  currentStep?: number;
+}
+
+export interface StudLoadPoint {
+  step: number;
+  pass: number;
+  position: number;
+  load: number;
+  tightened: boolean;
+  title: string;
+}
+
+export interface PassBoundary {
+  pass: number;
+  /** Drawn half-way between the last step of the previous pass and the first of this one. */
+  x: number;
+  label: string;
+}
+
+/** Every stud's load after every step, one line per stud, in the chart's force unit. */
+export function studLoadPoints(steps: RunAnalysis['steps'], units: UnitSystem): StudLoadPoint[] {
+  return steps.flatMap((step) =>
+    step.loadsN.map((loadN, i) => ({
+      step: step.order,
+      pass: step.pass,
+      position: i + 1,
+      load: toChartForce(loadN, units),
+      tightened: step.position === i + 1,
+      title: `Step ${step.order} (pass ${step.pass}), stud ${i + 1}: ${chartForceText(loadN, units)}${
+        step.position === i + 1 ? ' — tightened in this step' : ''
+      }`,
+    })),
+  );
+}
+
+/** Where each pass after the first begins, with its label "Pass 2 (60 %)". */
+export function passBoundaries(run: Pick<RunAnalysis, 'steps' | 'passes'>): PassBoundary[] {
+  const boundaries: PassBoundary[] = [];
+  for (let i = 1; i < run.steps.length; i += 1) {
+    const prev = run.steps[i - 1]!;
+    const step = run.steps[i]!;
+    if (step.pass !== prev.pass) {
+      const level = run.passes.find((p) => p.pass === step.pass)?.percentOfTarget;
+      boundaries.push({ pass: step.pass, x: (prev.order + step.order) / 2, label: passLabel(step.pass, level) });
+    }
+  }
+  return boundaries;
+}
+
+/**
+ * Loads through time: x = step, y = load; a thin line per stud, the stud tightened at each step
+ * marked with an accent dot on its line, pass boundaries as rules labelled "Pass 2 (60 %)", the
+ * target line and band. With `currentStep` (replay) a cursor marks that step and everything after
+ * it is dimmed.
+ */
+export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: LoadsThroughTimeOptions): ChartSpec {
+  const { units, currentStep } = options;
+  const { steps, targetLoadN, bandPercent } = run;
+  const lastStep = steps.length ? steps[steps.length - 1]!.order : 0;
+  if (currentStep !== undefined && (!Number.isInteger(currentStep) || currentStep < 1 || currentStep > lastStep)) {
+    throw new AppError('invalid_input', `currentStep must be a whole step between 1 and ${lastStep} (got ${currentStep})`, {
+      field: 'currentStep',
+    });
+  }
+  const unit = forceUnit(units);
+  const target = toChartForce(targetLoadN, units);
+  const points = studLoadPoints(steps, units).filter((p) => Number.isFinite(p.load));
+  const boundaries = passBoundaries(run);
+  const firstPass = steps[0];
+  const firstLabel = firstPass
+    ? { x: firstPass.order - 0.5, label: passLabel(firstPass.pass, run.passes.find((p) => p.pass === firstPass.pass)?.percentOfTarget) }
+    : undefined;
+  const now = currentStep ?? lastStep;
+  const done = points.filter((p) => p.step <= now);
+  const ahead = currentStep === undefined ? [] : points.filter((p) => p.step >= now);
+  const tightenedDone = done.filter((p) => p.tightened);
+  const tightenedAhead = ahead.filter((p) => p.tightened && p.step > now);
+  const studCount = steps[0]?.loadsN.length ?? 0;
+  const endLabels = done.filter((p) => p.step === now);
+
+  const marks: Plot.Markish[] = [
+    Plot.rectY([{ y1: target * (1 - bandPercent / 100), y2: target * (1 + bandPercent / 100) }], {
+      y1: 'y1',
+      y2: 'y2',
+      fill: THEME.on,
+      fillOpacity: 0.3,
+      ariaDescription: 'band',
+    }),
+    Plot.ruleY([target], { stroke: THEME.ink, strokeWidth: 1, strokeDasharray: '4 3', ariaDescription: 'target' }),
+    Plot.ruleY([0], { stroke: THEME.ink, strokeWidth: 1, ariaDescription: 'zero' }),
+    Plot.ruleX(boundaries, { x: 'x', stroke: THEME.muted, strokeWidth: 1, ariaDescription: 'pass boundaries' }),
+    Plot.text([...(firstLabel ? [firstLabel] : []), ...boundaries], {
+      x: 'x',
+      text: 'label',
+      frameAnchor: 'top',
+      textAnchor: 'start',
+      dx: 4,
+      dy: -14,
+      fill: THEME.muted,
+      ariaDescription: 'pass labels',
+    }),
+    Plot.lineY(done, {
+      x: 'step',
+      y: 'load',
+      z: 'position',
+      stroke: THEME.ink,
+      strokeOpacity: 0.55,
+      strokeWidth: 1.25,
+      curve: 'step-after',
+      ariaDescription: 'stud loads',
+    }),
+  ];
+  if (ahead.length) {
+    marks.push(
+      Plot.lineY(ahead, {
+        x: 'step',
+        y: 'load',
+        z: 'position',
+        stroke: THEME.ink,
+        strokeOpacity: 0.15,
+        strokeWidth: 1,
+        curve: 'step-after',
+        ariaDescription: 'stud loads after the current step',
+      }),
+      Plot.dot(tightenedAhead, { x: 'step', y: 'load', r: 3, fill: THEME.muted, fillOpacity: 0.3, ariaDescription: 'later tightened studs' }),
+    );
+  }
+  marks.push(
+    Plot.dot(tightenedDone, {
+      x: 'step',
+      y: 'load',
+      r: 4.5,
+      fill: THEME.accent,
+      stroke: THEME.paper,
+      strokeWidth: 1,
+      title: 'title',
+      ariaDescription: 'tightened stud',
+    }),
+    Plot.text(endLabels, {
+      x: 'step',
+      y: 'load',
+      text: (d: StudLoadPoint) => String(d.position),
+      dx: 10,
+      textAnchor: 'start',
+      fill: THEME.muted,
+      fontSize: 11,
+      ariaDescription: 'stud numbers',
+    }),
+  );
+  if (currentStep !== undefined) {
+    marks.push(Plot.ruleX([currentStep], { stroke: THEME.accent, strokeWidth: 2, ariaDescription: 'current step' }));
+  }
+
+  const passCount = new Set(steps.map((s) => s.pass)).size;
+  const description =
+    steps.length === 0
+      ? 'No steps were recorded for this run.'
+      : `Loads of ${studCount} studs after each of ${steps.length} steps in ${passCount} ${passCount === 1 ? 'pass' : 'passes'}` +
+        `, against a target of ${chartForceText(targetLoadN, units)} ± ${percentText(bandPercent)}.` +
+        (boundaries.length ? ` Passes begin at steps ${[steps[0]!.order, ...boundaries.map((b) => Math.ceil(b.x))].join(', ')}.` : '') +
+        (currentStep !== undefined ? ` Replay at step ${currentStep}; later steps are dimmed.` : '') +
+        ' The dot marks the stud tightened in each step; a stud’s line falls when its neighbours are tightened.';
+
+  return {
+    title: 'Loads through the run',
+    description,
+    options: basePlotOptions({
+      height: 360,
+      marginTop: 40,
+      marginRight: 36,
+      x: { label: 'Step', domain: [0.5, lastStep + 0.5], tickFormat: 'd', labelArrow: 'none', labelAnchor: 'center' },
+      y: { label: `Stud load (${unit})`, grid: true, labelArrow: 'none', domain: [0, Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load))], nice: true },
+      marks,
+    }),
+    legend: {
+      kind: 'swatches',
+      items: [
+        { label: 'Stud tightened in this step', colour: THEME.accent, shape: 'dot' },
+        { label: 'Each stud’s load (number at the line’s end)', colour: THEME.ink, shape: 'line' },
+        { label: 'Target', colour: THEME.ink, shape: 'dashed-line' },
+        { label: `Band ± ${percentText(bandPercent)}`, colour: THEME.on, shape: 'band' },
+      ],
+    },
+    table: {
+      columns: ['Step', 'Pass', 'Stud tightened', ...Array.from({ length: studCount }, (_, i) => `Stud ${i + 1} (${unit})`)],
+      rows: steps.map((s) => [s.order, s.pass, s.position, ...s.loadsN.map((n) => numberText(toChartForce(n, units)))]),
+    },
+  };
+}
