@@ -11,6 +11,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/', label: 'Home', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/runs', label: 'Runs', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {
