@@ -190,7 +190,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
                     const noteErr = errors[`position-${p}-note`];
                     return (
                       <tr key={p} className="border-t border-rule align-top">
-                        <th scope="row" className="px-2 py-1 text-left font-medium">{p}</th>
+                        <th scope="row" className="px-2 py-2.5 text-left font-medium">{p}</th>
                         <td className="px-2 py-1">
                           <input name={`position-${p}-factor`} value={row.factor} onChange={(e) => setRow(i, { factor: e.target.value })} inputMode="decimal" aria-label={`Calibration factor, position ${p}`} aria-invalid={factorErr ? true : undefined} aria-describedby={`pos-${p}-msg`} className={`w-24 font-mono ${INPUT_CLASS}`} />
                         </td>
@@ -211,7 +211,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
 
       <Section title="Notes">
         <label className="flex flex-col gap-1 text-sm font-medium text-ink">
-          Notes <span className="font-normal text-muted">(optional)</span>
+          <span>Notes <span className="font-normal text-muted">(optional)</span></span>
           <textarea name="notes" value={v.notes} onChange={(e) => set('notes')(e.target.value)} rows={3} className={`max-w-2xl font-normal ${INPUT_CLASS}`} aria-describedby="joint-notes-msg" />
         </label>
         <FieldMessage id="joint-notes-msg" messages={errors.notes} />

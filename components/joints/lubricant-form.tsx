@@ -33,7 +33,7 @@ export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSumm
           />
         </div>
         <label className="flex flex-col gap-1 text-sm font-medium text-ink">
-          Notes <span className="font-normal text-muted">(optional: maker, where K comes from)</span>
+          <span>Notes <span className="font-normal text-muted">(optional: maker, where K comes from)</span></span>
           <textarea name="notes" value={notes} onChange={(e) => setNotes(e.target.value)} rows={3} aria-describedby="lubricant-notes-msg" className={`max-w-2xl font-normal ${INPUT_CLASS}`} />
         </label>
         <FieldMessage id="lubricant-notes-msg" messages={errors.notes} />

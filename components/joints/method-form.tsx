@@ -153,7 +153,7 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
 
       <Section title="Notes">
         <label className="flex flex-col gap-1 text-sm font-medium text-ink">
-          Where the method comes from <span className="font-normal text-muted">(optional)</span>
+          <span>Where the method comes from <span className="font-normal text-muted">(optional)</span></span>
           <textarea name="notes" value={notes} onChange={(e) => setNotes(e.target.value)} rows={3} aria-describedby="method-notes-msg" className={`max-w-2xl font-normal ${INPUT_CLASS}`} />
         </label>
         <FieldMessage id="method-notes-msg" messages={errors.notes} />

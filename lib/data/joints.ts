@@ -1,7 +1,7 @@
 import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { AppError } from '@/lib/errors';
-import { gradeIdOf, threadSpecOf, type JointInput } from '@/lib/joints/joint-input';
+import { gradeIdOf, gradeStoredName, threadSpecOf, type JointInput } from '@/lib/joints/joint-input';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
 import type { GradeId } from '@/lib/calc/grades';
@@ -171,7 +171,7 @@ const jointColumns = (input: JointInput) => ({
   threadSystem: input.thread.system,
   threadDiameter: input.thread.system === 'inch' ? input.thread.diameterIn : input.thread.diameterMm,
   threadPitch: input.thread.system === 'inch' ? input.thread.threadsPerInch : input.thread.pitchMm,
-  studGrade: input.studGrade,
+  studGrade: gradeStoredName(input.studGrade),
   nutGrade: input.nutGrade,
   washer: input.washer,
   gasketType: input.gasketType,

@@ -37,6 +37,11 @@ export function gradeIdOf(stored: string): GradeId | null {
   return GRADES.find((g) => g.id.toUpperCase() === normalised)?.id ?? null;
 }
 
+/** The stud grade as stored: the trade name the demo seed also uses ("A193-B7" → "ASTM A193 B7"). */
+export function gradeStoredName(grade: GradeId): string {
+  return `ASTM ${grade.replace(/-/g, ' ')}`;
+}
+
 /** The picker value for a thread: a STANDARD_THREADS id, or `custom`. */
 export function threadChoiceOf(spec: ThreadSpec): string {
   const std = STANDARD_THREADS.find((t) =>

@@ -64,6 +64,7 @@ describe('the joint library in Chromium', () => {
     await expect.poll(() => row.count()).toBe(1);
     expect(await row.textContent()).toContain('52.8\u00a0kN');
     expect(await row.textContent()).toContain('5/8-11 UNC');
+    expect(await row.textContent()).toContain('ASTM A193 B7');
     await page.screenshot({ path: screenshotPath('joints-library'), fullPage: true });
     await context.close();
   });
@@ -81,6 +82,22 @@ describe('the joint library in Chromium', () => {
     await order8.fill('1 5 3 7 2 6 4 4');
     await page.getByText('Pass order misses position 8; repeats position 4.').waitFor();
     await page.screenshot({ path: screenshotPath('joints-method-duplicate'), fullPage: true });
+    await context.close();
+  });
+
+  it('shows a joint with runs with its stud count fixed and the new-runs-only note', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.admin);
+    await page.goto(`${server.baseUrl}/joints`);
+    await page.getByRole('link', { name: /^Training flange A/ }).click();
+    await page.waitForURL(/\/joints\/\d+$/);
+    expect(await page.getByLabel('Number of studs').getAttribute('readonly')).not.toBeNull();
+    await page.getByText(/A new target applies to new runs only/).waitFor();
+    expect(await page.getByLabel('Stud grade').inputValue()).toBe('A193-B7');
+    await page.screenshot({ path: screenshotPath('joints-edit-with-runs'), fullPage: true });
+    await page.goto(`${server.baseUrl}/joints/999999`);
+    await page.getByRole('heading', { name: 'There is no such joint' }).waitFor();
     await context.close();
   });
 });

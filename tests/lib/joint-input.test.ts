@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { in2ToMm2, ksiToMpa, lbfToN } from '@/lib/calc/units';
-import { gradeIdOf, jointTarget, parseJointForm, positionPoint, threadChoiceOf, threadSeriesNote } from '@/lib/joints/joint-input';
+import { gradeIdOf, gradeStoredName, jointTarget, parseJointForm, positionPoint, threadChoiceOf, threadSeriesNote } from '@/lib/joints/joint-input';
 
 const rel = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected);
 
@@ -128,5 +128,14 @@ describe('parseJointForm', () => {
     const r = parseJointForm(jointForm({ threadChoice: 'custom', threadSystem: 'metric', threadDiameter: '200', threadPitch: '3' }));
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors.threadDiameter?.[0]).toMatch(/between 6 mm and 100 mm/);
+  });
+});
+
+describe('gradeStoredName', () => {
+  it('stores grades as the trade names the demo seed uses, and reads them back', () => {
+    expect(gradeStoredName('A193-B7')).toBe('ASTM A193 B7');
+    for (const id of ['A193-B7', 'A193M-B7', 'A193-B7M', 'A193-B16', 'A193-B8-CL1', 'A193-B8-CL2'] as const) {
+      expect(gradeIdOf(gradeStoredName(id))).toBe(id);
+    }
   });
 });

@@ -86,7 +86,7 @@ export default async function JointLibraryPage({ searchParams }: { searchParams:
                   <tr key={m.id} className="border-t border-rule">
                     <td className="px-3 py-2"><Link className={linkClass} href={`/joints/methods/${m.id}`}>{m.name}</Link></td>
                     <td className="px-3 py-2">{TOOL_LABELS[m.toolKind]}</td>
-                    <td className="px-3 py-2">{m.passes.map((p) => `${formatNumber(p.percentOfTarget, 3)} % ${p.pattern}`).join(' → ')}</td>
+                    <td className="px-3 py-2">{m.passes.map((p) => `${p.percentOfTarget}\u00a0% ${p.pattern}`).join(' → ')}</td>
                     <td className="px-3 py-2 text-right">{m.checkPasses}</td>
                     <td className="px-3 py-2">{[...new Set(m.passes.flatMap((p) => Object.keys(p.orderByStudCount)))].join(', ')}</td>
                     <td className="px-3 py-2 text-right">{m.runCount}</td>
