@@ -12,6 +12,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/runs', label: 'Runs', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/compare', label: 'Compare', roles: ['instructor', 'researcher'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -1,0 +1,11 @@
+import Link from 'next/link';
+
+export default function JointNotFound() {
+  return (
+    <div className="rounded-card border border-rule bg-panel p-6">
+      <h1 className="text-xl font-semibold">There is no such joint</h1>
+      <p className="mt-2 text-muted">It may have been removed, or the address is mistyped. Choose one from the joint library.</p>
+      <Link href="/joints" className="mt-4 inline-block rounded-md bg-accent px-4 py-2 text-accent-ink">Open the joint library</Link>
+    </div>
+  );
+}

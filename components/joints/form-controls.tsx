@@ -1,0 +1,132 @@
+'use client';
+
+import { useId, type ReactNode } from 'react';
+
+/** Classes shared by the library's inputs (theme tokens only). */
+export const INPUT_CLASS =
+  'rounded border border-rule bg-paper px-2 py-1.5 text-ink aria-[invalid=true]:border-danger focus-visible:border-accent';
+
+/** The message region beside a field: always present so screen readers hear new messages. */
+export function FieldMessage({ id, messages }: { id: string; messages?: readonly string[] | string | null }) {
+  const list = typeof messages === 'string' ? [messages] : (messages ?? []);
+  return (
+    <p id={id} aria-live="polite" className="text-sm text-danger">
+      {list.join(' ')}
+    </p>
+  );
+}
+
+export interface TextFieldProps {
+  label: string;
+  name: string;
+  value: string;
+  onChange: (value: string) => void;
+  errors?: readonly string[];
+  unit?: string;
+  hint?: ReactNode;
+  optional?: boolean;
+  readOnly?: boolean;
+  width?: string;
+  list?: string;
+  inputMode?: 'decimal' | 'numeric' | 'text';
+}
+
+/** A labelled text input with its unit, hint and message region beside it. */
+export function TextField({ label, name, value, onChange, errors, unit, hint, optional, readOnly, width = 'w-56', list, inputMode = 'text' }: TextFieldProps) {
+  const id = useId();
+  const invalid = Boolean(errors?.length);
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-sm font-medium text-ink">
+        {label}
+        {optional ? <span className="font-normal text-muted"> (optional)</span> : null}
+      </label>
+      <div className="flex items-center gap-2">
+        <input
+          id={id}
+          name={name}
+          value={value}
+          onChange={(e) => onChange(e.target.value)}
+          readOnly={readOnly}
+          list={list}
+          inputMode={inputMode}
+          autoComplete="off"
+          aria-invalid={invalid || undefined}
+          aria-describedby={`${id}-msg${hint ? ` ${id}-hint` : ''}`}
+          className={`${width} ${inputMode !== 'text' ? 'num font-mono' : ''} ${INPUT_CLASS} read-only:bg-rule/30`}
+        />
+        {unit ? <span className="text-sm text-muted">{unit}</span> : null}
+      </div>
+      {hint ? (
+        <p id={`${id}-hint`} className="text-xs text-muted">
+          {hint}
+        </p>
+      ) : null}
+      <FieldMessage id={`${id}-msg`} messages={errors} />
+    </div>
+  );
+}
+
+/** A labelled select with a message region. */
+export function SelectField({
+  label,
+  name,
+  value,
+  onChange,
+  errors,
+  children,
+  hint,
+}: {
+  label: string;
+  name: string;
+  value: string;
+  onChange: (value: string) => void;
+  errors?: readonly string[];
+  children: ReactNode;
+  hint?: ReactNode;
+}) {
+  const id = useId();
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-sm font-medium text-ink">
+        {label}
+      </label>
+      <select
+        id={id}
+        name={name}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        aria-invalid={errors?.length ? true : undefined}
+        aria-describedby={`${id}-msg`}
+        className={`max-w-md ${INPUT_CLASS}`}
+      >
+        {children}
+      </select>
+      {hint ? <p className="text-xs text-muted">{hint}</p> : null}
+      <FieldMessage id={`${id}-msg`} messages={errors} />
+    </div>
+  );
+}
+
+/** The form-level message: what happened, in a live region at the top of the form. */
+export function FormMessage({ status, message }: { status: 'idle' | 'error' | 'saved'; message: string | null }) {
+  return (
+    <div aria-live="polite" role="status">
+      {message && status !== 'idle' ? (
+        <p className={`rounded-md border bg-panel p-3 text-sm ${status === 'error' ? 'border-danger text-danger' : 'border-good text-good'}`}>{message}</p>
+      ) : null}
+    </div>
+  );
+}
+
+export function Section({ title, children, aside }: { title: string; children: ReactNode; aside?: ReactNode }) {
+  return (
+    <section className="rounded-card border border-rule bg-panel p-4">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 className="font-semibold text-ink">{title}</h2>
+        {aside}
+      </div>
+      <div className="mt-3 flex flex-col gap-4">{children}</div>
+    </section>
+  );
+}

@@ -1,0 +1,48 @@
+'use client';
+
+import Link from 'next/link';
+import { useActionState, useState } from 'react';
+import { INITIAL_FORM_STATE, type LibraryFormState } from '@/lib/joints/form-state';
+import type { LubricantSummary } from '@/lib/data/joints';
+import { FieldMessage, FormMessage, INPUT_CLASS, Section, TextField } from './form-controls';
+
+type Action = (state: LibraryFormState, formData: FormData) => Promise<LibraryFormState>;
+
+/** The lubricant form: name, nominal nut factor K (0.05–0.60) and notes. */
+export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSummary; action: Action }) {
+  const [state, formAction, pending] = useActionState(action, INITIAL_FORM_STATE);
+  const [name, setName] = useState(lubricant?.name ?? '');
+  const [k, setK] = useState(lubricant ? String(lubricant.nominalNutFactor) : '');
+  const [notes, setNotes] = useState(lubricant?.notes ?? '');
+  const errors = state.errors;
+  return (
+    <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={lubricant ? `Edit lubricant ${lubricant.name}` : 'New lubricant'}>
+      <FormMessage status={state.status} message={state.message} />
+      <Section title="Lubricant">
+        <div className="flex flex-wrap gap-4">
+          <TextField label="Lubricant name" name="name" value={name} onChange={setName} errors={errors.name} width="w-80" />
+          <TextField
+            label="Nominal nut factor (K)"
+            name="nominalNutFactor"
+            value={k}
+            onChange={setK}
+            errors={errors.nominalNutFactor}
+            width="w-24"
+            inputMode="decimal"
+            hint="0.05 to 0.60. Measured mean K across lubricants spans 0.086–0.52 [HBJ]; 0.20 when the condition is unknown [SHIG]."
+          />
+        </div>
+        <label className="flex flex-col gap-1 text-sm font-medium text-ink">
+          <span>Notes <span className="font-normal text-muted">(optional: maker, where K comes from)</span></span>
+          <textarea name="notes" value={notes} onChange={(e) => setNotes(e.target.value)} rows={3} aria-describedby="lubricant-notes-msg" className={`max-w-2xl font-normal ${INPUT_CLASS}`} />
+        </label>
+        <FieldMessage id="lubricant-notes-msg" messages={errors.notes} />
+        <p className="text-xs text-muted">K is an empirical lumped factor, not a friction coefficient [ZIP]; a lower K than assumed over-loads the studs.</p>
+      </Section>
+      <div className="flex items-center gap-3">
+        <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink disabled:opacity-60">{pending ? 'Saving…' : 'Save lubricant'}</button>
+        <Link href="/joints#lubricants" className="text-sm underline decoration-rule underline-offset-4">Back to the library</Link>
+      </div>
+    </form>
+  );
+}
