@@ -8,6 +8,9 @@ import { basePlotOptions } from './plot-theme';
 /** Two-sided 95 % normal multiplier (z at 0.975 = 1.959964…, NIST/SEMATECH e-Handbook §1.3.6.7.1). */
 export const Z_95 = 1.96;
 
+/** Half-width of the error-bar caps, in distance units. */
+const CAP = 0.08;
+
 export interface ReachRow extends ReachEstimate {
   low: number;
   high: number;
@@ -36,13 +39,20 @@ export function reachChart(reach: readonly ReachEstimate[]): ChartSpec {
     description,
     options: basePlotOptions({
       marginLeft: 72,
-      x: { label: 'Distance k (positions apart)', domain: rows.map((r) => r.distance), type: 'point', padding: 0.5, labelArrow: 'none', labelAnchor: 'center' },
+      x: {
+        label: 'Distance k (positions apart)',
+        domain: [0.5, Math.max(1, ...rows.map((r) => r.distance)) + 0.5],
+        ticks: rows.map((r) => r.distance),
+        tickFormat: 'd',
+        labelArrow: 'none',
+        labelAnchor: 'center',
+      },
       y: { label: 'Change per unit load added at distance k (N/N)', grid: true, nice: true, labelArrow: 'none' },
       marks: [
         Plot.ruleY([0], { stroke: THEME.ink, strokeWidth: 1.25, ariaDescription: 'zero' }),
         Plot.ruleX(rows, { x: 'distance', y1: 'low', y2: 'high', stroke: THEME.ink, strokeWidth: 1.5, ariaDescription: 'error bars' }),
-        Plot.tickY(rows, { x: 'distance', y: 'low', stroke: THEME.ink, strokeWidth: 1.5, inset: -6, ariaDescription: 'error bar low caps' }),
-        Plot.tickY(rows, { x: 'distance', y: 'high', stroke: THEME.ink, strokeWidth: 1.5, inset: -6, ariaDescription: 'error bar high caps' }),
+        Plot.ruleY(rows, { x1: (r: ReachRow) => r.distance - CAP, x2: (r: ReachRow) => r.distance + CAP, y: 'low', stroke: THEME.ink, strokeWidth: 1.5, ariaDescription: 'error bar low caps' }),
+        Plot.ruleY(rows, { x1: (r: ReachRow) => r.distance - CAP, x2: (r: ReachRow) => r.distance + CAP, y: 'high', stroke: THEME.ink, strokeWidth: 1.5, ariaDescription: 'error bar high caps' }),
         Plot.dot(rows, {
           x: 'distance',
           y: 'coefficient',
