@@ -22,9 +22,7 @@ if ! command -v chromium >/dev/null 2>&1; then
 fi
 
 if [ "${EVENLOAD_SKIP_BUILD:-0}" != "1" ]; then
-  evenload_log "type-checking"
-  npx tsc --noEmit -p .
-  evenload_log "building the app for the end-to-end tests"
+  evenload_log "building the app for the end-to-end tests (next build also type-checks the whole project)"
   npx next build >&2
 fi
 

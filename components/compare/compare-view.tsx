@@ -52,9 +52,9 @@ export function CompareView({ options }: { options: RunFilterOptions }) {
     <div className="space-y-5">
       <form className="space-y-3 rounded-card border border-rule bg-panel p-4" onSubmit={(e) => e.preventDefault()} aria-label="What to compare">
         <div className="flex flex-wrap items-end gap-4">
-          <label className="text-sm">
+          <label className="text-sm" htmlFor="compare-by">
             <span className="block text-muted">Compare</span>
-            <select value={by} onChange={(e) => update({ by: e.target.value, ids: null })} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
+            <select id="compare-by" value={by} onChange={(e) => update({ by: e.target.value, ids: null })} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
               {BY_CHOICES.map((c) => <option key={c.key} value={c.key}>{c.label}</option>)}
             </select>
           </label>

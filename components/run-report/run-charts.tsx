@@ -1,7 +1,6 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { DeviationLegend } from '@/components/charts/deviation-legend';
 import { FlangeView } from '@/components/charts/flange-view';
 import { PlotFigure } from '@/components/charts/plot-figure';
 import { driftChart, finalLoadsChart, loadsThroughTimeChart, passSummaryChart, reachChart } from '@/lib/charts';
@@ -30,7 +29,6 @@ export function RunCharts({ analysis, units }: { analysis: RunAnalysis; units: '
               activePosition={step === lastStep ? undefined : current?.position}
               label={`Flange view, ${step === lastStep ? 'final loads' : `after step ${step} of ${lastStep}`}`} />
           </div>
-          <DeviationLegend bandPercent={analysis.bandPercent} className="mt-3" />
         </div>
         <PlotFigure {...finalSpec} className="rounded-card border border-rule bg-panel p-4" />
       </section>
@@ -38,15 +36,15 @@ export function RunCharts({ analysis, units }: { analysis: RunAnalysis; units: '
       <section aria-labelledby="replay-heading" className="rounded-card border border-rule bg-panel p-4">
         <h2 id="replay-heading" className="text-lg font-semibold">The run through time</h2>
         <div className="no-print mt-2 flex flex-wrap items-center gap-3">
-          <button type="button" onClick={() => setStep(1)} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="First step">⏮</button>
-          <button type="button" onClick={() => setStep((s) => Math.max(1, s - 1))} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Previous step">◀</button>
+          <button type="button" onClick={() => setStep(1)} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="First step">First</button>
+          <button type="button" onClick={() => setStep((s) => Math.max(1, s - 1))} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Previous step">Back</button>
           <label className="flex flex-1 items-center gap-2 text-sm">
             <span className="text-muted">Replay</span>
             <input type="range" min={1} max={lastStep} value={step} onChange={(e) => setStep(Number(e.target.value))} className="min-w-40 flex-1 accent-[var(--el-accent)]"
               aria-valuetext={current ? `Step ${step} of ${lastStep}: stud ${current.position} in pass ${current.pass}` : undefined} />
           </label>
-          <button type="button" onClick={() => setStep((s) => Math.min(lastStep, s + 1))} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Next step">▶</button>
-          <button type="button" onClick={() => setStep(lastStep)} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Last step">⏭</button>
+          <button type="button" onClick={() => setStep((s) => Math.min(lastStep, s + 1))} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Next step">Next</button>
+          <button type="button" onClick={() => setStep(lastStep)} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Last step">Last</button>
         </div>
         <p aria-live="polite" className="num mt-1 text-sm">
           {current ? `Step ${step} of ${lastStep}: stud ${current.position} tightened in pass ${current.pass}; it now carries ${formatForce(current.loadsN[current.position - 1] ?? 0, units)}.` : null}

@@ -107,7 +107,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
         <div className="overflow-x-auto">
           <table className="mt-2 w-full text-sm">
             <thead className="text-left text-muted">
-              <tr><th className="py-1">Position</th><th className="text-right">Final load</th><th className="text-right">% of target</th><th className="text-right">Drift since last tightened</th><th>Band</th></tr>
+              <tr><th className="py-1">Position</th><th className="px-3 text-right">Final load</th><th className="px-3 text-right">% of target</th><th className="px-3 text-right">Drift since last tightened</th><th className="px-3">Band</th></tr>
             </thead>
             <tbody className="num">
               {analysis.finalLoadsN.map((load, index) => {
@@ -117,10 +117,10 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
                 return (
                   <tr key={index} className="border-t border-rule">
                     <td className="py-1.5">Stud {index + 1}</td>
-                    <td className="text-right">{force(load)}</td>
-                    <td className="text-right">{pct(percent)}</td>
-                    <td className="text-right">{drift ? pct(drift.driftPercent) : '—'}</td>
-                    <td className={inBand ? 'pl-4 text-good' : 'pl-4 text-danger'}>{inBand ? 'inside' : percent < 100 ? 'below the band' : 'above the band'}</td>
+                    <td className="px-3 text-right">{force(load)}</td>
+                    <td className="px-3 text-right">{pct(percent)}</td>
+                    <td className="px-3 text-right">{drift ? pct(drift.driftPercent) : '—'}</td>
+                    <td className={inBand ? 'px-3 text-good' : 'px-3 text-danger'}>{inBand ? 'inside' : percent < 100 ? 'below the band' : 'above the band'}</td>
                   </tr>
                 );
               })}

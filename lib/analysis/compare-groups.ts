@@ -119,8 +119,8 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
   const usable = inputs.map((input, index) => ({ input, index, loads: chartGroups[index]!.finalLoadsPercent, cvs: chartGroups[index]!.runCvs }));
   const withLoads = usable.filter((u) => u.loads.length >= 2);
   const withCvs = usable.filter((u) => u.cvs.length >= 2);
-  const reading = (result: Parameters<typeof readStatisticalResult>[0], labels?: string[]) =>
-    readStatisticalResult(result, { subject: options.subject, alpha: options.alpha ?? 0.05, groupLabels: labels });
+  const reading = (result: Parameters<typeof readStatisticalResult>[0], measure?: string) =>
+    readStatisticalResult(result, { subject: options.subject, alpha: options.alpha ?? 0.05, measure });
 
   const attempt = (name: string, run: () => void) => {
     try {
@@ -155,11 +155,11 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
     const cvQuestion = 'Is the run CV different on average?';
     attempt('The one-way ANOVA', () => {
       const r = oneWayAnova(groupsOfCvs);
-      tests.push({ question: cvQuestion, name: 'One-way ANOVA of run CVs', statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, reading: reading(r) });
+      tests.push({ question: cvQuestion, name: 'One-way ANOVA of run CVs', statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, reading: reading(r, 'mean run CV') });
     });
     attempt("Welch's ANOVA", () => {
       const r = welchAnova(groupsOfCvs);
-      tests.push({ question: cvQuestion, name: "Welch's ANOVA of run CVs", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin.toFixed(1)}`, reading: reading(r) });
+      tests.push({ question: cvQuestion, name: "Welch's ANOVA of run CVs", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin.toFixed(1)}`, reading: reading(r, 'mean run CV') });
     });
     attempt('The Tukey–Kramer pairs', () => {
       const r = tukeyHsd(groupsOfCvs, { confidence: 0.95 });

@@ -30,8 +30,11 @@ export interface ReadingOptions {
   subject?: string;
   /** Group names for Tukey pairs, in input order; default 'group 1', 'group 2', … */
   groupLabels?: readonly string[];
+  /** What the means are of, for the tests of means, default 'mean load' (for example 'mean run CV'). */
+  measure?: string;
 }
 
+const capitalise = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
 const formatP = (p: number): string => {
   if (p < 0.001) return 'p < 0.001';
   return `p = ${Number(p.toPrecision(2))}`;
@@ -72,21 +75,21 @@ export function readStatisticalResult(result: ReadableResult, options: ReadingOp
     case 'oneWayAnova':
       return verdict(
         result.pValue,
-        'mean load',
+        options.measure ?? 'mean load',
         subject,
         `one-way ANOVA F(${result.dfBetween}, ${result.dfWithin}) = ${formatStat(result.statistic)}, ${formatP(result.pValue)}`,
       );
     case 'welchAnova':
       return verdict(
         result.pValue,
-        'mean load',
+        options.measure ?? 'mean load',
         subject,
         `Welch's ANOVA F(${formatDf(result.dfBetween)}, ${formatDf(result.dfWithin)}) = ${formatStat(result.statistic)}, ${formatP(result.pValue)}`,
       );
     case 'welchTTest':
       return verdict(
         result.pValue,
-        'mean load',
+        options.measure ?? 'mean load',
         options.subject ?? 'the two groups',
         `Welch t(${formatDf(result.df)}) = ${formatStat(result.statistic)}, ${formatP(result.pValue)}`,
       );
@@ -116,7 +119,7 @@ export function readStatisticalResult(result: ReadableResult, options: ReadingOp
         return `No pair of ${subject} differs in mean load at ${level} (Tukey HSD, smallest ${formatP(smallest)}).`;
       }
       const pairs = significant.map((c) => `${label(c.groupA)} vs ${label(c.groupB)} (${formatP(c.pValue)})`).join(', ');
-      return `Mean load differs at ${level} for ${significant.length} of ${total} pair${total === 1 ? '' : 's'} of ${subject} (Tukey HSD): ${pairs}.`;
+      return `${capitalise(options.measure ?? 'mean load')} differs at ${level} for ${significant.length} of ${total} pair${total === 1 ? '' : 's'} of ${subject} (Tukey HSD): ${pairs}.`;
     }
     case 'cvConfidenceInterval':
       return `The CV is ${formatPercent(result.cv)} (${Number((result.confidence * 100).toPrecision(3))} % confidence interval ${formatPercent(result.lower)} to ${formatPercent(result.upper)}, Vangel's modified McKay method, n = ${result.n}).`;

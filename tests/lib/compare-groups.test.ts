@@ -30,6 +30,7 @@ describe('compareGroups', () => {
       expect(test.pValue).toBeLessThan(0.05);
       expect(test.reading).toMatch(/5 % level/);
     }
+    expect(result.tests.find((t) => t.name === 'One-way ANOVA of run CVs')!.reading).toMatch(/^Mean run CV differs between these methods/);
     expect(result.pairs).toHaveLength(1);
     expect(result.groups[0]!.meanRunCv!).toBeLessThan(result.groups[1]!.meanRunCv!);
   });
