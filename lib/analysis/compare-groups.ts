@@ -8,7 +8,8 @@ import { readStatisticalResult } from '../stats/read-statistical-result';
 import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
 import { tukeyHsd } from '../stats/tukey-hsd';
 import { welchAnova } from '../stats/welch-anova';
-import type { ComparisonGroupData } from './types';
+import { boxStats } from '../charts/box-stats';
+import type { BoxSummary, ComparisonGroupData } from './types';
 
 /** One run as a comparison sees it: its stored per-run profile. */
 export interface ComparedRun {
@@ -67,6 +68,22 @@ export interface ComparisonResult {
   warnings: string[];
 }
 
+/** Dots drawn per group at most; larger groups are drawn from an even sample, with the box from all values. */
+export const MAX_DOTS_PER_GROUP = 400;
+
+/** An even, deterministic sample (every k-th value) of at most `max` values. */
+export function evenSample(values: readonly number[], max: number): number[] {
+  if (values.length <= max) return values.slice();
+  const step = values.length / max;
+  return Array.from({ length: max }, (_, i) => values[Math.floor(i * step)]!);
+}
+
+function boxOf(values: readonly number[]): BoxSummary | undefined {
+  const box = boxStats(values);
+  if (!box) return undefined;
+  return { ...box, outliers: evenSample(box.outliers, MAX_DOTS_PER_GROUP) };
+}
+
 /** Fewer runs than this in a group make the tests say little (common practice: a handful per group at least). */
 export const SMALL_GROUP_RUNS = 5;
 
@@ -92,6 +109,8 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
   const warnings: string[] = [];
   const groups: GroupSummary[] = [];
   const chartGroups: ComparisonGroupData[] = [];
+  const allLoads: number[][] = [];
+  const allCvs: number[][] = [];
   inputs.forEach((input, index) => {
     const loadsPercent = input.runs.flatMap((run) => run.finalLoadsN.map((load) => (load / run.targetLoadN) * 100));
     const cvs = input.runs.map(runCv).filter((cv): cv is number => cv !== null);
@@ -108,7 +127,18 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       const values = input.runs.map((r) => r.driftPercent[p]).filter((v): v is number => typeof v === 'number');
       return values.length ? mean(values) : 0;
     });
-    chartGroups.push({ key: input.key, label: input.label, colourIndex: index % 8, finalLoadsPercent: loadsPercent, runCvs: cvs, meanDriftByPosition });
+    const large = loadsPercent.length > MAX_DOTS_PER_GROUP || cvs.length > MAX_DOTS_PER_GROUP;
+    chartGroups.push({
+      key: input.key,
+      label: input.label,
+      colourIndex: index % 8,
+      finalLoadsPercent: evenSample(loadsPercent, MAX_DOTS_PER_GROUP),
+      runCvs: evenSample(cvs, MAX_DOTS_PER_GROUP),
+      ...(large ? { finalLoadsBox: boxOf(loadsPercent), runCvBox: boxOf(cvs.map((cv) => cv * 100)) } : {}),
+      meanDriftByPosition,
+    });
+    allLoads.push(loadsPercent);
+    allCvs.push(cvs);
     if (input.runs.length < SMALL_GROUP_RUNS) {
       warnings.push(`${input.label} has only ${input.runs.length} run${input.runs.length === 1 ? '' : 's'}: with fewer than ${SMALL_GROUP_RUNS}, the tests below say little about it.`);
     }
@@ -116,7 +146,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
 
   const tests: ComparisonTest[] = [];
   let pairs: PairComparison[] = [];
-  const usable = inputs.map((input, index) => ({ input, index, loads: chartGroups[index]!.finalLoadsPercent, cvs: chartGroups[index]!.runCvs }));
+  const usable = inputs.map((input, index) => ({ input, index, loads: allLoads[index]!, cvs: allCvs[index]! }));
   const withLoads = usable.filter((u) => u.loads.length >= 2);
   const withCvs = usable.filter((u) => u.cvs.length >= 2);
   const reading = (result: Parameters<typeof readStatisticalResult>[0], measure?: string) =>

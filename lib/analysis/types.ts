@@ -69,16 +69,32 @@ export interface RunAnalysis {
   figures: RunFigures;
 }
 
+/** A box-and-whisker summary (R-7 quartiles, whiskers at 1.5 IQR; see lib/charts/box-stats.ts). */
+export interface BoxSummary {
+  n: number;
+  q1: number;
+  median: number;
+  q3: number;
+  iqr: number;
+  lowerWhisker: number;
+  upperWhisker: number;
+  outliers: number[];
+}
+
 /** One group of a comparison (a method, lubricant, cohort, trainee or a hand-picked set). */
 export interface ComparisonGroupData {
   key: string;
   label: string;
   /** A stable colour slot (0..7) so a group keeps its colour across the charts of one comparison. */
   colourIndex: number;
-  /** Every final stud load of every run in the group, as % of that run's target. */
+  /** Final stud loads as % of each run's target: all of them, or an even sample for large groups. */
   finalLoadsPercent: number[];
-  /** One CV (fraction) per run. */
+  /** One CV (fraction) per run: all of them, or an even sample for large groups. */
   runCvs: number[];
+  /** Box of all final loads (% of target) when `finalLoadsPercent` is a sample. */
+  finalLoadsBox?: BoxSummary;
+  /** Box of all run CVs, in %, when `runCvs` is a sample. */
+  runCvBox?: BoxSummary;
   /** Mean drift (%) by position for runs with that stud count (index 0 = position 1). */
   meanDriftByPosition: number[];
 }

@@ -20,7 +20,7 @@ export function compareFinalLoadsChart(
   groups: readonly ComparisonGroupData[],
   { bandPercent }: CompareFinalLoadsOptions,
 ): ChartSpec {
-  const dist = groups.map((g) => ({ key: g.key, label: g.label, colourIndex: g.colourIndex, values: g.finalLoadsPercent }));
+  const dist = groups.map((g) => ({ key: g.key, label: g.label, colourIndex: g.colourIndex, values: g.finalLoadsPercent, box: g.finalLoadsBox }));
   const { marks, boxes } = distributionMarks(dist);
   const bandLines = [
     { y: 100 - bandPercent, label: percentText(100 - bandPercent) },

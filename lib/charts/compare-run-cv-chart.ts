@@ -10,7 +10,7 @@ import { basePlotOptions } from './plot-theme';
  * (R-7 quartiles, whiskers at 1.5 IQR). CV in % (the input is a fraction).
  */
 export function compareRunCvChart(groups: readonly ComparisonGroupData[]): ChartSpec {
-  const dist = groups.map((g) => ({ key: g.key, label: g.label, colourIndex: g.colourIndex, values: g.runCvs.map((cv) => cv * 100) }));
+  const dist = groups.map((g) => ({ key: g.key, label: g.label, colourIndex: g.colourIndex, values: g.runCvs.map((cv) => cv * 100), box: g.runCvBox }));
   const { marks, boxes } = distributionMarks(dist);
   const description =
     boxes.length === 0

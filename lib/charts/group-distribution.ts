@@ -9,7 +9,10 @@ export interface DistributionGroup {
   key: string;
   label: string;
   colourIndex: number;
+  /** The dots to draw (may be a sample of the group when it is large). */
   values: readonly number[];
+  /** The box of the whole group, when `values` is only a sample of it. */
+  box?: BoxStats;
 }
 
 export interface DistributionDot {
@@ -50,7 +53,7 @@ export function distributionMarks(groups: readonly DistributionGroup[]) {
       })),
   );
   const boxes: DistributionBox[] = groups.flatMap((g, column) => {
-    const stats = boxStats(g.values.filter((v) => Number.isFinite(v)));
+    const stats = g.box ?? boxStats(g.values.filter((v) => Number.isFinite(v)));
     return stats ? [{ ...stats, key: g.key, label: g.label, column, colour: groupColour(g.colourIndex) }] : [];
   });
   const left = (b: DistributionBox) => b.column - BOX_HALF_WIDTH;

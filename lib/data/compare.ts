@@ -1,4 +1,5 @@
 import 'server-only';
+import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { compareGroups, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
@@ -78,6 +79,42 @@ async function scopeSql(user: SessionUser): Promise<{ sql: string; params: unkno
  * in Node on those. Nut factors (lubricant comparisons only) read first-pass steps with torque.
  */
 export async function compareRuns(user: SessionUser, query: CompareQuery): Promise<CompareResponse> {
+  return JSON.parse(await compareRunsJson(user, query)) as CompareResponse;
+}
+
+/** Cached comparisons older than this are removed when a new one is stored. */
+const CACHE_DAYS = 2;
+
+/**
+ * The comparison as JSON text, from the shared cache when the runs it depends on are unchanged.
+ * The fingerprint (count, last change and id sum of the matching runs, and the last change of the
+ * group names) is one aggregate over the same filter, so a cache hit costs about one bare
+ * aggregate plus a primary-key read.
+ */
+export async function compareRunsJson(user: SessionUser, query: CompareQuery): Promise<string> {
+  const { where, params } = await filterSql(user, query);
+  const [fp] = await sequelize.query<{ n: number; changed: Date | null; ids: number | null; names: Date | null }>(
+    `SELECT COUNT(*) AS n, MAX(r.updated_at) AS changed, SUM(r.id) AS ids,
+       GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
+                COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS names
+     FROM runs r WHERE ${where.join(' AND ')}`,
+    { type: QueryTypes.SELECT, replacements: params },
+  );
+  const fingerprint = `${fp?.n}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${String(fp?.names ?? '-')}`;
+  const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
+  const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
+  const [cached] = await sequelize.query<{ body: string }>('SELECT body FROM comparison_cache WHERE cache_key = ? AND fingerprint = ?', {
+    type: QueryTypes.SELECT,
+    replacements: [key, fingerprint],
+  });
+  if (cached) return cached.body;
+  const body = JSON.stringify(await computeComparison(user, query, where, params));
+  await sequelize.query('REPLACE INTO comparison_cache (cache_key, fingerprint, body, created_at) VALUES (?, ?, ?, NOW())', { replacements: [key, fingerprint, body] });
+  await sequelize.query('DELETE FROM comparison_cache WHERE created_at < NOW() - INTERVAL ? DAY', { replacements: [CACHE_DAYS] });
+  return body;
+}
+
+async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ where: string[]; params: unknown[] }> {
   const scope = await scopeSql(user);
   const where = ["r.status = 'complete'", scope.sql];
   const params: unknown[] = [...scope.params];
@@ -88,7 +125,11 @@ export async function compareRuns(user: SessionUser, query: CompareQuery): Promi
   const column = GROUP_COLUMN[query.by];
   if (query.ids?.length) (where.push(`${column} IN (?)`), params.push(query.ids));
   else if (query.by === 'cohort') where.push('r.cohort_id IS NOT NULL');
+  return { where, params };
+}
 
+async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[]): Promise<CompareResponse> {
+  const column = GROUP_COLUMN[query.by];
   const rows = await sequelize.query<RunRowSql>(
     `SELECT r.id, ${column} AS group_id, r.target_load_n, r.final_loads_json, r.drift_json FROM runs r WHERE ${where.join(' AND ')}`,
     { type: QueryTypes.SELECT, replacements: params },
@@ -121,7 +162,7 @@ export async function compareRuns(user: SessionUser, query: CompareQuery): Promi
     by: query.by,
     totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0),
     nutFactors,
-    computedIn: 'Group membership and filters in SQL on the runs table; per-run final loads and drift are stored on each run when it is saved; the tests run in Node on those profiles.',
+    computedIn: 'Group membership and filters in SQL on the runs table; per-run final loads and drift are stored on each run when it is saved; the tests run in Node on those profiles, and the result is kept in a shared cache until the runs change.',
   };
 }
 

@@ -114,6 +114,11 @@ async function benchCompare(baseUrl: string) {
   const api: number[] = [];
   const sql: number[] = [];
   let totalRuns = 0;
+  // Cold: nothing cached, so the comparison is computed (statistics on every stored run profile).
+  await sequelize.query('DELETE FROM comparison_cache');
+  const coldStarted = performance.now();
+  await (await researcher.get(url)).json();
+  const coldMs = performance.now() - coldStarted;
   for (let i = 0; i < 12; i += 1) {
     let t = performance.now();
     const response = await researcher.get(url);
@@ -126,8 +131,8 @@ async function benchCompare(baseUrl: string) {
   }
   const apiMs = median(api.slice(2));
   const sqlMs = median(sql.slice(2));
-  results.compare = { runs: totalRuns, groups: methods.length, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, target: '<= 2' };
-  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median)`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 2x)`]);
+  results.compare = { runs: totalRuns, groups: methods.length, coldMs, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, coldRatio: coldMs / sqlMs, target: '<= 2 (repeat, from the shared cache)' };
+  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median, repeat); first ${coldMs.toFixed(0)} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 2x); first ${(coldMs / sqlMs).toFixed(1)}x`]);
 }
 
 async function cannon(url: string, cookie: string, connections: number, seconds: number) {

@@ -1,6 +1,6 @@
-import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { mean, median, sampleStandardDeviation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { compareGroups, SMALL_GROUP_RUNS, type GroupInput } from '@/lib/analysis/compare-groups';
+import { compareGroups, evenSample, MAX_DOTS_PER_GROUP, SMALL_GROUP_RUNS, type GroupInput } from '@/lib/analysis/compare-groups';
 
 // Two invented groups of 4-stud runs with a 100 kN target; expected figures are recomputed here
 // with simple-statistics (an outside reference library), not with the project's own functions.
@@ -44,5 +44,25 @@ describe('compareGroups', () => {
     expect(tiny.warnings.some((w) => w.startsWith('Three passes has only 1 run'))).toBe(true);
     expect(tiny.warnings.some((w) => /compare run CVs/.test(w))).toBe(true);
     expect(tiny.tests.some((t) => t.name.includes('Levene'))).toBe(true);
+  });
+});
+
+describe('evenSample and large groups', () => {
+  it('keeps every value of a small sample and an even stride of a large one', () => {
+    expect(evenSample([1, 2, 3], 5)).toEqual([1, 2, 3]);
+    const hundred = Array.from({ length: 100 }, (_, i) => i);
+    expect(evenSample(hundred, 4)).toEqual([0, 25, 50, 75]);
+  });
+
+  it(`draws at most ${MAX_DOTS_PER_GROUP} dots per group but takes the box and the tests from all values`, () => {
+    const many: GroupInput = { key: 'm', label: 'Many', runs: Array.from({ length: 120 }, (_, i) => run([95 + (i % 7), 100, 103 - (i % 5), 99])) };
+    const big = compareGroups([many, uneven], { subject: 'these methods' });
+    const chart = big.chartGroups[0]!;
+    expect(chart.finalLoadsPercent).toHaveLength(MAX_DOTS_PER_GROUP);
+    expect(chart.finalLoadsBox!.n).toBe(480);
+    // Median of all 480 values, recomputed with simple-statistics (an outside reference).
+    const all = many.runs.flatMap((r) => r.finalLoadsN.map((l) => (l / target) * 100));
+    expect(chart.finalLoadsBox!.median).toBeCloseTo(median(all), 10);
+    expect(big.groups[0]!.studs).toBe(480);
   });
 });

@@ -1,9 +1,9 @@
 import { NextResponse } from 'next/server';
 import { searchParamsObject, withRole } from '@/lib/api';
-import { compareQuerySchema, compareRuns } from '@/lib/data/compare';
+import { compareQuerySchema, compareRunsJson } from '@/lib/data/compare';
 
 // GET /api/compare - groups of complete runs side by side: summaries, chart data, tests with readings, nut factors
 export const GET = withRole(['instructor', 'researcher'], async (request, user) => {
   const query = compareQuerySchema.parse(searchParamsObject(request));
-  return NextResponse.json(await compareRuns(user, query));
+  return new NextResponse(await compareRunsJson(user, query), { headers: { 'content-type': 'application/json' } });
 });
