@@ -11,6 +11,7 @@ const securityHeaders = [
       "connect-src 'self'",
       "worker-src 'self' blob:",
       "frame-ancestors 'none'",
+      "object-src 'none'",
       "base-uri 'self'",
       "form-action 'self'",
     ].join('; '),

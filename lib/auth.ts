@@ -27,7 +27,8 @@ export const authOptions: NextAuthOptions = {
   secret: authSecret(),
   session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
   pages: { signIn: '/sign-in', error: '/sign-in' },
-  useSecureCookies: env.NODE_ENV === 'production' && (env.NEXTAUTH_URL ?? '').startsWith('https://'),
+  // Secure, prefixed cookies whenever the public address is https (production behind TLS).
+  useSecureCookies: (env.NEXTAUTH_URL ?? '').startsWith('https://'),
   providers: [
     CredentialsProvider({
       name: 'E-mail and password',

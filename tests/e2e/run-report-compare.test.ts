@@ -33,9 +33,15 @@ afterAll(async () => {
   await sequelize.close();
 });
 
+/** Console errors about the Content-Security-Policy: the app must work under its own CSP. */
+const cspViolations: string[] = [];
+
 async function signedIn(role: keyof typeof DEMO_ACCOUNTS): Promise<Page> {
   const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
   const page = await context.newPage();
+  page.on('console', (message) => {
+    if (/Content Security Policy|Refused to (load|execute|apply|connect)/i.test(message.text())) cspViolations.push(message.text());
+  });
   await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
   return page;
 }
@@ -96,6 +102,10 @@ describe('comparison in Chromium', () => {
     await second.getByRole('heading', { name: 'Nut factor by lubricant' }).waitFor();
     expect(await second.locator('#compare-by').inputValue()).toBe('lubricant');
     await page.context().close();
+  });
+
+  it('ran every page above without a Content-Security-Policy violation', () => {
+    expect(cspViolations).toEqual([]);
   });
 
   it('keeps trainees out of the comparison', async () => {

@@ -16,7 +16,7 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   const baseUrl = `http://127.0.0.1:${port}`;
   const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
-    env: { ...process.env, ...extraEnv, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1' },
+    env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1', ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';
