@@ -23,7 +23,7 @@ export const compareQuerySchema = z
   .object({
     by: z.enum(COMPARE_BY).default('method'),
     ids: idList.optional(),
-    jointId: z.coerce.number().int().positive().optional(),
+    jointId: z.coerce.number().int().positive().max(2 ** 31).optional(),
     from: isoDate.optional(),
     to: isoDate.optional(),
     passCount: z.coerce.number().int().min(1).max(50).optional(),

@@ -6,7 +6,7 @@ import { RUN_SOURCES, RUN_STATUSES } from '@/models/run';
 import type { SessionUser } from '../session';
 import { operatorLabel, runScope } from './scope';
 
-const id = z.coerce.number().int().positive();
+const id = z.coerce.number().int().positive().max(2 ** 31);
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
 
 /** The runs table's query: filters, sorting and paging, validated at the boundary. */
