@@ -78,7 +78,7 @@ async function main() {
       delimiter = line.includes('\t') ? '\t' : line.includes(';') ? ';' : ',';
       const names = line.split(delimiter).map((h) => h.trim().toLowerCase());
       const find = (re: RegExp) => names.findIndex((n) => re.test(n));
-      columns = { t: find(/^(t|time|time_s|seconds|elapsed)\b/), stud: find(/^(stud|position|pos|bolt)\b/), load: find(/^(load|force)\b/) };
+      columns = { t: find(/^(t|time|seconds|elapsed)(?![a-z])/), stud: find(/^(stud|position|pos|bolt)(?![a-z])/), load: find(/^(load|force)(?![a-z])/) };
       if (columns.t < 0 || columns.stud < 0 || columns.load < 0) {
         console.error(`Line ${lineNo}: the header needs time, stud and load columns (load in newtons), got "${line}".`);
         process.exit(2);

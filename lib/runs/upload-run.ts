@@ -14,7 +14,7 @@ export interface UploadInput {
   bytes: Uint8Array;
   fileName: string;
   contentType: string;
-  /** The confirmed column mapping (JSON from the form), validated here. */
+  /** The confirmed column mapping (JSON from the form), validated here; null = use the server's guess. */
   mapping: unknown;
   /** The run header fields (JSON from the form), validated here. */
   header: unknown;
@@ -56,7 +56,7 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
   const sha256 = createHash('sha256').update(input.bytes).digest('hex');
   const existing = await existingUpload(sha256);
   if (existing) throw duplicate(existing.runId);
-  const mapping = parseColumnMapping(input.mapping);
+  const mapping = input.mapping === null || input.mapping === undefined ? undefined : parseColumnMapping(input.mapping);
   const parsed = parseLoggerText(text, mapping, resolved.jointImport);
   const report = {
     detection: parsed.detection.sentences,

@@ -18,7 +18,7 @@ function jsonField(form: FormData, name: string): unknown {
   }
 }
 
-// POST /api/uploads - store a logger file (multipart: file, mapping, header) as a run; 409 with runId for a file already uploaded
+// POST /api/uploads - store a logger file (multipart: file, mapping (JSON or null = server's guess), header) as a run; 409 with runId for a file already uploaded
 export const POST = withRole(RECORD_ROLES, async (request, user) => {
   const declared = Number(request.headers.get('content-length') ?? '0');
   if (declared > UPLOAD_LIMIT_BYTES + UPLOAD_FORM_OVERHEAD_BYTES) {
