@@ -30,7 +30,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
   };
   const field = (key: keyof HeaderState, label: string, control: React.ReactNode) => (
     <label className="text-sm">
-      <span className="block font-medium">{label}</span>
+      <span id={`header-${key}-label`} className="block font-medium">{label}</span>
       {control}
       <span aria-live="polite" id={`header-${key}-error`} className="block text-danger">
         {errors[key]?.[0] ?? ''}
@@ -38,7 +38,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
     </label>
   );
   const select = (key: keyof HeaderState, items: Array<{ id: number; name: string }>, extra?: React.ReactNode) => (
-    <select name={key} value={value[key]} onChange={set(key)} className={CONTROL} aria-invalid={errors[key] ? true : undefined} aria-describedby={`header-${key}-error`}>
+    <select name={key} value={value[key]} onChange={set(key)} aria-labelledby={`header-${key}-label`} className={CONTROL} aria-invalid={errors[key] ? true : undefined} aria-describedby={`header-${key}-error`}>
       {extra}
       {items.map((item) => (
         <option key={item.id} value={item.id}>
@@ -55,7 +55,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
       {field('lubricantId', 'Lubricant', select('lubricantId', options.lubricants))}
       {field('operatorId', 'Operator', select('operatorId', options.operators))}
       {field('cohortId', 'Cohort', select('cohortId', cohorts, <option value="">No cohort</option>))}
-      {field('recordedAt', 'Recorded at (UTC)', <input type="datetime-local" name="recordedAt" value={value.recordedAt} onChange={set('recordedAt')} className={CONTROL} aria-invalid={errors.recordedAt ? true : undefined} />)}
+      {field('recordedAt', 'Recorded at (UTC)', <input type="datetime-local" aria-labelledby="header-recordedAt-label" name="recordedAt" value={value.recordedAt} onChange={set('recordedAt')} className={CONTROL} aria-invalid={errors.recordedAt ? true : undefined} />)}
       <div className="sm:col-span-2">
         {field('notes', 'Notes (optional)', <input type="text" name="notes" value={value.notes} onChange={set('notes')} maxLength={2000} placeholder="e.g. gauge 5 re-zeroed before the run" className={CONTROL} />)}
       </div>

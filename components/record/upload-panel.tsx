@@ -64,10 +64,12 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
       worker.terminate();
       if (msg.type === 'result') {
         const saved = firstLook ? rememberedMappings.find((m) => m.jointId === joint.id && sameHeaders(m.headers, msg.result.headers)) : undefined;
-        if (saved && JSON.stringify(saved.mapping) !== JSON.stringify(msg.result.mapping)) {
+        if (saved) {
           setRemembered(true);
-          parse(target, saved.mapping, false);
-          return;
+          if (JSON.stringify(saved.mapping) !== JSON.stringify(msg.result.mapping)) {
+            parse(target, saved.mapping, false);
+            return;
+          }
         }
         setParsed(msg.result);
         setPartial(null);

@@ -5,8 +5,7 @@
  * tests/ingest/good/wide-no-marker.csv (invented) turned into one reading per stud per scan, in N;
  * its steps, worked out by hand in tests/ingest/good.test.ts, are the expected ones here.
  */
-import { spawn } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -16,37 +15,16 @@ import { finishRecording, startRecording } from '@/lib/runs/live-stream';
 import type { SessionUser } from '@/lib/session';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
-import { createTestJoint, dropTestJoints, firstIds, GOOD_DIR, header, kN, storedSteps } from '../support/record-fixtures';
+import { createTestJoint, dropTestJoints, firstIds, header, kN, storedSteps } from '../support/record-fixtures';
 import { sessionUserOf } from '../support/session-users';
+import { runBridge, wideFixtureAsStream } from '../support/stream-fixture';
 
-const root = path.resolve(__dirname, '../..');
 let server: AppServer;
 let instructorHttp: HttpSession;
 let instructor: SessionUser;
 let jointId: number;
 let otherJointId: number;
 let ids: { methodId: number; lubricantId: number };
-
-/** wide-no-marker.csv as (t, stud, load in N) rows: the file's loads are kN (no unit; guessed kN by size). */
-export function wideFixtureAsStream(): { csv: string; readings: number } {
-  const lines = readFileSync(path.join(GOOD_DIR, 'wide-no-marker.csv'), 'utf8').split(/\r?\n/).filter((l) => l && !l.startsWith('#'));
-  const out = ['time_s,stud,load_N'];
-  for (const line of lines.slice(1)) {
-    const [t, ...loads] = line.split(',');
-    loads.forEach((v, i) => out.push(`${t},${i + 1},${Number(v) * 1000}`));
-  }
-  return { csv: `${out.join('\n')}\n`, readings: out.length - 1 };
-}
-
-export function runBridge(args: string[]): Promise<{ code: number; output: string }> {
-  return new Promise((resolve) => {
-    const child = spawn(path.join(root, 'node_modules/.bin/tsx'), ['scripts/stream-bridge.ts', ...args], { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] });
-    let output = '';
-    child.stdout.on('data', (c) => (output += String(c)));
-    child.stderr.on('data', (c) => (output += String(c)));
-    child.on('exit', (code) => resolve({ code: code ?? 1, output }));
-  });
-}
 
 beforeAll(async () => {
   server = await startAppServer();
