@@ -48,7 +48,7 @@ describe('Record page', () => {
   const shapes = [
     { file: 'wide-step-column.csv', steps: 8, derived: false },
     { file: 'wide-no-marker.csv', steps: 8, derived: true },
-    { file: 'long-carry-forward.csv', steps: 4, derived: false },
+    { file: 'long-carry-forward.csv', steps: 4, derived: true },
     { file: 'step-table-torque.csv', steps: 3, derived: false },
   ];
   for (const shape of shapes) {
