@@ -10,6 +10,7 @@ export interface NavItem {
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/', label: 'Home', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/runs', label: 'Runs', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/record', label: 'Record', roles: ['instructor', 'researcher', 'trainee'] },
   { href: '/compare', label: 'Compare', roles: ['instructor', 'researcher'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },

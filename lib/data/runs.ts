@@ -55,7 +55,8 @@ export interface RunPage {
   pageSize: number;
 }
 
-export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
+/** The runs query's filters, scoped to this person (shared by the table and the selection export). */
+export async function runListWhere(user: SessionUser, query: Omit<RunListQuery, 'sort' | 'dir' | 'page' | 'pageSize'>): Promise<WhereOptions> {
   const filters: WhereOptions[] = [await runScope(user)];
   for (const key of ['methodId', 'lubricantId', 'cohortId', 'operatorId', 'jointId', 'source', 'status'] as const) {
     const value = query[key];
@@ -63,9 +64,13 @@ export async function listRuns(user: SessionUser, query: RunListQuery): Promise<
   }
   if (query.from) filters.push({ recordedAt: { [Op.gte]: new Date(`${query.from}T00:00:00Z`) } });
   if (query.to) filters.push({ recordedAt: { [Op.lt]: new Date(new Date(`${query.to}T00:00:00Z`).getTime() + 86_400_000) } });
+  return { [Op.and]: filters };
+}
+
+export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
   const order: Order = [[query.sort, query.dir.toUpperCase()], ['id', 'DESC']];
   const { rows, count } = await Run.findAndCountAll({
-    where: { [Op.and]: filters },
+    where: await runListWhere(user, query),
     include: [
       { model: Joint, as: 'joint', attributes: ['name'] },
       { model: Method, as: 'method', attributes: ['name'] },

@@ -25,6 +25,13 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/runs/[id]/analysis', method: 'GET', path: '/api/runs/{springRun}/analysis', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
   { route: '/api/runs/[id]/export', method: 'GET', path: '/api/runs/{springRun}/export', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
   { route: '/api/compare', method: 'GET', path: '/api/compare?by=method', expect: { anonymous: 401, admin: 403, instructor: 200, researcher: 200, trainee: 403 } },
+  // Record (issue 4). Bodies are deliberately empty or invalid: the matrix checks who gets past the door.
+  { route: '/api/uploads', method: 'POST', path: '/api/uploads', expect: { anonymous: 401, admin: 403, instructor: 422, researcher: 422, trainee: 422 } },
+  { route: '/api/runs/export', method: 'GET', path: '/api/runs/export?format=csv&status=complete', expect: signedIn(200) },
+  // A run id no one has: 404 for every signed-in caller (we do not reveal whether it exists).
+  { route: '/api/runs/[id]/stream', method: 'GET', path: '/api/runs/999999999/stream', expect: signedIn(404) },
+  // The bridge endpoint takes a bearer token, not a session: without one everyone gets 401.
+  { route: '/api/runs/[id]/stream', method: 'POST', path: '/api/runs/1/stream', body: '{"t":0,"stud":1,"load":0}', expect: { anonymous: 401, admin: 401, instructor: 401, researcher: 401, trainee: 401 } },
 ];
 
 /** Routes that are not ours to check here (next-auth's own endpoints). */

@@ -1,0 +1,34 @@
+import { NextResponse, type NextRequest } from 'next/server';
+import { z } from 'zod';
+import { errorResponse, withRole, type RouteContext } from '@/lib/api';
+import { authenticateStreamToken } from '@/lib/data/stream-tokens';
+import { AppError } from '@/lib/errors';
+import { STREAM_BODY_LIMIT_BYTES } from '@/lib/record/limits';
+import { appendStreamReadings, streamStatus } from '@/lib/runs/live-stream';
+import { ALL_ROLES } from '@/lib/session';
+
+export const runtime = 'nodejs';
+
+const paramsSchema = z.object({ id: z.coerce.number().int().positive() });
+
+// GET /api/runs/:id/stream - what a live recording has received so far (polled by the Record page)
+export const GET = withRole<{ id: string }>(ALL_ROLES, async (_request, user, { params }) => {
+  const { id } = paramsSchema.parse(await params);
+  return NextResponse.json(await streamStatus(user, id));
+});
+
+// POST /api/runs/:id/stream - newline-delimited JSON readings from a bridge; Authorization: Bearer <per-joint token>, no session
+export async function POST(request: NextRequest, { params }: RouteContext<{ id: string }>): Promise<Response> {
+  try {
+    const token = await authenticateStreamToken(request.headers.get('authorization'));
+    const { id } = paramsSchema.parse(await params);
+    if (Number(request.headers.get('content-length') ?? '0') > STREAM_BODY_LIMIT_BYTES) {
+      throw new AppError('too_large', `One request may carry at most ${STREAM_BODY_LIMIT_BYTES / 1024 / 1024} MB; send smaller batches.`);
+    }
+    const body = await request.text();
+    if (body.length > STREAM_BODY_LIMIT_BYTES) throw new AppError('too_large', `One request may carry at most ${STREAM_BODY_LIMIT_BYTES / 1024 / 1024} MB; send smaller batches.`);
+    return NextResponse.json(await appendStreamReadings(token.jointId, id, body));
+  } catch (error) {
+    return errorResponse(error);
+  }
+}

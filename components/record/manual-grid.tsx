@@ -1,0 +1,153 @@
+'use client';
+
+import Link from 'next/link';
+import { useActionState, useMemo, useState } from 'react';
+import { saveManualRunAction } from '@/app/(lab)/record/actions';
+import { formatForce, formatPercent } from '@/lib/calc/units';
+import type { RecordJoint, RecordMethod } from '@/lib/data/record';
+import { loadToN } from '@/lib/ingest/units';
+import { initialRecordState } from '@/lib/record/action-state';
+import { MANUAL_UNITS, type ManualUnit } from '@/lib/record/manual-entry-schema';
+import { planSteps } from '@/lib/record/step-plan';
+import { coefficientOfVariation } from '@/lib/stats/coefficient-of-variation';
+import { mean } from '@/lib/stats/mean';
+import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
+
+function parseCell(text: string): number | null {
+  const t = text.trim().replace(/\s/g, '');
+  if (t === '') return null;
+  const n = Number(t.includes('.') ? t.replace(/,/g, '') : t.replace(',', '.'));
+  return Number.isFinite(n) ? n : Number.NaN;
+}
+
+/**
+ * Enter by hand: one row per step in the method's order (the tightened stud is shown), one column
+ * per stud: the loads of every stud the display shows after that step. Arrows move between cells,
+ * Enter moves down, Tab moves on; a block pasted from a spreadsheet fills from the focused cell.
+ */
+export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { joint: RecordJoint; method: RecordMethod; header: HeaderState; onHeaderErrors: (e: HeaderErrors) => void; units: 'si' | 'us' }) {
+  const plan = useMemo(() => planSteps(method, joint.studCount), [method, joint.studCount]);
+  const N = joint.studCount;
+  const [unit, setUnit] = useState<ManualUnit>(units === 'us' ? 'lbf' : 'kN');
+  const [cells, setCells] = useState<string[][]>(() => plan.steps.map(() => Array.from({ length: N }, () => '')));
+  const [state, formAction, pending] = useActionState(async (prev: typeof initialRecordState, formData: FormData) => {
+    const result = await saveManualRunAction(prev, formData);
+    onHeaderErrors(result.errors);
+    return result;
+  }, initialRecordState);
+
+  if (plan.problem) return <p className="text-sm text-danger">{plan.problem}</p>;
+
+  const values = cells.map((row) => row.map(parseCell));
+  const focus = (r: number, c: number) => document.getElementById(`grid-${r}-${c}`)?.focus();
+
+  function onKeyDown(e: React.KeyboardEvent<HTMLInputElement>, r: number, c: number) {
+    const input = e.currentTarget;
+    const atStart = input.selectionStart === 0 && input.selectionEnd === 0;
+    const atEnd = input.selectionStart === input.value.length;
+    if (e.key === 'ArrowUp' && r > 0) { e.preventDefault(); focus(r - 1, c); }
+    else if ((e.key === 'ArrowDown' || (e.key === 'Enter' && !e.shiftKey)) && r < plan.steps.length - 1) { e.preventDefault(); focus(r + 1, c); }
+    else if (e.key === 'Enter' && e.shiftKey && r > 0) { e.preventDefault(); focus(r - 1, c); }
+    else if (e.key === 'ArrowLeft' && atStart && c > 0) { e.preventDefault(); focus(r, c - 1); }
+    else if (e.key === 'ArrowRight' && atEnd && c < N - 1) { e.preventDefault(); focus(r, c + 1); }
+    else if (e.key === 'Enter') e.preventDefault();
+  }
+
+  function onPaste(e: React.ClipboardEvent<HTMLInputElement>, r: number, c: number) {
+    const text = e.clipboardData.getData('text/plain');
+    if (!/[\t\n]/.test(text.trim())) return;
+    e.preventDefault();
+    const block = text.replace(/\r/g, '').replace(/\n+$/, '').split('\n').map((line) => line.split('\t'));
+    setCells((old) => old.map((row, i) => row.map((v, j) => {
+      const cell = block[i - r]?.[j - c];
+      return i >= r && j >= c && cell !== undefined ? cell.trim() : v;
+    })));
+  }
+
+  const complete = values.map((row) => row.every((v) => v !== null && Number.isFinite(v)));
+  let lastComplete = -1;
+  complete.forEach((ok, i) => { if (ok) lastComplete = i; });
+  const rowStats = (i: number) => {
+    if (!complete[i]) return null;
+    const loadsN = values[i]!.map((v) => loadToN(v!, unit));
+    const m = mean(loadsN);
+    return { mean: m, cv: m > 0 ? coefficientOfVariation(loadsN) : null };
+  };
+  const latest = lastComplete >= 0 ? rowStats(lastComplete) : null;
+  const payload = JSON.stringify({ header: headerPayload(header), unit, rows: values.map((row) => row.map((v) => (v === null ? null : Number.isFinite(v) ? v : Number.MAX_VALUE))) });
+  const firstBad = values.flatMap((row, i) => row.map((v, j) => ({ i, j, bad: v !== null && !Number.isFinite(v) }))).find((x) => x.bad);
+
+  return (
+    <form action={formAction} className="space-y-3">
+      <input type="hidden" name="payload" value={payload} />
+      <div className="flex flex-wrap items-end gap-4">
+        <label className="text-sm">
+          <span className="block font-medium">Unit on the display</span>
+          <select value={unit} onChange={(e) => setUnit(e.target.value as ManualUnit)} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
+            {MANUAL_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
+          </select>
+        </label>
+        <p className="text-sm text-muted">
+          {plan.steps.length} steps: {method.name} on {N} studs. After each step, type every stud&rsquo;s load (0 for a stud not yet loaded), or paste a block from a spreadsheet.
+        </p>
+      </div>
+      <div aria-live="polite" className="rounded-md border border-rule bg-paper p-3 text-sm">
+        {latest ? (
+          <p>
+            After step <span className="num">{lastComplete + 1}</span>: mean <span className="num font-medium">{formatForce(latest.mean, units)}</span>, CV{' '}
+            <span className="num font-medium">{latest.cv === null ? '—' : formatPercent(latest.cv * 100)}</span> (target {formatForce(joint.targetLoadN, units)})
+          </p>
+        ) : <p className="text-muted">Mean and CV appear here as soon as one row is complete.</p>}
+      </div>
+      <div className="max-h-[32rem] overflow-auto rounded-md border border-rule">
+        <table className="text-sm">
+          <thead className="sticky top-0 z-10 bg-panel">
+            <tr>
+              <th className="px-2 py-1 text-left">Step</th><th className="px-2 py-1 text-left">Pass</th><th className="px-2 py-1 text-left">Tightened</th>
+              {Array.from({ length: N }, (_, j) => <th key={j} scope="col" className="px-1 py-1 text-right">Stud {j + 1}</th>)}
+              <th className="px-2 py-1 text-right">Mean</th><th className="px-2 py-1 text-right">CV</th>
+            </tr>
+          </thead>
+          <tbody>
+            {plan.steps.map((step, i) => {
+              const s = rowStats(i);
+              return (
+                <tr key={step.order} className={`border-t border-rule ${step.pass % 2 === 0 ? 'bg-paper/60' : ''}`}>
+                  <td className="num px-2 py-0.5">{step.order}</td>
+                  <td className="num px-2 py-0.5">{step.pass}{step.check ? ' (check)' : ''} <span className="text-muted">{step.percentOfTarget} %</span></td>
+                  <td className="num px-2 py-0.5 font-medium">{step.position}</td>
+                  {cells[i]!.map((v, j) => {
+                    const invalid = (values[i]![j] !== null && !Number.isFinite(values[i]![j]!)) || (state.cell?.row === i + 1 && state.cell.column === `Stud ${j + 1}`);
+                    return (
+                      <td key={j} className={`px-0.5 py-0.5 ${j + 1 === step.position ? 'bg-accent/10' : ''}`}>
+                        <input id={`grid-${i}-${j}`} value={v} inputMode="decimal" autoComplete="off" aria-label={`Step ${step.order}, stud ${j + 1}, ${unit}`} aria-invalid={invalid || undefined}
+                          onChange={(e) => setCells((old) => old.map((row, a) => (a === i ? row.map((x, b) => (b === j ? e.target.value : x)) : row)))}
+                          onKeyDown={(e) => onKeyDown(e, i, j)} onPaste={(e) => onPaste(e, i, j)}
+                          className="num w-20 rounded border border-rule bg-paper px-1 py-0.5 text-right aria-[invalid=true]:border-danger" />
+                      </td>
+                    );
+                  })}
+                  <td className="num px-2 py-0.5 text-right">{s ? formatForce(s.mean, units) : ''}</td>
+                  <td className="num px-2 py-0.5 text-right">{s && s.cv !== null ? formatPercent(s.cv * 100) : ''}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="submit" disabled={pending || lastComplete < 0 || !!firstBad} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50">
+          {pending ? 'Saving…' : 'Save run'}
+        </button>
+        <div aria-live="polite" className="text-sm">
+          {firstBad ? <p className="text-danger">Step {firstBad.i + 1}, stud {firstBad.j + 1}: &ldquo;{cells[firstBad.i]![firstBad.j]}&rdquo; is not a number. Type digits, with a point or comma for decimals.</p> : null}
+          {state.message ? (
+            <p className={state.ok ? 'text-good' : 'text-danger'} role={state.ok ? 'status' : 'alert'}>
+              {state.message} {state.ok && state.runId ? <Link className="underline" href={`/runs/${state.runId}`}>Open run {state.runId}</Link> : null}
+            </p>
+          ) : null}
+        </div>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,35 @@
+/** Messages between the upload panel and its parse worker. */
+import type { JointForImport } from '@/lib/ingest/normalise';
+import type { ColumnMapping } from '@/lib/ingest/shapes';
+
+export interface ParseRequest {
+  type: 'parse';
+  file: File;
+  mapping: ColumnMapping | null;
+  joint: JointForImport;
+  limitBytes: number;
+}
+
+export interface ParsedPreview {
+  sentences: string[];
+  headers: string[];
+  preview: Array<{ line: number; cells: string[] }>;
+  mapping: ColumnMapping | null;
+  mappingNotes: string[];
+}
+
+export interface ParsedFile extends ParsedPreview {
+  mapping: ColumnMapping;
+  derivedSteps: boolean;
+  derived: Array<{ order: number; pass: number; position: number; firstLine: number; lastLine: number; timeS: number | null; riseN: number }>;
+  stepCount: number;
+  studCount: number;
+  rowCount: number;
+  warnings: string[];
+  finalLoadsN: number[];
+}
+
+export type ParseResponse =
+  | { type: 'progress'; phase: 'reading' | 'parsing'; loaded: number; total: number }
+  | { type: 'result'; result: ParsedFile }
+  | { type: 'error'; message: string; row: number | null; column: string | null; partial: ParsedPreview | null };

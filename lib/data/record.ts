@@ -1,0 +1,262 @@
+import 'server-only';
+import { createHash } from 'node:crypto';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { sequelize } from '@/lib/db';
+import { AppError } from '@/lib/errors';
+import { gradeProperties, type GradeId } from '@/lib/calc/grades';
+import { threadGeometry } from '@/lib/calc/thread';
+import type { JointForImport } from '@/lib/ingest/normalise';
+import { columnMappingSchema, type ColumnMapping } from '@/lib/ingest/shapes';
+import { runHeaderSchema, recordedAtDate, type RunHeaderFields } from '@/lib/record/run-header-schema';
+import type { RunHeader } from '@/lib/runs/store-run';
+import { jointForImport } from '@/lib/record/joint-import';
+import type { RunSource, RunStatus } from '@/models/run';
+import type { MethodPass } from '@/models/method';
+import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User } from '@/models';
+import type { SessionUser } from '../session';
+import { taughtCohortIds } from './scope';
+
+/** Who may record runs, and as whom: see {@link allowedOperatorIds}. */
+export const RECORD_ROLES = ['instructor', 'researcher', 'trainee'] as const;
+
+export interface RecordJoint {
+  id: number;
+  name: string;
+  studCount: number;
+  targetLoadN: number;
+  bandPercent: number;
+  maxStudLoadN: number;
+  maxStudLoadSource: string;
+  /** Per-position calibration factors (index 0 = position 1). */
+  calibration: number[];
+  /** Tensile stress area of the studs in m² (lib/calc), for microstrain files; null when the thread is not valid. */
+  stressAreaM2: number | null;
+  /** Young's modulus used for microstrain files, Pa. */
+  youngsModulusPa: number;
+}
+
+/**
+ * E of alloy steel studs, 205 GPa (common practice, from memory: a typical handbook value for
+ * Cr-Mo steel at room temperature), used to turn microstrain into load.
+ */
+export const STUD_YOUNGS_MODULUS_PA = 205e9;
+
+export interface RecordMethod {
+  id: number;
+  name: string;
+  passes: MethodPass[];
+  checkPasses: number;
+}
+
+export interface RecordOption {
+  id: number;
+  name: string;
+}
+
+export interface RecordOperator extends RecordOption {
+  /** Cohorts this operator may be recorded in by this viewer. */
+  cohortIds: number[];
+}
+
+export interface RememberedMapping {
+  jointId: number;
+  headerSignature: string;
+  /** The trimmed header names the mapping was saved for. */
+  headers: string[];
+  mapping: ColumnMapping;
+}
+
+export interface RecordOptions {
+  joints: RecordJoint[];
+  methods: RecordMethod[];
+  lubricants: RecordOption[];
+  cohorts: RecordOption[];
+  operators: RecordOperator[];
+  rememberedMappings: RememberedMapping[];
+}
+
+/** The stud grade stored on a joint (free text such as "ASTM A193 B7") as a grade of our table, or null. */
+export function gradeIdOfText(text: string): GradeId | null {
+  const t = text.toUpperCase().replace(/\s+/g, ' ');
+  if (!t.includes('A193')) return null;
+  if (t.includes('A193M') && /\bB7\b/.test(t)) return 'A193M-B7';
+  if (/\bB7M\b/.test(t)) return 'A193-B7M';
+  if (/\bB16\b/.test(t)) return 'A193-B16';
+  if (/\bB8M?\b/.test(t)) return /CLASS 2|CL ?2/.test(t) ? 'A193-B8-CL2' : 'A193-B8-CL1';
+  if (/\bB7\b/.test(t)) return 'A193-B7';
+  return null;
+}
+
+/** Margin over the minimum tensile load for a believable gauge reading: our own choice, not a standard. */
+const ABSURD_LOAD_MARGIN = 1.2;
+
+/**
+ * The largest believable stud load of a joint: 1.2 × the stud grade's minimum tensile strength ×
+ * the thread's tensile stress area (lib/calc); 3 × the target load when the grade is not in our table.
+ */
+export function stabilityLimitOf(joint: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch' | 'studGrade' | 'targetLoadN'>): { maxStudLoadN: number; source: string } {
+  const grade = gradeIdOfText(joint.studGrade);
+  try {
+    if (!grade) throw new Error('unknown grade');
+    const thread =
+      joint.threadSystem === 'inch'
+        ? ({ system: 'inch', diameterIn: joint.threadDiameter, threadsPerInch: joint.threadPitch } as const)
+        : ({ system: 'metric', diameterMm: joint.threadDiameter, pitchMm: joint.threadPitch } as const);
+    const geometry = threadGeometry(thread);
+    const props = gradeProperties(grade, geometry.diameterMm);
+    const minTensileN = props.tensileMpa * geometry.tensileStressAreaMm2;
+    return {
+      maxStudLoadN: ABSURD_LOAD_MARGIN * minTensileN,
+      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${+(minTensileN / 1000).toFixed(1)} kN (${props.label})`,
+    };
+  } catch {
+    return { maxStudLoadN: 3 * joint.targetLoadN, source: `3 × the joint's target load (the stud grade "${joint.studGrade}" is not in our table)` };
+  }
+}
+
+function stressAreaM2Of(joint: Joint): number | null {
+  try {
+    const thread = joint.threadSystem === 'inch' ? ({ system: 'inch', diameterIn: joint.threadDiameter, threadsPerInch: joint.threadPitch } as const) : ({ system: 'metric', diameterMm: joint.threadDiameter, pitchMm: joint.threadPitch } as const);
+    return threadGeometry(thread).tensileStressAreaMm2 * 1e-6;
+  } catch {
+    return null;
+  }
+}
+
+function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
+  const limit = stabilityLimitOf(joint);
+  const calibration = Array.from({ length: joint.studCount }, (_, i) => positions.find((p) => p.position === i + 1)?.calibrationFactor ?? 1);
+  return {
+    id: joint.id,
+    name: joint.name,
+    studCount: joint.studCount,
+    targetLoadN: joint.targetLoadN,
+    bandPercent: joint.bandPercent,
+    maxStudLoadN: limit.maxStudLoadN,
+    maxStudLoadSource: limit.source,
+    calibration,
+    stressAreaM2: stressAreaM2Of(joint),
+    youngsModulusPa: STUD_YOUNGS_MODULUS_PA,
+  };
+}
+
+/** Operators this person may record as, with the cohorts each may be recorded in. */
+async function allowedOperators(user: SessionUser): Promise<RecordOperator[]> {
+  if (user.role === 'instructor') {
+    const cohortIds = await taughtCohortIds(user);
+    const members = cohortIds.length ? await CohortMember.findAll({ where: { cohortId: cohortIds }, raw: true }) : [];
+    const users = await User.findAll({ where: { id: [...new Set([user.id, ...members.map((m) => m.userId)])], isActive: true }, attributes: ['id', 'name'] });
+    return users
+      .map((u) => ({ id: u.id, name: u.name, cohortIds: u.id === user.id ? cohortIds : members.filter((m) => m.userId === u.id).map((m) => m.cohortId) }))
+      .sort((a, b) => (a.id === user.id ? -1 : b.id === user.id ? 1 : a.name.localeCompare(b.name)));
+  }
+  if (user.role === 'trainee') {
+    const memberships = await CohortMember.findAll({ where: { userId: user.id }, raw: true });
+    return [{ id: user.id, name: user.name, cohortIds: memberships.map((m) => m.cohortId) }];
+  }
+  if (user.role === 'researcher') return [{ id: user.id, name: user.name, cohortIds: [] }];
+  return [];
+}
+
+/** Everything the record page offers: joints, methods, lubricants, cohorts and operators for this person. */
+export async function recordOptions(user: SessionUser): Promise<RecordOptions> {
+  const [joints, positions, methods, lubricants, operators, maps] = await Promise.all([
+    Joint.findAll({ order: [['name', 'ASC']] }),
+    JointPosition.findAll(),
+    Method.findAll({ order: [['name', 'ASC']] }),
+    Lubricant.findAll({ attributes: ['id', 'name'], order: [['name', 'ASC']], raw: true }),
+    allowedOperators(user),
+    sequelize.query<{ joint_id: number; header_signature: string; headers: string; mapping: unknown }>('SELECT joint_id, header_signature, headers, mapping FROM column_maps', { type: QueryTypes.SELECT }),
+  ]);
+  const cohortIds = [...new Set(operators.flatMap((o) => o.cohortIds))];
+  const cohorts = cohortIds.length ? await Cohort.findAll({ where: { id: cohortIds }, attributes: ['id', 'name'], order: [['startsOn', 'DESC']] }) : [];
+  return {
+    joints: joints.map((j) => jointDto(j, positions.filter((p) => p.jointId === j.id))),
+    methods: methods.map((m) => ({ id: m.id, name: m.name, passes: m.passes, checkPasses: m.checkPasses })),
+    lubricants,
+    cohorts: cohorts.map((c) => ({ id: c.id, name: c.name })),
+    operators,
+    rememberedMappings: maps.flatMap((row) => {
+      const parsed = columnMappingSchema.safeParse(typeof row.mapping === 'string' ? JSON.parse(row.mapping) : row.mapping);
+      return parsed.success ? [{ jointId: Number(row.joint_id), headerSignature: row.header_signature, headers: JSON.parse(row.headers) as string[], mapping: parsed.data }] : [];
+    }),
+  };
+}
+
+/** A validated run header with the joint it is for, ready for storeRun. */
+export interface ResolvedHeader {
+  header: RunHeader;
+  joint: RecordJoint;
+  method: RecordMethod;
+  jointImport: JointForImport;
+}
+
+/**
+ * Validates a run header from a form or request (zod), then checks it against what this person may
+ * do: trainees record only themselves; instructors record themselves or a member of a cohort they
+ * teach, in that cohort; researchers record themselves. Unknown joint, method, lubricant or cohort
+ * is a field error.
+ *
+ * @throws AppError('invalid_input') with `fieldErrors` naming the field; AppError('forbidden') for
+ *   an operator this person may not record as.
+ */
+export async function resolveRunHeader(user: SessionUser, input: unknown, source: RunSource, status: RunStatus): Promise<ResolvedHeader> {
+  const parsed = runHeaderSchema.safeParse(input);
+  if (!parsed.success) {
+    const fieldErrors = Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0] ?? 'header'), [i.message]]));
+    throw new AppError('invalid_input', 'The run header is not complete: see the marked fields.', { field: Object.keys(fieldErrors)[0], fieldErrors });
+  }
+  const fields: RunHeaderFields = parsed.data;
+  const fieldError = (field: string, message: string) => new AppError('invalid_input', message, { field, fieldErrors: { [field]: [message] } });
+  const [joint, method, lubricant] = await Promise.all([Joint.findByPk(fields.jointId), Method.findByPk(fields.methodId), Lubricant.findByPk(fields.lubricantId)]);
+  if (!joint) throw fieldError('jointId', 'That joint does not exist. Choose one from the list.');
+  if (!method) throw fieldError('methodId', 'That method does not exist. Choose one from the list.');
+  if (!lubricant) throw fieldError('lubricantId', 'That lubricant does not exist. Choose one from the list.');
+  const operators = await allowedOperators(user);
+  const operator = operators.find((o) => o.id === fields.operatorId);
+  if (!operator) {
+    throw new AppError('forbidden', user.role === 'trainee' ? 'Trainees record only their own runs: choose yourself as the operator.' : 'You may record runs only for yourself or members of the cohorts you teach.', {
+      field: 'operatorId',
+      fieldErrors: { operatorId: ['Choose an operator from the list.'] },
+    });
+  }
+  if (fields.cohortId !== null && !operator.cohortIds.includes(fields.cohortId)) {
+    throw fieldError('cohortId', 'That operator is not in this cohort (or it is not yours). Choose one of their cohorts, or none.');
+  }
+  const positions = await JointPosition.findAll({ where: { jointId: joint.id } });
+  const dto = jointDto(joint, positions);
+  return {
+    joint: dto,
+    method: { id: method.id, name: method.name, passes: method.passes, checkPasses: method.checkPasses },
+    jointImport: jointForImport(dto),
+    header: {
+      jointId: joint.id,
+      methodId: method.id,
+      lubricantId: lubricant.id,
+      operatorId: operator.id,
+      cohortId: fields.cohortId,
+      targetLoadN: joint.targetLoadN,
+      bandPercent: joint.bandPercent,
+      source,
+      status,
+      recordedAt: recordedAtDate(fields.recordedAt),
+      notes: fields.notes,
+    },
+  };
+}
+
+/** sha256 of a file's trimmed header names joined by a newline: the key of a remembered mapping. */
+export function headerSignature(headers: readonly string[]): string {
+  return createHash('sha256').update(headers.map((h) => h.trim()).join('\n')).digest('hex');
+}
+
+/** Remembers (inserts or replaces) the mapping for this joint and header. */
+export async function rememberMapping(user: SessionUser, jointId: number, headers: readonly string[], mapping: ColumnMapping, transaction: Transaction): Promise<void> {
+  const now = new Date();
+  await sequelize.query(
+    `INSERT INTO column_maps (joint_id, header_signature, headers, mapping, saved_by_id, created_at, updated_at) VALUES (?,?,?,?,?,?,?)
+     ON DUPLICATE KEY UPDATE mapping = VALUES(mapping), headers = VALUES(headers), saved_by_id = VALUES(saved_by_id), updated_at = VALUES(updated_at)`,
+    { transaction, replacements: [jointId, headerSignature(headers), JSON.stringify(headers), JSON.stringify(mapping), user.id, now, now] },
+  );
+}
+

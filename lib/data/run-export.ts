@@ -1,0 +1,156 @@
+import 'server-only';
+import { QueryTypes } from 'sequelize';
+import { z } from 'zod';
+import { sequelize } from '@/lib/db';
+import { neutraliseCsvCell } from '@/lib/ingest/export-csv';
+import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
+import { Cohort, Joint, Lubricant, Method, Run, User } from '@/models';
+import type { SessionUser } from '../session';
+import { operatorLabel } from './scope';
+import { runListQuerySchema, runListWhere } from './runs';
+
+/** At most this many runs in one selection export; narrow the filters for more. */
+export const EXPORT_MAX_RUNS = 5000;
+const RUNS_PER_QUERY = 50;
+
+export const exportFormatSchema = z.object({ format: z.enum(['csv', 'json']).default('csv'), units: z.enum(['si', 'us']).optional() }).strict();
+
+/** Splits the query into the runs filters (validated like GET /api/runs) and the export options. */
+export function parseExportQuery(params: Record<string, string>) {
+  const { format, units, ...filters } = params;
+  const options = exportFormatSchema.parse({ format, units });
+  const query = runListQuerySchema.parse(filters);
+  return { options, query };
+}
+
+interface RunMeta {
+  id: number;
+  recordedAt: string;
+  joint: string;
+  method: string;
+  lubricant: string;
+  operator: string;
+  cohort: string;
+  status: string;
+  source: string;
+  studCount: number;
+  targetLoadN: number;
+}
+
+interface ReadingRow {
+  run_id: number;
+  step_order: number;
+  pass_number: number;
+  tightened: number;
+  position: number;
+  load_n: number;
+  applied_torque_nm: number | null;
+  applied_pressure_bar: number | null;
+  time_s: number | null;
+}
+
+async function selectedRuns(user: SessionUser, query: z.infer<typeof runListQuerySchema>): Promise<RunMeta[]> {
+  const runs = await Run.findAll({
+    where: await runListWhere(user, query),
+    include: [
+      { model: Joint, as: 'joint', attributes: ['name'] },
+      { model: Method, as: 'method', attributes: ['name'] },
+      { model: Lubricant, as: 'lubricant', attributes: ['name'] },
+      { model: User, as: 'operator', attributes: ['id', 'name'] },
+      { model: Cohort, as: 'cohort', attributes: ['name'] },
+    ],
+    order: [['recordedAt', 'ASC'], ['id', 'ASC']],
+    limit: EXPORT_MAX_RUNS,
+  });
+  return runs.map((run) => {
+    const r = run as Run & { joint: Joint; method: Method; lubricant: Lubricant; operator: User; cohort: Cohort | null };
+    return {
+      id: r.id,
+      recordedAt: r.recordedAt.toISOString(),
+      joint: r.joint.name,
+      method: r.method.name,
+      lubricant: r.lubricant.name,
+      operator: operatorLabel(user, r.operator),
+      cohort: r.cohort?.name ?? '',
+      status: r.status,
+      source: r.source,
+      studCount: r.studCount,
+      targetLoadN: r.targetLoadN,
+    };
+  });
+}
+
+async function* readingsOf(runIds: number[]): AsyncGenerator<ReadingRow[]> {
+  for (let i = 0; i < runIds.length; i += RUNS_PER_QUERY) {
+    const ids = runIds.slice(i, i + RUNS_PER_QUERY);
+    yield await sequelize.query<ReadingRow>(
+      `SELECT r.run_id, s.step_order, s.pass_number, s.position AS tightened, r.position, r.load_n, s.applied_torque_nm, s.applied_pressure_bar, s.time_s
+       FROM readings r JOIN tightening_steps s ON s.id = r.step_id
+       WHERE r.run_id IN (?) ORDER BY r.run_id, s.step_order, r.position`,
+      { type: QueryTypes.SELECT, replacements: [ids] },
+    );
+  }
+}
+
+const num = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
+
+/**
+ * The selected runs, one CSV row per reading (every stud after every step), in SI (N, N·m) or US
+ * (lbf, ft-lb) units; text cells neutralised against formula injection. Researchers see operators
+ * as pseudonyms. The step columns match the one-run export, so a one-run selection re-imports as
+ * a step table. Streams: runs are read 50 at a time.
+ */
+export async function* exportSelectionCsv(user: SessionUser, query: z.infer<typeof runListQuerySchema>, units: 'si' | 'us'): AsyncGenerator<string> {
+  const runs = await selectedRuns(user, query);
+  const us = units === 'us';
+  yield `${['run_id', 'recorded_at', 'joint', 'method', 'lubricant', 'operator', 'cohort', 'status', 'step', 'pass', 'tightened_position', 'position', us ? 'load_lbf' : 'load_N', us ? 'applied_torque_ft-lb' : 'applied_torque_Nm', 'applied_pressure_bar', 'time_s'].join(',')}\r\n`;
+  const meta = new Map(runs.map((r) => [r.id, [String(r.id), r.recordedAt, r.joint, r.method, r.lubricant, r.operator, r.cohort, r.status].map(neutraliseCsvCell).join(',')]));
+  for await (const rows of readingsOf(runs.map((r) => r.id))) {
+    let chunk = '';
+    for (const row of rows) {
+      const load = us ? Number(row.load_n) / NEWTONS_PER_LBF : Number(row.load_n);
+      const torque = row.applied_torque_nm == null ? '' : String(nmToTorque(Number(row.applied_torque_nm), us ? 'ft-lb' : 'N·m'));
+      chunk += `${meta.get(Number(row.run_id))},${row.step_order},${row.pass_number},${row.tightened},${row.position},${load},${torque},${num(row.applied_pressure_bar)},${num(row.time_s)}\r\n`;
+    }
+    yield chunk;
+  }
+}
+
+/** The same selection as JSON: `{ units, runs: [{ ...header, steps: [{ order, pass, position, loads }] }] }`, streamed run by run. */
+export async function* exportSelectionJson(user: SessionUser, query: z.infer<typeof runListQuerySchema>, units: 'si' | 'us'): AsyncGenerator<string> {
+  const runs = await selectedRuns(user, query);
+  const us = units === 'us';
+  const byId = new Map(runs.map((r) => [r.id, r]));
+  yield `{"units":${JSON.stringify(us ? { load: 'lbf', torque: 'ft-lb', pressure: 'bar', time: 's' } : { load: 'N', torque: 'N·m', pressure: 'bar', time: 's' })},"runs":[`;
+  let first = true;
+  for await (const rows of readingsOf(runs.map((r) => r.id))) {
+    const grouped = new Map<number, Map<number, { order: number; pass: number; position: number; appliedTorque: number | null; appliedPressureBar: number | null; timeS: number | null; loads: number[] }>>();
+    for (const row of rows) {
+      const runSteps = grouped.get(Number(row.run_id)) ?? new Map();
+      grouped.set(Number(row.run_id), runSteps);
+      const order = Number(row.step_order);
+      let step = runSteps.get(order);
+      if (!step) {
+        step = {
+          order,
+          pass: Number(row.pass_number),
+          position: Number(row.tightened),
+          appliedTorque: row.applied_torque_nm == null ? null : nmToTorque(Number(row.applied_torque_nm), us ? 'ft-lb' : 'N·m'),
+          appliedPressureBar: row.applied_pressure_bar == null ? null : Number(row.applied_pressure_bar),
+          timeS: row.time_s == null ? null : Number(row.time_s),
+          loads: [],
+        };
+        runSteps.set(order, step);
+      }
+      step.loads[Number(row.position) - 1] = us ? Number(row.load_n) / NEWTONS_PER_LBF : Number(row.load_n);
+    }
+    let chunk = '';
+    for (const [runId, steps] of grouped) {
+      const meta = byId.get(runId)!;
+      chunk += `${first ? '' : ','}${JSON.stringify({ ...meta, targetLoad: us ? meta.targetLoadN / NEWTONS_PER_LBF : meta.targetLoadN, steps: [...steps.values()] })}`;
+      first = false;
+    }
+    yield chunk;
+  }
+  yield ']}';
+}

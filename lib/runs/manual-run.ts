@@ -1,0 +1,58 @@
+import 'server-only';
+import { sequelize } from '@/lib/db';
+import { AppError } from '@/lib/errors';
+import { loadToN } from '@/lib/ingest/units';
+import { resolveRunHeader } from '@/lib/data/record';
+import { manualEntrySchema } from '@/lib/record/manual-entry-schema';
+import { planSteps } from '@/lib/record/step-plan';
+import type { NormalisedRun } from '@/lib/run-types';
+import type { SessionUser } from '@/lib/session';
+import { storeRun } from './store-run';
+
+const fmtKn = (n: number) => `${+(n / 1000).toFixed(2)} kN`;
+
+/**
+ * Saves a run typed into the grid (source 'manual', status complete) in one transaction. The step
+ * order comes from the method's pass orders for the joint's stud count (see planSteps); every
+ * entered row must give a load for every stud. Loads are converted to N here.
+ *
+ * @throws AppError('invalid_input') naming the row (step) and stud of the first bad cell, with
+ *   `row` and `column` (`Stud N`) details; AppError('forbidden') for an operator this person may
+ *   not record as.
+ */
+export async function saveManualRun(user: SessionUser, input: unknown): Promise<{ runId: number; stepCount: number }> {
+  const parsed = manualEntrySchema.safeParse(input);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    throw new AppError('invalid_input', issue?.message ?? 'The grid is not valid.', { field: String(issue?.path[0] ?? 'rows') });
+  }
+  const { header: headerInput, unit, rows } = parsed.data;
+  const resolved = await resolveRunHeader(user, headerInput, 'manual', 'complete');
+  const { joint, method } = resolved;
+  const plan = planSteps(method, joint.studCount);
+  if (plan.problem) throw new AppError('invalid_input', plan.problem, { field: 'methodId', fieldErrors: { methodId: [plan.problem] } });
+  let last = rows.length;
+  while (last > 0 && rows[last - 1]!.every((v) => v === null)) last--;
+  if (last === 0) throw new AppError('invalid_input', 'Enter the loads of at least one step.', { field: 'rows', row: 1 });
+  if (last > plan.steps.length) throw new AppError('invalid_input', `The method has ${plan.steps.length} steps but the grid has ${last} rows.`, { field: 'rows' });
+  const run: NormalisedRun = { studCount: joint.studCount, targetLoadN: joint.targetLoadN, steps: [] };
+  for (let r = 0; r < last; r++) {
+    const row = rows[r]!;
+    const step = plan.steps[r]!;
+    const where = `Row ${r + 1} (pass ${step.pass}, stud ${step.position} tightened)`;
+    if (row.length !== joint.studCount) throw new AppError('invalid_input', `${where}: expected ${joint.studCount} loads, got ${row.length}.`, { row: r + 1 });
+    const loadsN = row.map((value, i) => {
+      const stud = `Stud ${i + 1}`;
+      if (value === null) throw new AppError('invalid_input', `${where}, stud ${i + 1}: the load is missing. Type the value the display shows (0 for a stud not yet loaded).`, { row: r + 1, column: stud });
+      const n = loadToN(value, unit);
+      if (n < 0) throw new AppError('invalid_input', `${where}, stud ${i + 1}: the load ${value} ${unit} is negative. A stud's load cannot be below zero: check the sign.`, { row: r + 1, column: stud });
+      if (n > joint.maxStudLoadN) {
+        throw new AppError('invalid_input', `${where}, stud ${i + 1}: the load ${value} ${unit} is above the limit of ${fmtKn(joint.maxStudLoadN)} (${joint.maxStudLoadSource}). Check the unit (${unit}).`, { row: r + 1, column: stud });
+      }
+      return n;
+    });
+    run.steps.push({ order: r + 1, pass: step.pass, position: step.position, loadsN });
+  }
+  const runId = await sequelize.transaction((transaction) => storeRun(resolved.header, run, transaction));
+  return { runId, stepCount: run.steps.length };
+}

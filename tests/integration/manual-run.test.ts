@@ -1,0 +1,93 @@
+/**
+ * The hand-entry grid's save (saveManualRun, what the server action calls) against the test
+ * database: one run in one transaction, step order from the method, loads converted to N; a trainee
+ * cannot save as another operator; a bad cell is named by row and stud.
+ */
+import { QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sequelize } from '@/lib/db';
+import { AppError } from '@/lib/errors';
+import { planSteps } from '@/lib/record/step-plan';
+import { saveManualRun } from '@/lib/runs/manual-run';
+import type { SessionUser } from '@/lib/session';
+import { Method } from '@/models';
+import { DEMO_ACCOUNTS } from '../support/http-session';
+import { firstIds, header, storedSteps, tableCounts } from '../support/record-fixtures';
+import { sessionUserOf } from '../support/session-users';
+
+let instructor: SessionUser;
+let trainee: SessionUser;
+let jointId: number;
+let ids: { methodId: number; lubricantId: number };
+let method: Method;
+const created: number[] = [];
+
+beforeAll(async () => {
+  instructor = await sessionUserOf(DEMO_ACCOUNTS.instructor);
+  trainee = await sessionUserOf(DEMO_ACCOUNTS.trainee);
+  const [joint] = await sequelize.query<{ id: number }>('SELECT id FROM joints WHERE stud_count = 8 ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
+  jointId = Number(joint!.id);
+  ids = await firstIds();
+  method = (await Method.findByPk(ids.methodId))!;
+});
+
+afterAll(async () => {
+  if (created.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [created] });
+  await sequelize.close();
+});
+
+async function caught(fn: () => Promise<unknown>): Promise<AppError> {
+  try {
+    await fn();
+  } catch (e) {
+    if (e instanceof AppError) return e;
+    throw e;
+  }
+  throw new Error('expected an AppError');
+}
+
+describe('saveManualRun', () => {
+  it('saves one run with the method order and loads converted from kN to N', async () => {
+    const plan = planSteps(method, 8);
+    expect(plan.problem).toBeNull();
+    // Two steps typed: the first stud tightened to 20 kN, then the second to 21 kN while the first relaxes to 19.5.
+    const first = plan.steps[0]!.position;
+    const second = plan.steps[1]!.position;
+    const row1 = Array.from({ length: 8 }, (_, i) => (i + 1 === first ? 20 : 0));
+    const row2 = row1.map((v, i) => (i + 1 === first ? 19.5 : i + 1 === second ? 21 : v));
+    const before = await tableCounts();
+    const { runId, stepCount } = await saveManualRun(instructor, { header: header(jointId, instructor.id, ids), unit: 'kN', rows: [row1, row2, Array(8).fill(null)] });
+    created.push(runId);
+    expect(stepCount).toBe(2);
+    const after = await tableCounts();
+    expect(after.runs - before.runs).toBe(1);
+    expect(after.readings - before.readings).toBe(16);
+    const steps = await storedSteps(runId);
+    expect(steps.map((s) => [s.position, s.pass])).toEqual([[first, 1], [second, 1]]);
+    expect(steps[1]!.loadsN).toEqual(row2.map((v) => v * 1000));
+    const [run] = await sequelize.query<{ source: string; status: string }>('SELECT source, status FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
+    expect(run).toEqual({ source: 'manual', status: 'complete' });
+  });
+
+  it('refuses a trainee saving a run as another operator, and stores nothing', async () => {
+    const before = await tableCounts();
+    const err = await caught(() => saveManualRun(trainee, { header: header(jointId, instructor.id, ids), unit: 'kN', rows: [Array(8).fill(1)] }));
+    expect(err.code).toBe('forbidden');
+    expect(err.message).toMatch(/only their own runs/);
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  it('names the row and stud of a missing load', async () => {
+    const row = Array(8).fill(10);
+    row[4] = null;
+    const err = await caught(() => saveManualRun(instructor, { header: header(jointId, instructor.id, ids), unit: 'kN', rows: [Array(8).fill(10), row] }));
+    expect(err.code).toBe('invalid_input');
+    expect(err.message).toMatch(/^Row 2 .*stud 5: the load is missing/);
+    expect(err.details).toMatchObject({ row: 2, column: 'Stud 5' });
+  });
+
+  it('names the limit for an absurd load (a kN value typed while N was chosen the other way round)', async () => {
+    const err = await caught(() => saveManualRun(instructor, { header: header(jointId, instructor.id, ids), unit: 'kN', rows: [Array(8).fill(90000)] }));
+    expect(err.message).toMatch(/^Row 1 .*stud 1: the load 90000 kN is above the limit of/);
+  });
+});
