@@ -41,7 +41,7 @@ function useViewport() {
 }
 
 const pct = (fraction: number) => `${(fraction * 100).toFixed(1)}\u00a0%`;
-const pctOf = (percent: number, signed = false) => `${signed && percent > 0 ? '+' : ''}${percent.toFixed(1)}\u00a0%`;
+const pctOf = (percent: number, signed = false) => `${percent < 0 ? '\u2212' : signed && percent > 0 ? '+' : ''}${Math.abs(percent).toFixed(1)}\u00a0%`;
 
 /** The classroom: scene picker, then a keyboard-driven stage for each chosen scene. */
 export function ClassroomView({ library, cohorts, realRuns, realRun, initialOrder, initialJointId, seed, units }: ClassroomViewProps) {
@@ -285,13 +285,13 @@ function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohorts: Clas
   const rows: { label: string; value: (s: SideFigures) => string }[] = [
     { label: 'CV', value: (s) => pct(s.cv) },
     { label: 'Range / mean', value: (s) => pctOf(s.rangeOverMeanPercent) },
-    { label: 'Largest deviation from target', value: (s) => pctOf(s.largestDeviationPercent) },
-    { label: 'Mean drift after last tightening', value: (s) => pctOf(s.meanDriftPercent, true) },
+    { label: 'Largest deviation from target', value: (s) => pctOf(s.largestDeviationPercent, true) },
+    { label: 'Mean drift after the last tightening', value: (s) => pctOf(s.meanDriftPercent, true) },
   ];
   return (
     <div className="mt-2 grid gap-6 xl:grid-cols-[1fr_24rem]" data-testid="end-figures">
       <section aria-labelledby="figures-heading" className="space-y-4">
-        <h2 id="figures-heading" className="text-3xl font-semibold">Final loads, mean {figures.basis}</h2>
+        <h2 id="figures-heading" className="text-2xl font-semibold">Final loads, mean {figures.basis}</h2>
         <table className="num w-full border-collapse text-left">
           <thead>
             <tr className="border-b-2 border-ink text-2xl">
@@ -302,16 +302,16 @@ function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohorts: Clas
           <tbody>
             {rows.map((row) => (
               <tr key={row.label} className="border-b border-rule">
-                <th scope="row" className="py-2 pr-4 text-2xl font-medium">{row.label}</th>
-                {figures.sides.map((s) => <td key={s.key} className="py-2 pr-4 text-right text-room font-semibold">{row.value(s)}</td>)}
+                <th scope="row" className="py-1 pr-4 text-2xl font-medium">{row.label}</th>
+                {figures.sides.map((s) => <td key={s.key} className="whitespace-nowrap py-1 pr-4 text-right text-4xl font-semibold">{row.value(s)}</td>)}
               </tr>
             ))}
           </tbody>
         </table>
         <div className="rounded-card border-l-4 border-l-accent bg-panel px-5 py-3" data-testid="reading">
           <p className="text-lg font-semibold text-muted">Reading ({figures.basis})</p>
-          <p className="text-3xl leading-snug">{figures.cvReading}</p>
-          {figures.scatterReading ? <p className="mt-2 text-2xl leading-snug text-muted">{figures.scatterReading}</p> : null}
+          {figures.scatterReading ? <p className="text-3xl leading-snug">{figures.scatterReading}</p> : null}
+          <p className={figures.scatterReading ? 'mt-2 text-2xl leading-snug text-muted' : 'text-3xl leading-snug'}>{figures.cvReading}</p>
         </div>
       </section>
       <aside className="space-y-4">
