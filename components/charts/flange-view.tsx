@@ -17,6 +17,8 @@ export interface FlangeViewProps {
   /** Drawn size in px (the SVG is square); e.g. 640 for the classroom projector. Default 320. */
   size?: number;
   label: string;
+  /** Draw the deviation legend under the flange (default true); the classroom shows one shared legend. */
+  showLegend?: boolean;
 }
 
 const VIEW = 200;
@@ -36,7 +38,7 @@ export function studCentre(position: number, count: number, radius = PITCH_RADIU
  * The flange seen face-on: a ring with the studs on their pitch circle, each filled by its
  * deviation from target, numbered, focusable, with its reading on hover and focus.
  */
-export function FlangeView({ loadsN, targetN, bandPercent, units, activePosition, size = 320, label }: FlangeViewProps) {
+export function FlangeView({ loadsN, targetN, bandPercent, units, activePosition, size = 320, label, showLegend = true }: FlangeViewProps) {
   const [shown, setShown] = useState<number | null>(null);
   const count = loadsN.length;
   const readings = loadsN.map((n, i) => readStud(i + 1, n, targetN, units));
@@ -134,7 +136,7 @@ export function FlangeView({ loadsN, targetN, bandPercent, units, activePosition
           </div>
         )}
       </div>
-      <DeviationLegend bandPercent={bandPercent} large={large} />
+      {showLegend ? <DeviationLegend bandPercent={bandPercent} large={large} /> : null}
     </div>
   );
 }

@@ -14,6 +14,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/compare', label: 'Compare', roles: ['instructor', 'researcher'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
+  { href: '/classroom', label: 'Classroom', roles: ['instructor'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

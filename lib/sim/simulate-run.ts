@@ -76,6 +76,15 @@ export interface SimulateRunInput {
   tensionerPistonAreaM2?: number;
   /** Hydraulic torque wrench output in N·m per bar. Default 1.5 (an invented tool). */
   hydraulicWrenchNmPerBar?: number;
+  /**
+   * Flange rotation (cocking) factor r: while the studs' load is lopsided, pulling a stud up
+   * tilts the flange about the gasket and eases the studs on the side already pulled down, by
+   * r · c1 · I · w_q · ΔF (c1 = the interaction coefficient at distance 1, I = imbalance of the
+   * loads, w_q = how far stud q lies on the loaded side; see MODEL.md). Scaling by c1 keeps a
+   * rigid joint (c1 = 0) free of both effects. Default 1.5 (invented model constant); 0 switches
+   * the term off.
+   */
+  flangeRotation?: number;
 }
 
 export interface SimulateRunMeta {
@@ -93,8 +102,10 @@ export interface SimulateRunMeta {
   operatorNoiseCv: number;
   tensionerPistonAreaM2: number | null;
   hydraulicWrenchNmPerBar: number | null;
+  /** The flange rotation factor r used (0 = term off); the easing is r · c1 · I · w_q per unit ΔF. */
+  flangeRotation: number;
   /** Name and version of the model, for provenance. */
-  model: 'evenload-linear-interaction-v1';
+  model: 'evenload-linear-interaction-v2';
 }
 
 export interface SimulateRunResult {
@@ -136,6 +147,41 @@ export function interactionCoefficients(studCount: number, gasket: GasketStiffne
     throw new SimInputError('interactionCoefficients requires an interactionDecay in [0, 1]');
   }
   return Array.from({ length: Math.floor(studCount / 2) }, (_, i) => c1 * decay ** i);
+}
+
+/** Default flange rotation factor r. Invented model constant (see MODEL.md, "Flange rotation"). */
+export const DEFAULT_FLANGE_ROTATION = 1.5;
+
+/**
+ * The flange rotation share of each stud q: I · w_q, where I = |Σ F_r·u_r| / Σ F_r is the
+ * imbalance of the loads (0 = even all round, 1 = all on one stud), u_r the unit vector of stud r
+ * and w_q = max(0, u_q · ê) how far q lies on the loaded side ê = Σ F_r·u_r / |Σ F_r·u_r|.
+ * The tightened stud itself gets 0.
+ */
+export function rotationEasing(loads: readonly number[], tightened: number): number[] {
+  const n = loads.length;
+  let sx = 0;
+  let sy = 0;
+  let total = 0;
+  const unit = (q: number) => {
+    const angle = (2 * Math.PI * (q - 1)) / n;
+    return { x: Math.sin(angle), y: Math.cos(angle) };
+  };
+  loads.forEach((load, i) => {
+    const u = unit(i + 1);
+    sx += load * u.x;
+    sy += load * u.y;
+    total += load;
+  });
+  const length = Math.hypot(sx, sy);
+  // Below 1e-9 the imbalance is rounding in the sines and cosines of an even ring, not a tilt.
+  if (total <= 0 || length / total < 1e-9) return Array<number>(n).fill(0);
+  const imbalance = length / total;
+  return loads.map((_, i) => {
+    if (i + 1 === tightened) return 0;
+    const u = unit(i + 1);
+    return imbalance * Math.max(0, (u.x * sx + u.y * sy) / length);
+  });
 }
 
 /** Circular distance between positions a and b (1-based) on a ring of n studs. */
@@ -211,6 +257,9 @@ export function simulateRun(input: SimulateRunInput): SimulateRunResult {
   const wrenchNmPerBar = input.hydraulicWrenchNmPerBar ?? 1.5;
   requireFinite('hydraulicWrenchNmPerBar', wrenchNmPerBar, (v) => v > 0, 'a positive hydraulicWrenchNmPerBar');
 
+  const rotation = input.flangeRotation ?? DEFAULT_FLANGE_ROTATION;
+  requireFinite('flangeRotation', rotation, (v) => v >= 0 && v <= 5, 'a flangeRotation in [0, 5]');
+
   const coefficients = interactionCoefficients(n, input.gasketStiffness, input.interactionDecay ?? 0.5);
   const isTensioner = method.tool === 'hydraulic_tensioner';
   const rng = createRng(seed);
@@ -236,10 +285,13 @@ export function simulateRun(input: SimulateRunInput): SimulateRunResult {
 
   const applyChange = (position: number, delta: number): void => {
     if (delta === 0) return;
+    // Flange rotation: the tilt the lopsided loads give the flange right after this pull (MODEL.md).
+    const easing = rotation > 0 && delta > 0 ? rotationEasing(loads, position) : null;
     for (let q = 1; q <= n; q += 1) {
       if (q === position) continue;
       const c = coefficients[circularDistance(position, q, n) - 1] ?? 0;
-      loads[q - 1] = Math.max(0, (loads[q - 1] ?? 0) - c * delta);
+      const eased = easing ? rotation * (coefficients[0] ?? 0) * (easing[q - 1] ?? 0) : 0;
+      loads[q - 1] = Math.max(0, (loads[q - 1] ?? 0) - (c + eased) * delta);
     }
   };
 
@@ -293,7 +345,8 @@ export function simulateRun(input: SimulateRunInput): SimulateRunResult {
       operatorNoiseCv,
       tensionerPistonAreaM2: isTensioner ? pistonArea : null,
       hydraulicWrenchNmPerBar: method.tool === 'hydraulic_torque_wrench' ? wrenchNmPerBar : null,
-      model: 'evenload-linear-interaction-v1',
+      flangeRotation: rotation,
+      model: 'evenload-linear-interaction-v2',
     },
   };
 }

@@ -1,0 +1,296 @@
+import type { NormalisedRun } from '@/lib/run-types';
+import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
+import { simulateRun, type SimLubricant, type SimMethod, type SimTool } from '@/lib/sim/simulate-run';
+
+/**
+ * The classroom's lesson scenes as pure data and functions: which joints run side by side, with
+ * which method and lubricant from the library, and how they are simulated. No React, no database.
+ */
+
+export const SCENE_KEYS = ['passes', 'pattern', 'lube', 'tool', 'real'] as const;
+export type SceneKey = (typeof SCENE_KEYS)[number];
+
+export interface SceneInfo {
+  key: SceneKey;
+  title: string;
+  /** What the scene teaches, in one sentence for the picker. */
+  lesson: string;
+  /** How /compare groups the saved runs. */
+  compareBy: 'method' | 'lubricant' | null;
+}
+
+export const SCENES: Record<SceneKey, SceneInfo> = {
+  passes: { key: 'passes', title: 'One pass or several', lesson: 'One cross pass at 100 % against 30/60/100 % cross passes and a circular check pass.', compareBy: 'method' },
+  pattern: { key: 'pattern', title: 'Cross or circle', lesson: 'One pass at 100 % in cross order against one pass round the circle.', compareBy: 'method' },
+  lube: { key: 'lube', title: 'Dry or lubricated', lesson: 'The same torque passes with a dry nut factor and with a paste: a lower, steadier nut factor (K).', compareBy: 'lubricant' },
+  tool: { key: 'tool', title: 'Torque or tension', lesson: 'Torque wrench passes against a hydraulic tensioner with its load transfer factor.', compareBy: 'method' },
+  real: { key: 'real', title: 'A real run beside the model', lesson: 'A run the class recorded next to a simulated run of the same joint, method and lubricant.', compareBy: null },
+};
+
+/** Simulated runs per side behind the end figures and the reading. */
+export const RUNS_PER_SIDE = 30;
+
+/** Scene order from the URL (`?scenes=passes,pattern`): known keys, first mention kept; empty or unknown → all scenes. */
+export function parseSceneOrder(param: string | null | undefined): SceneKey[] {
+  const keys = (param ?? '')
+    .split(',')
+    .map((k) => k.trim())
+    .filter((k): k is SceneKey => (SCENE_KEYS as readonly string[]).includes(k));
+  const unique = [...new Set(keys)];
+  return unique.length ? unique : [...SCENE_KEYS];
+}
+
+export function sceneOrderParam(order: readonly SceneKey[]): string {
+  return order.join(',');
+}
+
+/** Moves the scene at `index` one place up (−1) or down (+1); out-of-range moves change nothing. */
+export function moveScene(order: readonly SceneKey[], index: number, by: -1 | 1): SceneKey[] {
+  const target = index + by;
+  if (index < 0 || index >= order.length || target < 0 || target >= order.length) return [...order];
+  const next = [...order];
+  [next[index], next[target]] = [next[target]!, next[index]!];
+  return next;
+}
+
+/** Adds a scene at the end, or takes it out (at least one scene stays). */
+export function toggleScene(order: readonly SceneKey[], key: SceneKey): SceneKey[] {
+  if (order.includes(key)) return order.length > 1 ? order.filter((k) => k !== key) : [...order];
+  return [...order, key];
+}
+
+// ---------------------------------------------------------------------------------------------
+// The library rows a scene chooses from (plain DTOs from lib/data/classroom.ts).
+
+export interface LibraryJoint {
+  id: number;
+  name: string;
+  studCount: number;
+  targetLoadN: number;
+  bandPercent: number;
+  /** Nominal stud diameter D in m (T = K·D·F). */
+  studDiameterM: number;
+}
+
+export interface LibraryMethodPass {
+  percentOfTarget: number;
+  pattern: 'cross' | 'circular' | 'custom';
+  orderByStudCount: Record<string, number[]>;
+}
+
+export interface LibraryMethod {
+  id: number;
+  name: string;
+  toolKind: SimTool | 'other';
+  passes: LibraryMethodPass[];
+  checkPasses: number;
+}
+
+export interface LibraryLubricant {
+  id: number;
+  name: string;
+  nominalNutFactor: number;
+}
+
+export interface Library {
+  joints: LibraryJoint[];
+  methods: LibraryMethod[];
+  lubricants: LibraryLubricant[];
+}
+
+/** A method a scene side asks for: tool, passes (% and pattern) and check passes. */
+interface MethodWanted {
+  tool: SimTool;
+  passes: { percentOfTarget: number; pattern: 'cross' | 'circular' }[];
+  checkPasses: number;
+}
+
+type LubricantWanted = 'dry' | 'paste';
+
+/**
+ * Nut factor scatter for a library lubricant, which stores only its nominal K. Invented teaching
+ * values (the same as the demo lubricants in lib/sim/demo-scenario.ts): K ≥ 0.18 is treated as dry
+ * (CV 0.10 stud to stud, 0.08 run to run), below as a paste (0.05, 0.04). A dry K of 0.20 is
+ * Shigley's "unknown condition" (REFERENCE.md §3 ✓ [SHIG]).
+ */
+export function lubricantForSim(lubricant: Pick<LibraryLubricant, 'nominalNutFactor'>): SimLubricant {
+  const dry = lubricant.nominalNutFactor >= 0.18;
+  return { nominalK: lubricant.nominalNutFactor, kScatterCv: dry ? 0.1 : 0.05, runToRunCv: dry ? 0.08 : 0.04 };
+}
+
+const isDry = (l: LibraryLubricant) => l.nominalNutFactor >= 0.18;
+
+function pickLubricant(lubricants: readonly LibraryLubricant[], wanted: LubricantWanted): LibraryLubricant | null {
+  const matching = lubricants.filter((l) => (wanted === 'dry' ? isDry(l) : !isDry(l)));
+  // Dry: the highest K; paste: the lowest K (the clearest contrast).
+  const sorted = [...matching].sort((a, b) => (wanted === 'dry' ? b.nominalNutFactor - a.nominalNutFactor : a.nominalNutFactor - b.nominalNutFactor) || a.id - b.id);
+  return sorted[0] ?? null;
+}
+
+/** A library method that matches the wanted tool, passes and check passes, with orders for this stud count. */
+export function findMethod(methods: readonly LibraryMethod[], wanted: MethodWanted, studCount: number): LibraryMethod | null {
+  return (
+    methods.find(
+      (m) =>
+        m.toolKind === wanted.tool &&
+        m.checkPasses === wanted.checkPasses &&
+        m.passes.length === wanted.passes.length &&
+        m.passes.every((p, i) => p.percentOfTarget === wanted.passes[i]!.percentOfTarget && p.pattern === wanted.passes[i]!.pattern && Array.isArray(p.orderByStudCount[String(studCount)])),
+    ) ?? null
+  );
+}
+
+/** The simulator's method for a library method (or a wanted one when the library has no match). */
+function simMethodOf(method: LibraryMethod | null, wanted: MethodWanted, studCount: number): SimMethod {
+  if (method) {
+    return {
+      tool: method.toolKind === 'other' ? wanted.tool : method.toolKind,
+      checkPasses: method.checkPasses,
+      passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: [...(p.orderByStudCount[String(studCount)] ?? [])] })),
+    };
+  }
+  const order = (pattern: 'cross' | 'circular') => (pattern === 'cross' && studCount % 4 === 0 ? crossPatternOrder(studCount) : circularOrder(studCount));
+  return { tool: wanted.tool, checkPasses: wanted.checkPasses, passes: wanted.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: order(p.pattern) })) };
+}
+
+const ONE_CROSS: MethodWanted = { tool: 'manual_torque_wrench', passes: [{ percentOfTarget: 100, pattern: 'cross' }], checkPasses: 0 };
+const ONE_CIRCLE: MethodWanted = { tool: 'manual_torque_wrench', passes: [{ percentOfTarget: 100, pattern: 'circular' }], checkPasses: 0 };
+const THREE_CROSS_CHECK: MethodWanted = {
+  tool: 'manual_torque_wrench',
+  passes: [30, 60, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross' as const })),
+  checkPasses: 1,
+};
+const TENSIONER_TWO: MethodWanted = { tool: 'hydraulic_tensioner', passes: [100, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross' as const })), checkPasses: 0 };
+
+/** One joint of a scene, simulated or recorded. */
+export interface SceneSide {
+  key: string;
+  label: string;
+  /** What is different on this side, in a few words for the projector. */
+  caption: string;
+  methodId: number | null;
+  methodName: string;
+  lubricantId: number | null;
+  lubricantName: string;
+  simMethod: SimMethod;
+  simLubricant: SimLubricant;
+  /** The method's % of target per pass, check passes appended (for the chart's pass labels). */
+  passPercents: number[];
+}
+
+export interface SceneSetup {
+  scene: SceneKey;
+  joint: LibraryJoint;
+  sides: SceneSide[];
+  /** Sentences naming library rows that were not found (the scene still runs on built-in settings, but cannot be saved). */
+  missing: string[];
+}
+
+function side(key: string, label: string, caption: string, method: LibraryMethod | null, wanted: MethodWanted, lubricant: LibraryLubricant | null, studCount: number): SceneSide {
+  const simMethod = simMethodOf(method, wanted, studCount);
+  return {
+    key,
+    label,
+    caption,
+    methodId: method?.id ?? null,
+    methodName: method?.name ?? describeWanted(wanted),
+    lubricantId: lubricant?.id ?? null,
+    lubricantName: lubricant?.name ?? 'Paste, K 0.12',
+    simMethod,
+    simLubricant: lubricant ? lubricantForSim(lubricant) : { nominalK: 0.12, kScatterCv: 0.05, runToRunCv: 0.04 },
+    passPercents: [...simMethod.passes.map((p) => p.percentOfTarget), ...Array.from({ length: simMethod.checkPasses }, () => 100)],
+  };
+}
+
+function describeWanted(wanted: MethodWanted): string {
+  const passes = wanted.passes.map((p) => `${p.percentOfTarget} % ${p.pattern}`).join(', ');
+  return `${wanted.tool.replaceAll('_', ' ')}: ${passes}${wanted.checkPasses ? ` + ${wanted.checkPasses} circular check` : ''}`;
+}
+
+/**
+ * The sides of a simulated scene on a joint, choosing existing library rows wherever they match.
+ * Each side's method and lubricant come from the library when a row fits; otherwise the side runs
+ * on built-in settings and `missing` says which row to add in the joint library.
+ */
+export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, jointId: number): SceneSetup | null {
+  const joint = library.joints.find((j) => j.id === jointId);
+  if (!joint) return null;
+  const n = joint.studCount;
+  const missing: string[] = [];
+  const method = (wanted: MethodWanted) => {
+    const found = findMethod(library.methods, wanted, n);
+    if (!found) missing.push(`No method in the library is "${describeWanted(wanted)}" with an order for ${n} studs.`);
+    return found;
+  };
+  const lubricant = (wanted: LubricantWanted) => {
+    const found = pickLubricant(library.lubricants, wanted);
+    if (!found) missing.push(`No ${wanted === 'dry' ? 'dry lubricant (K of 0.18 or more)' : 'paste (K below 0.18)'} in the library.`);
+    return found;
+  };
+  const paste = lubricant('paste');
+  let sides: SceneSide[];
+  switch (scene) {
+    case 'passes':
+      sides = [
+        side('one-pass', 'One pass', 'one cross pass at 100 %', method(ONE_CROSS), ONE_CROSS, paste, n),
+        side('several', 'Several passes', '30 / 60 / 100 % cross + circular check', method(THREE_CROSS_CHECK), THREE_CROSS_CHECK, paste, n),
+      ];
+      break;
+    case 'pattern':
+      sides = [
+        side('cross', 'Cross order', 'one pass at 100 %, cross order', method(ONE_CROSS), ONE_CROSS, paste, n),
+        side('circle', 'Round the circle', 'one pass at 100 %, 1, 2, 3 … clockwise', method(ONE_CIRCLE), ONE_CIRCLE, paste, n),
+      ];
+      break;
+    case 'lube': {
+      const m = method(THREE_CROSS_CHECK);
+      const dry = lubricant('dry');
+      sides = [
+        side('dry', 'Dry', `nut factor K ${dry?.nominalNutFactor ?? 0.2}, scatters more`, m, THREE_CROSS_CHECK, dry, n),
+        side('paste', 'Lubricated', `nut factor K ${paste?.nominalNutFactor ?? 0.12}, steadier`, m, THREE_CROSS_CHECK, paste, n),
+      ];
+      if (!dry) sides[0]!.simLubricant = { nominalK: 0.2, kScatterCv: 0.1, runToRunCv: 0.08 };
+      break;
+    }
+    case 'tool':
+      sides = [
+        side('torque', 'Torque wrench', '30 / 60 / 100 % cross + check, torque through K', method(THREE_CROSS_CHECK), THREE_CROSS_CHECK, paste, n),
+        side('tension', 'Hydraulic tensioner', `two cross passes, load transfer factor ${DEFAULT_LTF}`, method(TENSIONER_TWO), TENSIONER_TWO, paste, n),
+      ];
+      break;
+  }
+  return { scene, joint, sides, missing };
+}
+
+/** Load transfer factor the tensioner side uses: the simulator's default, floor of ✓ [TENS1] (REFERENCE.md §4). */
+export const DEFAULT_LTF = 1.15;
+
+/** A side of the "real run" scene that simulates the real run's own joint, method and lubricant. */
+export function sideForRealRun(joint: LibraryJoint, method: LibraryMethod, lubricant: LibraryLubricant): SceneSide {
+  const wanted: MethodWanted = {
+    tool: method.toolKind === 'other' ? 'manual_torque_wrench' : method.toolKind,
+    passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, pattern: p.pattern === 'circular' ? 'circular' : 'cross' })),
+    checkPasses: method.checkPasses,
+  };
+  const hasOrders = method.passes.every((p) => Array.isArray(p.orderByStudCount[String(joint.studCount)]));
+  return side('model', 'The model', `${method.name}, ${lubricant.name}`, hasOrders ? method : null, wanted, lubricant, joint.studCount);
+}
+
+/** Simulates one side with one seed (same seed on every side of a scene, so the comparison is fair). */
+export function simulateSide(sideToRun: SceneSide, joint: LibraryJoint, seed: number): NormalisedRun {
+  return simulateRun({
+    studCount: joint.studCount,
+    targetLoadN: joint.targetLoadN,
+    studDiameterM: joint.studDiameterM,
+    method: sideToRun.simMethod,
+    lubricant: sideToRun.simLubricant,
+    gasketStiffness: 'medium',
+    seed,
+    loadTransferFactor: DEFAULT_LTF,
+  }).run;
+}
+
+/** The seed family of a scene: runs k = 0..count−1 use seed + k on every side. */
+export function seedFamily(seed: number, count = RUNS_PER_SIDE): number[] {
+  return Array.from({ length: count }, (_, k) => seed + k);
+}
