@@ -79,18 +79,10 @@ export function sceneFigures(groups: readonly { key: string; label: string; runs
   const basis = counts.length === 1 ? `over ${counts[0]} simulated runs each` : `over ${counts.join(' / ')} simulated runs`;
   return {
     sides,
-    cvReading: welch ? runCvWording(welch.reading) : (result.warnings[0] ?? 'No reading: the groups are too small to compare.'),
+    cvReading: welch ? welch.reading : (result.warnings[0] ?? 'No reading: the groups are too small to compare.'),
     scatterReading: levene?.reading ?? null,
     basis,
   };
-}
-
-/**
- * compareGroups runs its ANOVAs on the runs' CVs, but readStatisticalResult words every ANOVA as
- * "mean load"; on this screen the measure is the run CV, so the sentence names it.
- */
-export function runCvWording(reading: string): string {
-  return reading.replace(/^Mean load differs/, 'The mean run CV differs').replace('that mean load differs', 'that the mean run CV differs');
 }
 
 /**

@@ -57,7 +57,7 @@ describe('the classroom in Chromium', () => {
     await page.getByText('over 30 simulated runs each').first().waitFor();
     const reading = await page.getByTestId('reading').innerText();
     expect(reading).toMatch(/Scatter differs between these methods at the 5 % level/);
-    expect(reading).toMatch(/The mean run CV differs/);
+    expect(reading).toMatch(/Mean run CV differs/);
     expect(await page.getByRole('rowheader', { name: 'CV' }).count()).toBe(1);
     await page.screenshot({ path: screenshotPath('classroom-end') });
     await page.setViewportSize({ width: 1920, height: 1080 });
