@@ -10,7 +10,10 @@ export interface NavItem {
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/', label: 'Home', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/runs', label: 'Runs', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/progress', label: 'Progress', roles: ['trainee'] },
+  { href: '/cohorts', label: 'Cohorts', roles: ['instructor', 'admin'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/people', label: 'People', roles: ['admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -19,6 +19,12 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/health', method: 'GET', path: '/api/health', expect: { anonymous: 200, admin: 200, instructor: 200, researcher: 200, trainee: 200 } },
   { route: '/api/runs', method: 'GET', path: '/api/runs', expect: signedIn(200) },
   { route: '/api/runs/options', method: 'GET', path: '/api/runs/options', expect: signedIn(200) },
+  {
+    route: '/api/exports/runs.csv',
+    method: 'GET',
+    path: '/api/exports/runs.csv?key=role-matrix-key&from=2026-01-01&to=2026-01-31',
+    expect: { anonymous: 401, admin: 200, instructor: 403, researcher: 200, trainee: 403 },
+  },
 ];
 
 /** Routes that are not ours to check here (next-auth's own endpoints). */
