@@ -19,7 +19,7 @@ function stepsFor(orders: number[][]): JudgeRunStep[] {
   return orders.flatMap((positions, p) => positions.map((position) => ({ order: ++order, pass: p + 1, position })));
 }
 
-function input(overrides: Partial<JudgeRunInput> & { criteria?: Partial<AssessmentCriteria> } = {}): JudgeRunInput {
+function input(overrides: Omit<Partial<JudgeRunInput>, 'criteria'> & { criteria?: Partial<AssessmentCriteria> } = {}): JudgeRunInput {
   return {
     targetLoadN: 100_000,
     finalLoadsN: [95_000, 105_000, 100_000, 100_000, 98_000, 102_000, 99_000, 101_000],
