@@ -3,12 +3,13 @@
 import { useActionState } from 'react';
 import { requestResetAction } from '@/app/(auth)/actions';
 import { IDLE_STATE } from '@/lib/action-state';
+import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError, FormMessage } from '../ui/field-error';
 
 export function ForgotPasswordForm() {
   const [state, action, pending] = useActionState(requestResetAction, IDLE_STATE);
   return (
-    <form action={action} className="mt-6 space-y-3" noValidate>
+    <form onSubmit={keepValuesSubmit(action)} className="mt-6 space-y-3" noValidate>
       <div>
         <label htmlFor="email" className="block text-sm font-medium">E-mail</label>
         <input id="email" name="email" type="email" autoComplete="username" required aria-describedby="email-error"

@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useActionState, useEffect, useRef, useState } from 'react';
 import { setPasswordAction } from '@/app/(auth)/actions';
 import { IDLE_STATE } from '@/lib/action-state';
+import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError, FormMessage } from '../ui/field-error';
 
 const input = 'mt-1 w-full rounded-md border border-rule bg-paper px-3 py-2 text-ink';
@@ -28,7 +29,10 @@ export function SetPasswordForm({ token, purpose, email, name, minLength }: { to
   }, [state, router]);
 
   return (
-    <form action={action} onSubmit={(event) => (password.current = String(new FormData(event.currentTarget).get('password') ?? ''))} className="mt-6 space-y-3" noValidate>
+    <form onSubmit={(event) => {
+      password.current = String(new FormData(event.currentTarget).get('password') ?? '');
+      keepValuesSubmit(action)(event);
+    }} className="mt-6 space-y-3" noValidate>
       <div>
         <span className="block text-sm font-medium">E-mail</span>
         <p className="mt-1 text-sm">{email}</p>

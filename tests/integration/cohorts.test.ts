@@ -1,3 +1,4 @@
+import Papa from 'papaparse';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hashToken } from '@/lib/accounts/one-time-token';
@@ -163,8 +164,8 @@ describe('criteria and verdicts', () => {
 
     await signOffRun(instructor, runId, 'Even work; keep the pass order.');
     await expect(signOffRun(instructor, runId, 'again')).rejects.toMatchObject({ code: 'conflict' });
-    const [verdict] = await sequelize.query<{ criteria: string; all_met: number; comment: string }>('SELECT criteria, all_met, comment FROM run_verdicts WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
-    expect(JSON.parse(String(verdict!.criteria))).toMatchObject({ bandPercent: 10, maxCvPercent: 5 });
+    const [verdict] = await sequelize.query<{ criteria: unknown; all_met: number; comment: string }>('SELECT criteria, all_met, comment FROM run_verdicts WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
+    expect(typeof verdict!.criteria === 'string' ? JSON.parse(verdict!.criteria) : verdict!.criteria).toMatchObject({ bandPercent: 10, maxCvPercent: 5 });
     expect(Boolean(verdict!.all_met)).toBe(true);
 
     // A later change of the criteria does not change the signed snapshot.
@@ -212,6 +213,9 @@ describe('research export', () => {
     };
     const csv = await collect('study-key-one');
     const lines = csv.trim().split('\r\n');
+    const parsed = Papa.parse<string[]>(csv.trim()).data;
+    expect(parsed.every((cells) => cells.length === 12)).toBe(true);
+    expect(parsed.slice(1).every((cells) => /^Operator [A-Z2-9]{6}$/.test(cells[6] ?? ''))).toBe(true);
     expect(lines[0]).toBe('run_id,recorded_at,joint,method,lubricant,cohort,operator,step,pass,tightened_position,position,load_n');
     const readings = await count("SELECT COUNT(*) AS n FROM readings r JOIN runs u ON u.id = r.run_id WHERE u.cohort_id = ? AND u.status = 'complete'", [cohort!.id]);
     expect(readings).toBeGreaterThan(0);
@@ -221,7 +225,7 @@ describe('research export', () => {
       expect(csv.includes(person.name), `name ${person.name} in the export`).toBe(false);
       expect(csv.toLowerCase().includes(person.email.toLowerCase()), `e-mail ${person.email} in the export`).toBe(false);
     }
-    const operators = (text: string) => [...new Set(text.trim().split('\r\n').slice(1).map((l) => l.split(',')[6]))];
+    const operators = (text: string) => [...new Set(Papa.parse<string[]>(text.trim()).data.slice(1).map((cells) => cells[6]))];
     expect(operators(await collect('study-key-one'))).toEqual(operators(csv));
     expect(operators(await collect('study-key-two'))).not.toEqual(operators(csv));
     const instructorExport = exportRunsCsv(instructor, { key: 'study-key-one' });
