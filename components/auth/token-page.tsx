@@ -21,7 +21,8 @@ export async function TokenPage({ token, purpose }: { token: string; purpose: 'i
       title={purpose === 'invite' ? 'Welcome to Evenload' : 'Choose a new password'}
       lead={purpose === 'invite' ? `Set a password to join ${link.cohortName ? `“${link.cohortName}”` : 'your course'}. This link works once.` : 'This link works once.'}
     >
-      <SetPasswordForm token={token} purpose={purpose} email={link.email} name={link.name} minLength={PASSWORD_MIN_LENGTH} />
+      {/* A new account's placeholder name is the address's local part: ask for the real one. */}
+      <SetPasswordForm token={token} purpose={purpose} email={link.email} name={link.name === link.email.split('@')[0] ? null : link.name} minLength={PASSWORD_MIN_LENGTH} />
     </AuthCard>
   );
 }

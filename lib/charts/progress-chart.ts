@@ -22,7 +22,7 @@ export function progressData(points: readonly ProgressPoint[]): ProgressDatum[] 
 }
 
 /** Plot options: CV and largest deviation (both %) over attempts, with the criteria limits as rules. */
-export function progressChartOptions(points: readonly ProgressPoint[], limits: { cvPercent: number | null; bandPercent: number | null }, width = 720): PlotOptions {
+export function progressChartOptions(points: readonly ProgressPoint[], limits: { cvPercent: number | null; bandPercent: number | null }, width = 880): PlotOptions {
   const data = progressData(points);
   const rules = [
     ...(limits.cvPercent !== null ? [{ y: limits.cvPercent, label: `CV limit ${limits.cvPercent} %` }] : []),
@@ -33,13 +33,13 @@ export function progressChartOptions(points: readonly ProgressPoint[], limits: {
     width,
     height: 320,
     marginLeft: 56,
-    x: { label: 'Attempt (number)', tickFormat: 'd', ticks: Math.min(points.length, 12) },
+    x: { label: 'Attempt (number)', tickFormat: 'd', ticks: Math.min(points.length, 12), domain: [0.5, Math.max(1, points.length) + 0.5] },
     y: { label: 'Percent (%)', grid: true, zero: true },
     color: { domain: ['CV of final loads', 'Largest deviation from target'], range: ['var(--el-below)', 'var(--el-above)'], legend: true },
     marks: [
       Plot.ruleY(rules, { y: 'y', stroke: 'var(--el-muted)', strokeDasharray: '4 3' }),
-      Plot.text(rules, { y: 'y', x: points.length ? points[points.length - 1]!.attempt : 1, text: 'label', textAnchor: 'end', dy: -6, fill: 'var(--el-muted)' }),
-      Plot.line(data, { x: 'attempt', y: 'percent', stroke: 'measure', strokeWidth: 2 }),
+      Plot.text(rules, { y: 'y', text: 'label', frameAnchor: 'right', textAnchor: 'end', dy: -7, fill: 'var(--el-muted)' }),
+      Plot.line(data, { x: 'attempt', y: 'percent', stroke: 'measure', z: 'measure', strokeWidth: 2 }),
       Plot.dot(data, { x: 'attempt', y: 'percent', fill: 'measure', r: 4, tip: true, title: (d: ProgressDatum) => `Attempt ${d.attempt}: ${d.measure} ${d.percent.toFixed(2)} %` }),
     ],
   };

@@ -115,6 +115,9 @@ export const setPasswordSchema = z
 export async function setPasswordWithToken(value: string, purpose: TokenPurpose, input: unknown, now = new Date()): Promise<{ email: string }> {
   const parsed = setPasswordSchema.safeParse(input);
   if (!parsed.success) throw new AppError('invalid_input', 'The password was not set; correct the fields marked.', { fieldErrors: parsed.error.flatten().fieldErrors });
+  if (purpose === 'invite' && !parsed.data.name) {
+    throw new AppError('invalid_input', 'The password was not set; correct the fields marked.', { fieldErrors: { name: ['Enter your name as it should appear on your results.'] } });
+  }
   if (!looksLikeToken(value)) throw new AppError('not_found', TOKEN_STATE_MESSAGE.unknown);
   const passwordHash = await hashPassword(parsed.data.password);
   return sequelize.transaction(async (transaction) => {

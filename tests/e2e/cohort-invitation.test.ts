@@ -98,11 +98,13 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     const page = await context.newPage();
     await page.goto(link!);
     await page.getByRole('heading', { name: 'Welcome to Evenload' }).waitFor();
+    expect(await page.getByLabel('Your name').inputValue()).toBe('');
     await page.getByLabel('Your name').fill('Ilse Marrow');
     await page.getByLabel('New password').fill('short');
     await page.getByLabel('Type it again').fill('short');
     await page.getByRole('button', { name: 'Set password and sign in' }).click();
     await expect.poll(() => page.locator('#password-error').textContent()).toContain('at least 10 characters');
+    expect(await page.getByLabel('Your name').inputValue(), 'the name survives a refused submit').toBe('Ilse Marrow');
     await page.screenshot({ path: screenshotPath('cohort-welcome-error'), fullPage: true });
     await page.getByLabel('New password').fill('tight in three passes');
     await page.getByLabel('Type it again').fill('tight in three passes');
@@ -179,6 +181,8 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await page.screenshot({ path: screenshotPath('cohort-forgot-password'), fullPage: true });
     await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.admin);
     await page.getByRole('link', { name: 'People', exact: true }).click();
+    await page.waitForURL(`${server.baseUrl}/people`);
+    await page.getByRole('heading', { name: 'People' }).waitFor();
     await page.getByRole('cell', { name: traineeEmail }).waitFor();
     await page.screenshot({ path: screenshotPath('cohort-people'), fullPage: true });
     await context.close();

@@ -90,13 +90,14 @@ describe('one-time links', () => {
     await inviteToCohort(instructor, cohortId, email);
     const token = linkIn((await mailTo(email))[0]!.text_body, 'welcome');
     await expect(setPasswordWithToken(token, 'invite', { name: 'Ona Test', password: 'short', confirm: 'short' })).rejects.toMatchObject({ code: 'invalid_input' });
+    await expect(setPasswordWithToken(token, 'invite', { password: 'long enough pass', confirm: 'long enough pass' })).rejects.toMatchObject({ details: { fieldErrors: { name: [expect.stringContaining('Enter your name')] } } });
     await expect(setPasswordWithToken(token, 'invite', { name: 'Ona Test', password: 'long enough pass', confirm: 'long enough typo' })).rejects.toMatchObject({ code: 'invalid_input' });
     expect(await count('SELECT COUNT(*) AS n FROM users WHERE email = ? AND password_hash IS NULL', [email])).toBe(1);
 
     await expect(setPasswordWithToken(token, 'invite', { name: 'Ona Test', password: 'first good password', confirm: 'first good password' })).resolves.toEqual({ email });
     const [row] = await sequelize.query<{ password_hash: string; name: string }>('SELECT password_hash, name FROM users WHERE email = ?', { type: QueryTypes.SELECT, replacements: [email] });
     expect(row!.name).toBe('Ona Test');
-    await expect(setPasswordWithToken(token, 'invite', { password: 'second password here', confirm: 'second password here' })).rejects.toMatchObject({ code: 'conflict', message: expect.stringContaining('already been used') });
+    await expect(setPasswordWithToken(token, 'invite', { name: 'Someone Else', password: 'second password here', confirm: 'second password here' })).rejects.toMatchObject({ code: 'conflict', message: expect.stringContaining('already been used') });
     const [after] = await sequelize.query<{ password_hash: string }>('SELECT password_hash FROM users WHERE email = ?', { type: QueryTypes.SELECT, replacements: [email] });
     expect(after!.password_hash).toBe(row!.password_hash);
     expect(await verifyPassword('first good password', after!.password_hash)).toBe(true);
@@ -109,7 +110,7 @@ describe('one-time links', () => {
     const token = linkIn((await mailTo(email))[0]!.text_body, 'welcome');
     await sequelize.query('UPDATE one_time_tokens SET expires_at = NOW() - INTERVAL 1 MINUTE WHERE token_sha256 = ?', { replacements: [hashToken(token)] });
     const before = await tableCounts();
-    await expect(setPasswordWithToken(token, 'invite', { password: 'a fine password', confirm: 'a fine password' })).rejects.toMatchObject({ message: expect.stringContaining('expired') });
+    await expect(setPasswordWithToken(token, 'invite', { name: 'Late Person', password: 'a fine password', confirm: 'a fine password' })).rejects.toMatchObject({ message: expect.stringContaining('expired') });
     expect(await tableCounts()).toEqual(before);
     expect(await count('SELECT COUNT(*) AS n FROM users WHERE email = ? AND password_hash IS NULL', [email])).toBe(1);
   });

@@ -48,7 +48,7 @@ export default async function ProgressPage() {
       ) : (
         <>
           <section aria-labelledby="chart-heading" className="rounded-card border border-rule bg-panel p-4">
-            <h2 id="chart-heading" className="font-semibold">Evenness over attempts</h2>
+            <h2 id="chart-heading" className="sr-only">Evenness over attempts</h2>
             <ProgressChart points={progress.runs.map((r) => ({ attempt: r.attempt, cvPercent: r.cvPercent, largestDeviationPercent: r.largestDeviationPercent }))} cvLimit={limit('cv')} bandLimit={limit('band')} />
             <table className="mt-3 w-full text-sm">
               <caption className="text-left text-xs text-muted">The chart&apos;s figures as a table.</caption>
