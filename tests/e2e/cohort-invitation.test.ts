@@ -155,6 +155,18 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     expect(mail).toContain(`Studs within the band: ${asShown(expected.sharePercent)} (7 of 8)`);
     expect(mail).toContain('Stud 5 ended high');
     expect(mail).toContain(`/runs/${runId}`);
+
+    // The printable sheets, as printed (the shell's navigation and buttons are .no-print).
+    await page.emulateMedia({ media: 'print' });
+    await page.goto(`${server.baseUrl}/cohorts/${cohortId}/sheet`);
+    await page.getByRole('heading', { name: `${cohortName}: summary` }).waitFor();
+    expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(false);
+    await page.getByRole('cell', { name: 'Ilse Marrow' }).waitFor();
+    await page.screenshot({ path: screenshotPath('cohort-summary-sheet'), fullPage: true });
+    await page.goto(`${server.baseUrl}/cohorts/${cohortId}/trainees/${trainee!.id}`);
+    await page.getByRole('heading', { name: 'Result sheet: Ilse Marrow' }).waitFor();
+    expect(await page.getByText('Stud 5 ended high').count()).toBe(1);
+    await page.screenshot({ path: screenshotPath('cohort-result-sheet'), fullPage: true });
     await page.close();
   });
 
@@ -168,6 +180,10 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await page.getByText('Stud 5 ended high').waitFor();
     await page.screenshot({ path: screenshotPath('cohort-progress'), fullPage: true });
     await context.close();
+  });
+
+  it('hides the development outbox in a production build without EVENLOAD_OUTBOX=1', async () => {
+    expect((await fetch(`${server.baseUrl}/dev/outbox`)).status).toBe(404);
   });
 
   it('the admin sees People; the sign-in page offers a reset that does not reveal accounts', async () => {

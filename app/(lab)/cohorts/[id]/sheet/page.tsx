@@ -28,7 +28,7 @@ export default async function CohortSheetPage({ params }: { params: Promise<{ id
       </header>
       <table className="w-full border-collapse text-sm">
         <thead className="text-left">
-          <tr className="border-b border-rule"><th className="py-1">Trainee</th><th className="text-right">Attempts</th><th className="text-right">Latest CV</th><th className="text-right">Criteria met (latest)</th><th className="text-right">Signed off</th><th className="text-right">All met</th></tr>
+          <tr className="border-b border-rule"><th className="py-1">Trainee</th><th className="text-right">Attempts</th><th className="text-right">Latest CV</th><th className="text-right">Criteria met (latest)</th><th className="text-right">Runs signed off</th><th className="text-right">Of those, all met</th></tr>
         </thead>
         <tbody className="num">
           {cohort.members.map((m) => {
