@@ -9,7 +9,7 @@ import { FieldError, FormMessage } from '../ui/field-error';
 export function ForgotPasswordForm() {
   const [state, action, pending] = useActionState(requestResetAction, IDLE_STATE);
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="mt-6 space-y-3" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="mt-6 space-y-3" noValidate>
       <div>
         <label htmlFor="email" className="block text-sm font-medium">E-mail</label>
         <input id="email" name="email" type="email" autoComplete="username" required aria-describedby="email-error"

@@ -29,7 +29,7 @@ export function SetPasswordForm({ token, purpose, email, name, minLength }: { to
   }, [state, router]);
 
   return (
-    <form onSubmit={(event) => {
+    <form action={action} onSubmit={(event) => {
       password.current = String(new FormData(event.currentTarget).get('password') ?? '');
       keepValuesSubmit(action)(event);
     }} className="mt-6 space-y-3" noValidate>

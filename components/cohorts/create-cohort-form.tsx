@@ -11,7 +11,7 @@ const input = 'mt-1 w-full rounded-md border border-rule bg-paper px-3 py-2 text
 export function CreateCohortForm() {
   const [state, action, pending] = useActionState(createCohortAction, IDLE_STATE);
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="grid gap-x-4 gap-y-1 md:grid-cols-2" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="grid gap-x-4 gap-y-1 md:grid-cols-2" noValidate>
       <div>
         <label htmlFor="cohort-name" className="block text-sm font-medium">Course name</label>
         <input id="cohort-name" name="name" required aria-describedby="cohort-name-error" className={input} />

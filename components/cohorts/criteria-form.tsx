@@ -23,7 +23,7 @@ export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number;
     </div>
   );
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
       {numberField('bandPercent', 'Band: every final load within ± % of target', 'Default ±10 % (common practice).')}
       {numberField('maxCvPercent', 'Largest CV of the final loads', 'Default 5 % (our classroom default, from memory).')}
       {numberField('maxYieldPercent', 'Largest stud load, % of minimum yield load', 'Default 70 % (top of the commonly quoted 40–70 % range, from memory).')}

@@ -9,7 +9,7 @@ import { FieldError, FormMessage } from '../ui/field-error';
 export function InviteForm({ cohortId }: { cohortId: number }) {
   const [state, action, pending] = useActionState(inviteAction.bind(null, cohortId), IDLE_STATE);
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
       <label htmlFor="addresses" className="block text-sm font-medium">E-mail addresses</label>
       <textarea id="addresses" name="addresses" rows={4} aria-describedby="addresses-hint addresses-error"
         className="w-full rounded-md border border-rule bg-paper px-3 py-2 font-mono text-sm text-ink" />

@@ -9,7 +9,7 @@ import { FieldError, FormMessage } from '../ui/field-error';
 export function SignOffForm({ cohortId, runId }: { cohortId: number; runId: number }) {
   const [state, action, pending] = useActionState(signOffAction.bind(null, cohortId, runId), IDLE_STATE);
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="space-y-1" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-1" noValidate>
       <label htmlFor={`comment-${runId}`} className="block text-sm font-medium">Comment for the trainee</label>
       <textarea id={`comment-${runId}`} name="comment" rows={2} aria-describedby={`comment-${runId}-error`}
         className="w-full rounded-md border border-rule bg-paper px-3 py-2 text-sm text-ink" />
@@ -27,7 +27,7 @@ export function SignOffForm({ cohortId, runId }: { cohortId: number; runId: numb
 export function SendResultsForm({ cohortId, runId, employerContact, sentAt }: { cohortId: number; runId: number; employerContact: string | null; sentAt: string | null }) {
   const [state, action, pending] = useActionState(sendResultsAction.bind(null, cohortId, runId), IDLE_STATE);
   return (
-    <form onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-center gap-4" noValidate>
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-center gap-4" noValidate>
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="copyEmployer" disabled={!employerContact} />
         {employerContact ? `Copy to employer contact (${employerContact})` : 'No employer contact on file'}

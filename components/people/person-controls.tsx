@@ -21,14 +21,14 @@ export function PersonControls({ userId, name, role, isActive, isSelf }: { userI
   const state = activeState.message ? activeState : roleState;
   return (
     <div className="flex flex-wrap items-center gap-2">
-      <form onSubmit={keepValuesSubmit(roleAction)} className="flex items-center gap-2">
+      <form action={roleAction} onSubmit={keepValuesSubmit(roleAction)} className="flex items-center gap-2">
         <label htmlFor={`role-${userId}`} className="sr-only">Role of {name}</label>
         <select id={`role-${userId}`} name="role" defaultValue={role} className="rounded-md border border-rule bg-paper px-2 py-1 text-sm text-ink">
           {ROLE_OPTIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
         </select>
         <button type="submit" disabled={rolePending} className="rounded-md border border-rule px-2 py-1 text-sm hover:bg-rule/60">Change role</button>
       </form>
-      <form onSubmit={keepValuesSubmit(activeAction)}>
+      <form action={activeAction} onSubmit={keepValuesSubmit(activeAction)}>
         <button type="submit" disabled={activePending} className={`rounded-md border border-rule px-2 py-1 text-sm hover:bg-rule/60 ${isActive ? 'text-danger' : ''}`}>
           {isActive ? 'Deactivate' : 'Reactivate'}
         </button>
