@@ -191,6 +191,8 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     const page = await context.newPage();
     await page.goto(`${server.baseUrl}/sign-in`);
     await page.getByRole('link', { name: 'Forgot password?' }).click();
+    await page.waitForURL(`${server.baseUrl}/forgot-password`);
+    await page.getByRole('heading', { name: 'Forgot your password?' }).waitFor();
     await page.getByLabel('E-mail').fill(`nobody.${stamp}@test.evenload.test`);
     await page.getByRole('button', { name: 'Send a reset link' }).click();
     await page.getByText('If an account exists for that address').waitFor();
