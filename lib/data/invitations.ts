@@ -9,6 +9,7 @@ import { AppError } from '../errors';
 import { sendMail, type OutgoingMail } from '../mail/mailer';
 import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/templates';
 import { hashPassword } from '../passwords';
+import { isLocked, recordFailure } from '../rate-limit';
 import type { SessionUser } from '../session';
 import { manageableCohort } from './cohort-access';
 
@@ -141,6 +142,10 @@ export const RESET_REQUESTED_MESSAGE = 'If an account exists for that address, w
 export async function requestPasswordReset(rawEmail: unknown, now = new Date()): Promise<void> {
   const parsed = z.string().trim().toLowerCase().email().max(254).safeParse(rawEmail);
   if (!parsed.success) throw new AppError('invalid_input', 'Enter the e-mail address of your account, like name@example.org.', { fieldErrors: { email: ['Enter the e-mail address of your account, like name@example.org.'] } });
+  // At most 5 reset mails per address in 15 minutes (the sign-in limiter's counters), silently.
+  const keys = [`reset:${parsed.data}`];
+  if (await isLocked(keys, now)) return;
+  await recordFailure(keys, now);
   const account = await User.findOne({ where: { email: parsed.data } });
   if (!account || !account.isActive) return;
   const value = newTokenValue();

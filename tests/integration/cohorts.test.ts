@@ -134,6 +134,14 @@ describe('one-time links', () => {
     expect(reset.length).toBeGreaterThan(0);
     expect(linkIn(reset[reset.length - 1]!.text_body, 'reset')).toHaveLength(43);
   });
+
+  it('sends at most 5 reset mails per address in 15 minutes, silently', async () => {
+    await sequelize.query('DELETE FROM sign_in_attempts WHERE attempt_key = ?', { replacements: [`reset:${DEMO_ACCOUNTS.instructor}`] });
+    const before = (await mailTo(DEMO_ACCOUNTS.instructor)).length;
+    for (let i = 0; i < 7; i += 1) await requestPasswordReset(DEMO_ACCOUNTS.instructor);
+    expect((await mailTo(DEMO_ACCOUNTS.instructor)).length - before).toBe(5);
+    await sequelize.query('DELETE FROM sign_in_attempts WHERE attempt_key = ?', { replacements: [`reset:${DEMO_ACCOUNTS.instructor}`] });
+  });
 });
 
 describe('criteria and verdicts', () => {
