@@ -18,5 +18,6 @@ export async function proxy(request: NextRequest) {
 }
 
 export const config = {
-  matcher: ['/((?!api|_next|fonts|favicon.ico|sign-in|robots.txt).*)'],
+  // Public: sign-in, the invitation and reset links, the forgot-password form and the dev outbox.
+  matcher: ['/((?!api|_next|fonts|favicon.ico|sign-in|welcome|reset|forgot-password|dev/outbox|robots.txt).*)'],
 };

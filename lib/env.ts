@@ -18,6 +18,16 @@ const schema = z.object({
   NEXTAUTH_SECRET: z.string().min(16).optional(),
   NEXTAUTH_URL: z.string().url().optional(),
   EVENLOAD_LOG_SQL: z.enum(['0', '1']).default('0'),
+  /** Outgoing mail (nodemailer over SMTP). Locally the SMTP fake (scripts/mail-fake.ts) listens here. */
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_FROM: z.string().min(3).default('Evenload <no-reply@evenload.test>'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  /** The address links in e-mails point to; falls back to NEXTAUTH_URL, then http://127.0.0.1:3000. */
+  APP_BASE_URL: z.string().url().optional(),
+  /** 1 shows the development outbox (/dev/outbox) in a production build, for the demo. */
+  EVENLOAD_OUTBOX: z.enum(['0', '1']).default('0'),
 });
 
 export type Env = z.infer<typeof schema>;
@@ -40,4 +50,14 @@ export function authSecret(): string {
     throw new Error('Evenload cannot start: NEXTAUTH_SECRET is not set (at least 16 characters).');
   }
   return 'evenload-local-development-secret-not-for-production';
+}
+
+/** The base of links in e-mails, without a trailing slash. */
+export function appBaseUrl(): string {
+  return (env.APP_BASE_URL ?? env.NEXTAUTH_URL ?? 'http://127.0.0.1:3000').replace(/\/+$/, '');
+}
+
+/** The captured-mail outbox is shown outside production, or when EVENLOAD_OUTBOX=1. */
+export function outboxEnabled(): boolean {
+  return env.NODE_ENV !== 'production' || env.EVENLOAD_OUTBOX === '1';
 }

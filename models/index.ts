@@ -1,13 +1,17 @@
 import { sequelize } from '../lib/db';
+import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
+import { CohortCriteria } from './cohort-criteria';
 import { CohortMember } from './cohort-member';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
 import { Lubricant } from './lubricant';
 import { Method } from './method';
+import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { RunComment } from './run-comment';
+import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
@@ -15,7 +19,7 @@ import { User } from './user';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail]) {
     model.initModel(sequelize);
   }
 
@@ -32,6 +36,10 @@ import { User } from './user';
   Run.hasMany(RunComment, { as: 'comments', foreignKey: 'runId' });
   TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
   RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  OneTimeToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Cohort.hasOne(CohortCriteria, { as: 'criteria', foreignKey: 'cohortId' });
+  Run.hasOne(RunVerdict, { as: 'verdict', foreignKey: 'runId' });
+  RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
 }
 
-export { sequelize, Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User };

@@ -21,4 +21,39 @@ evenload_setup() {
   fi
   bash scripts/db.sh start
   npx tsx scripts/migrate.ts up >&2
+  evenload_mail_fake
+}
+
+# The local SMTP fake (scripts/mail-fake.ts) on 127.0.0.1:SMTP_PORT, storing mail in the database
+# named by DB_*. Started in the background with setsid, once: a pid file per port under .data
+# makes a second call reuse it.
+evenload_mail_fake() {
+  export SMTP_PORT="${SMTP_PORT:-2525}"
+  local pid_file=".data/mail-fake-${SMTP_PORT}.pid"
+  if [ -s "$pid_file" ] && kill -0 "$(cat "$pid_file")" 2>/dev/null; then
+    evenload_log "mail fake already running on 127.0.0.1:${SMTP_PORT} (pid $(cat "$pid_file"))"
+    return
+  fi
+  if (exec 3<>"/dev/tcp/127.0.0.1/${SMTP_PORT}") 2>/dev/null; then
+    evenload_log "port ${SMTP_PORT} is taken by another process: mail goes there (set SMTP_PORT to use another port)"
+    return
+  fi
+  setsid node_modules/.bin/tsx scripts/mail-fake.ts </dev/null >".data/mail-fake-${SMTP_PORT}.log" 2>&1 &
+  echo $! > "$pid_file"
+  for _ in $(seq 1 50); do
+    if (exec 3<>"/dev/tcp/127.0.0.1/${SMTP_PORT}") 2>/dev/null; then
+      evenload_log "mail fake listening on 127.0.0.1:${SMTP_PORT} (pid $(cat "$pid_file"), log .data/mail-fake-${SMTP_PORT}.log)"
+      return
+    fi
+    sleep 0.2
+  done
+  evenload_log "the mail fake did not start; see .data/mail-fake-${SMTP_PORT}.log"
+  return 1
+}
+
+# Stops the mail fake started for SMTP_PORT (by its pid).
+evenload_mail_fake_stop() {
+  local pid_file=".data/mail-fake-${SMTP_PORT:-2525}.pid"
+  if [ -s "$pid_file" ] && kill -0 "$(cat "$pid_file")" 2>/dev/null; then kill "$(cat "$pid_file")"; fi
+  rm -f "$pid_file"
 }

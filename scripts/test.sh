@@ -10,6 +10,8 @@ export DB_PORT="${EVENLOAD_TEST_DB_PORT:-3308}"
 export DB_NAME="${EVENLOAD_TEST_DB_NAME:-evenload_test}"
 export EVENLOAD_TEST_PORT="${EVENLOAD_TEST_PORT:-3100}"
 export NEXTAUTH_URL="http://127.0.0.1:${EVENLOAD_TEST_PORT}"
+# The tests' own mail fake port (2526 unless set), so it never mixes with `npm start`'s on 2525.
+export SMTP_PORT="${EVENLOAD_TEST_SMTP_PORT:-${SMTP_PORT:-2526}}"
 evenload_setup
 # The test database holds the same invented demo scenario; tests add and remove their own rows.
 npx tsx scripts/migrate.ts seed >&2

@@ -11,10 +11,13 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/', label: 'Home', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/runs', label: 'Runs', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/record', label: 'Record', roles: ['instructor', 'researcher', 'trainee'] },
+  { href: '/progress', label: 'Progress', roles: ['trainee'] },
   { href: '/compare', label: 'Compare', roles: ['instructor', 'researcher'] },
-  { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
-  { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
   { href: '/classroom', label: 'Classroom', roles: ['instructor'] },
+  { href: '/cohorts', label: 'Cohorts', roles: ['instructor', 'admin'] },
+  { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
+  { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
+  { href: '/people', label: 'People', roles: ['admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

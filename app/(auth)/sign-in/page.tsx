@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { Wordmark } from '@/components/shell/wordmark';
 import { getSessionUser } from '@/lib/session';
@@ -18,6 +19,9 @@ export default async function SignInPage() {
           <h1 className="text-xl font-semibold">Sign in</h1>
           <p className="mt-1 text-sm text-muted">The lab for per-stud load runs on training joints.</p>
           <SignInForm />
+          <p className="mt-4 text-sm">
+            <Link href="/forgot-password" className="underline underline-offset-4">Forgot password?</Link>
+          </p>
         </div>
         <p className="mt-6 text-xs text-muted">
           No account yet? Your instructor or the centre&apos;s admin sends you an invitation.

@@ -1,0 +1,42 @@
+'use client';
+
+import { useActionState } from 'react';
+import { saveCriteriaAction } from '@/app/(lab)/cohorts/actions';
+import { IDLE_STATE } from '@/lib/action-state';
+import { keepValuesSubmit } from '../ui/keep-values-submit';
+import type { AssessmentCriteria } from '@/lib/assessment/criteria';
+import { FieldError, FormMessage } from '../ui/field-error';
+
+const input = 'mt-1 w-28 rounded-md border border-rule bg-paper px-3 py-1.5 text-right text-ink num';
+
+export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number; criteria: AssessmentCriteria; limits: Record<'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', { min: number; max: number }> }) {
+  const [state, action, pending] = useActionState(saveCriteriaAction.bind(null, cohortId), IDLE_STATE);
+  const numberField = (name: 'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', label: string, hint: string) => (
+    <div>
+      <label htmlFor={name} className="block text-sm font-medium">{label}</label>
+      <span className="inline-flex items-center gap-1">
+        <input id={name} name={name} inputMode="decimal" defaultValue={criteria[name]} aria-describedby={`${name}-hint ${name}-error`} className={input} />
+        <span className="text-sm">%</span>
+      </span>
+      <p id={`${name}-hint`} className="text-xs text-muted">{hint} Allowed {limits[name].min}–{limits[name].max} %.</p>
+      <FieldError id={`${name}-error`} messages={state.errors?.[name]} />
+    </div>
+  );
+  return (
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
+      {numberField('bandPercent', 'Band: every final load within ± % of target', 'Default ±10 % (common practice).')}
+      {numberField('maxCvPercent', 'Largest CV of the final loads', 'Default 5 % (our classroom default, from memory).')}
+      {numberField('maxYieldPercent', 'Largest stud load, % of minimum yield load', 'Default 70 % (top of the commonly quoted 40–70 % range, from memory).')}
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" name="requirePattern" defaultChecked={criteria.requirePattern} />
+        The prescribed pattern must be followed (check passes circular)
+      </label>
+      <div className="flex flex-wrap items-center gap-4 pt-1">
+        <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink disabled:opacity-60">
+          {pending ? 'Saving…' : 'Save criteria'}
+        </button>
+        <FormMessage ok={state.ok} message={state.message} />
+      </div>
+    </form>
+  );
+}

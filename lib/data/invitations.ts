@@ -1,0 +1,159 @@
+import 'server-only';
+import { z } from 'zod';
+import { Cohort, CohortMember, OneTimeToken, User, sequelize } from '@/models';
+import type { TokenPurpose } from '@/models/one-time-token';
+import { hashToken, looksLikeToken, newTokenValue, tokenExpiry, tokenState, TOKEN_STATE_MESSAGE, type TokenState } from '../accounts/one-time-token';
+import { parseAddressList } from '../accounts/parse-address-list';
+import { appBaseUrl } from '../env';
+import { AppError } from '../errors';
+import { sendMail, type OutgoingMail } from '../mail/mailer';
+import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/templates';
+import { hashPassword } from '../passwords';
+import { isLocked, recordFailure } from '../rate-limit';
+import type { SessionUser } from '../session';
+import { manageableCohort } from './cohort-access';
+
+export const MAX_INVITES_AT_ONCE = 100;
+export const PASSWORD_MIN_LENGTH = 10;
+
+export interface InviteOutcome {
+  /** New accounts created and sent an invitation link. */
+  invited: string[];
+  /** Existing accounts attached to the cohort (told by e-mail). */
+  attached: string[];
+  /** Already members: nothing to do. */
+  alreadyMembers: string[];
+  /** Addresses whose e-mail could not be sent (the rows are saved; send again later). */
+  notSent: string[];
+}
+
+/**
+ * Invites trainees by e-mail address. All or nothing: when any entry is not an address, nothing
+ * is saved and the message names every rejected entry, so the instructor corrects the list once.
+ * An address that already has an account is attached to the cohort instead of duplicated; a new
+ * address gets a trainee account without a password and a single-use link that expires in 72 h.
+ */
+export async function inviteToCohort(user: SessionUser | null, cohortId: number, rawList: unknown, now = new Date()): Promise<InviteOutcome> {
+  const cohort = await manageableCohort(user, cohortId);
+  const { valid, invalid } = parseAddressList(typeof rawList === 'string' ? rawList : '');
+  if (invalid.length) {
+    const list = invalid.map((entry) => `"${entry}"`).join(', ');
+    const message = `${invalid.length === 1 ? 'This entry is' : 'These entries are'} not an e-mail address: ${list}. Nobody was invited; correct ${invalid.length === 1 ? 'it' : 'them'} and send again.`;
+    throw new AppError('invalid_input', message, { fieldErrors: { addresses: [message] }, rejected: invalid });
+  }
+  if (!valid.length) throw new AppError('invalid_input', 'Enter at least one e-mail address.', { fieldErrors: { addresses: ['Enter at least one e-mail address.'] } });
+  if (valid.length > MAX_INVITES_AT_ONCE) {
+    const message = `That is ${valid.length} addresses; invite at most ${MAX_INVITES_AT_ONCE} at a time.`;
+    throw new AppError('invalid_input', message, { fieldErrors: { addresses: [message] } });
+  }
+  const outcome: InviteOutcome = { invited: [], attached: [], alreadyMembers: [], notSent: [] };
+  const mails: OutgoingMail[] = [];
+  const base = appBaseUrl();
+  await sequelize.transaction(async (transaction) => {
+    for (const email of valid) {
+      let account = await User.findOne({ where: { email }, transaction, lock: transaction.LOCK.UPDATE });
+      const isNew = !account;
+      account ??= await User.create({ name: email.split('@')[0] ?? email, email, passwordHash: null, role: 'trainee' }, { transaction });
+      const member = await CohortMember.findOne({ where: { cohortId: cohort.id, userId: account.id }, transaction });
+      if (member && !isNew && account.passwordHash !== null) {
+        outcome.alreadyMembers.push(email);
+        continue;
+      }
+      if (!member) await CohortMember.create({ cohortId: cohort.id, userId: account.id }, { transaction });
+      if (account.passwordHash === null) {
+        // A new account, or an invited one that never set a password: a fresh link.
+        const value = newTokenValue();
+        const expiresAt = tokenExpiry('invite', now);
+        await OneTimeToken.create({ tokenSha256: hashToken(value), purpose: 'invite', userId: account.id, cohortId: cohort.id, createdById: user!.id, expiresAt }, { transaction });
+        mails.push({ to: email, ...invitationMail({ cohortName: cohort.name, instructorName: user!.name, link: `${base}/welcome/${value}`, expiresAt }) });
+        outcome.invited.push(email);
+      } else {
+        mails.push({ to: email, ...addedToCohortMail({ cohortName: cohort.name, instructorName: user!.name, signInLink: `${base}/sign-in` }) });
+        outcome.attached.push(email);
+      }
+    }
+  });
+  for (const mail of mails) {
+    try {
+      await sendMail(mail);
+    } catch {
+      outcome.notSent.push(mail.to);
+    }
+  }
+  return outcome;
+}
+
+export interface TokenDescription {
+  state: TokenState;
+  message: string | null;
+  purpose: TokenPurpose | null;
+  email: string | null;
+  name: string | null;
+  cohortName: string | null;
+}
+
+/** What a welcome or reset link stands for, for the page that shows its form. */
+export async function describeToken(value: string, purpose: TokenPurpose, now = new Date()): Promise<TokenDescription> {
+  const row = looksLikeToken(value) ? await OneTimeToken.findOne({ where: { tokenSha256: hashToken(value), purpose } }) : null;
+  const state = tokenState(row, now);
+  if (!row || state !== 'valid') return { state, message: state === 'valid' ? null : TOKEN_STATE_MESSAGE[state], purpose: row?.purpose ?? null, email: null, name: null, cohortName: null };
+  const [account, cohort] = await Promise.all([User.findByPk(row.userId), row.cohortId ? Cohort.findByPk(row.cohortId) : null]);
+  return { state, message: null, purpose: row.purpose, email: account?.email ?? null, name: account?.name ?? null, cohortName: cohort?.name ?? null };
+}
+
+export const setPasswordSchema = z
+  .object({
+    name: z.string().trim().min(2, { error: 'Enter your name as it should appear on your results (at least 2 characters).' }).max(120, { error: 'Keep your name under 120 characters.' }).optional(),
+    password: z.string().min(PASSWORD_MIN_LENGTH, { error: `Choose a password of at least ${PASSWORD_MIN_LENGTH} characters.` }).max(200, { error: 'Keep the password under 200 characters.' }),
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { message: 'The two passwords differ; type the same password twice.', path: ['confirm'] });
+
+/**
+ * Sets the password through a one-time link and marks the link used, in one transaction with the
+ * link's row locked, so a link works exactly once. Expired, used or unknown links change nothing.
+ */
+export async function setPasswordWithToken(value: string, purpose: TokenPurpose, input: unknown, now = new Date()): Promise<{ email: string }> {
+  const parsed = setPasswordSchema.safeParse(input);
+  if (!parsed.success) throw new AppError('invalid_input', 'The password was not set; correct the fields marked.', { fieldErrors: parsed.error.flatten().fieldErrors });
+  if (purpose === 'invite' && !parsed.data.name) {
+    throw new AppError('invalid_input', 'The password was not set; correct the fields marked.', { fieldErrors: { name: ['Enter your name as it should appear on your results.'] } });
+  }
+  if (!looksLikeToken(value)) throw new AppError('not_found', TOKEN_STATE_MESSAGE.unknown);
+  const passwordHash = await hashPassword(parsed.data.password);
+  return sequelize.transaction(async (transaction) => {
+    const row = await OneTimeToken.findOne({ where: { tokenSha256: hashToken(value), purpose }, transaction, lock: transaction.LOCK.UPDATE });
+    const state = tokenState(row, now);
+    if (!row || state !== 'valid') throw new AppError(state === 'unknown' ? 'not_found' : 'conflict', TOKEN_STATE_MESSAGE[state === 'valid' ? 'unknown' : state]);
+    const account = await User.findByPk(row.userId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!account || !account.isActive) throw new AppError('forbidden', 'This account is deactivated; ask the centre’s admin.');
+    await account.update({ passwordHash, ...(purpose === 'invite' && parsed.data.name ? { name: parsed.data.name } : {}) }, { transaction });
+    await row.update({ usedAt: now }, { transaction });
+    // Any other open link of the same purpose for this account stops working too.
+    await OneTimeToken.update({ usedAt: now }, { where: { userId: account.id, purpose, usedAt: null }, transaction });
+    return { email: account.email };
+  });
+}
+
+/** The one answer to every reset request, so the form never reveals whether an account exists. */
+export const RESET_REQUESTED_MESSAGE = 'If an account exists for that address, we have sent it a link to choose a new password. The link works once, for 2 hours.';
+
+/** Sends a reset link when an active account with a password exists; silent otherwise. */
+export async function requestPasswordReset(rawEmail: unknown, now = new Date()): Promise<void> {
+  const parsed = z.string().trim().toLowerCase().email().max(254).safeParse(rawEmail);
+  if (!parsed.success) throw new AppError('invalid_input', 'Enter the e-mail address of your account, like name@example.org.', { fieldErrors: { email: ['Enter the e-mail address of your account, like name@example.org.'] } });
+  // At most 5 reset mails per address in 15 minutes (the sign-in limiter's counters), silently.
+  const keys = [`reset:${parsed.data}`];
+  if (await isLocked(keys, now)) return;
+  await recordFailure(keys, now);
+  const account = await User.findOne({ where: { email: parsed.data } });
+  if (!account || !account.isActive) return;
+  const value = newTokenValue();
+  const expiresAt = tokenExpiry('reset', now);
+  await OneTimeToken.create({ tokenSha256: hashToken(value), purpose: 'reset', userId: account.id, cohortId: null, createdById: null, expiresAt });
+  try {
+    await sendMail({ to: account.email, ...passwordResetMail({ link: `${appBaseUrl()}/reset/${value}`, expiresAt }) });
+  } catch {
+    // Not shown to the visitor (it would reveal the account); the server log has it.
+  }
+}

@@ -1,0 +1,37 @@
+import 'server-only';
+import nodemailer, { type Transporter } from 'nodemailer';
+import { env } from '../env';
+import { AppError } from '../errors';
+
+export interface OutgoingMail {
+  to: string;
+  cc?: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+const globalForMail = globalThis as unknown as { evenloadMailer?: Transporter };
+
+function transporter(): Transporter {
+  globalForMail.evenloadMailer ??= nodemailer.createTransport({
+    host: env.SMTP_HOST,
+    port: env.SMTP_PORT,
+    secure: env.SMTP_PORT === 465,
+    ...(env.SMTP_USER ? { auth: { user: env.SMTP_USER, pass: env.SMTP_PASS ?? '' } } : {}),
+    connectionTimeout: 5000,
+    greetingTimeout: 5000,
+    socketTimeout: 10_000,
+  });
+  return globalForMail.evenloadMailer;
+}
+
+/** Sends one message through the configured SMTP server. @throws AppError `unavailable` when it cannot. */
+export async function sendMail(mail: OutgoingMail): Promise<void> {
+  try {
+    await transporter().sendMail({ from: env.SMTP_FROM, ...mail });
+  } catch (error) {
+    console.error('[mail] sending failed', error);
+    throw new AppError('unavailable', `The e-mail to ${mail.to} could not be sent: the mail server at ${env.SMTP_HOST}:${env.SMTP_PORT} did not accept it. Try again, or ask your admin to check the mail settings.`);
+  }
+}

@@ -1,0 +1,31 @@
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '@/lib/db';
+import type { SessionUser } from '@/lib/session';
+
+export const count = async (sql: string, replacements: unknown[] = []) =>
+  Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT, replacements }))[0]!.n);
+
+/** The signed-in person as lib/data receives it, read from the users table. */
+export async function sessionUserFor(email: string): Promise<SessionUser> {
+  const [row] = await sequelize.query<{ id: number; name: string; email: string; role: SessionUser['role'] }>(
+    'SELECT id, name, email, role FROM users WHERE email = ?',
+    { type: QueryTypes.SELECT, replacements: [email] },
+  );
+  if (!row) throw new Error(`no account ${email}`);
+  return { id: Number(row.id), name: row.name, email: row.email, role: row.role, units: 'si' };
+}
+
+/** Row counts of the tables the cohort features write, to prove that a refusal changed nothing. */
+export async function tableCounts() {
+  const tables = ['users', 'cohorts', 'cohort_members', 'one_time_tokens', 'cohort_criteria', 'run_verdicts', 'captured_mail'];
+  const out: Record<string, number> = {};
+  for (const table of tables) out[table] = await count(`SELECT COUNT(*) AS n FROM ${table}`);
+  return out;
+}
+
+export async function mailTo(address: string) {
+  return sequelize.query<{ id: number; subject: string; text_body: string }>(
+    'SELECT id, subject, text_body FROM captured_mail WHERE FIND_IN_SET(?, envelope_to) ORDER BY id',
+    { type: QueryTypes.SELECT, replacements: [address.toLowerCase()] },
+  );
+}
