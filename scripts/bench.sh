@@ -7,6 +7,7 @@ source "$(dirname "$0")/setup.sh"
 export EVENLOAD_DB_DIR="${EVENLOAD_BENCH_DB_DIR:-$PWD/.data/mariadb-bench}"
 export DB_PORT="${EVENLOAD_BENCH_DB_PORT:-3309}"
 export DB_NAME="${EVENLOAD_BENCH_DB_NAME:-evenload_bench}"
+export SMTP_PORT="${EVENLOAD_BENCH_SMTP_PORT:-2527}"
 export EVENLOAD_BENCH_PORT="${EVENLOAD_BENCH_PORT:-3200}"
 export NEXTAUTH_URL="http://127.0.0.1:${EVENLOAD_BENCH_PORT}"
 evenload_setup
