@@ -23,6 +23,8 @@ export interface RunHeader {
 
 /** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */
 const READINGS_PER_INSERT = 5000;
+/** Readings per bulk (binary protocol) chunk. */
+const BULK_READINGS_PER_CHUNK = 20_000;
 
 const sqlNumber = (value: number | null | undefined): string => {
   if (value === null || value === undefined) return 'NULL';
@@ -61,21 +63,52 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   return Number(runId);
 }
 
+/** The driver connection a Sequelize transaction holds (mariadb's, with its binary bulk `batch`). */
+interface BulkConnection {
+  batch: (sql: string, values: unknown[][]) => Promise<unknown>;
+}
+
+function bulkConnectionOf(transaction: Transaction): BulkConnection | null {
+  const connection = (transaction as unknown as { connection?: Partial<BulkConnection> }).connection;
+  return connection && typeof connection.batch === 'function' ? (connection as BulkConnection) : null;
+}
+
+const finiteOrNull = (value: number | null | undefined): number | null => {
+  if (value === null || value === undefined) return null;
+  if (!Number.isFinite(value)) throw new AppError('invalid_input', `A value is not a finite number (${value}).`);
+  return value;
+};
+
 /**
  * Appends steps (and their readings) to an existing run, starting after `existingSteps` steps.
- * Used by storeRun and by the live stream.
+ * Used by storeRun and by the live stream. Rows go in with the driver's binary bulk protocol
+ * (mariadb `batch`, one round trip per chunk) on the transaction's own connection; where that is
+ * not available, with multi-row INSERT statements. Never row by row.
  */
 export async function appendSteps(runId: number, run: NormalisedRun, existingSteps: number, transaction: Transaction): Promise<void> {
   const steps = run.steps.slice(existingSteps);
-  for (let start = 0; start < steps.length; start += Math.max(1, Math.floor(READINGS_PER_INSERT / run.studCount))) {
-    const chunk = steps.slice(start, start + Math.max(1, Math.floor(READINGS_PER_INSERT / run.studCount)));
-    const stepValues = chunk
-      .map((s) => `(${runId},${sqlNumber(s.order)},${sqlNumber(s.pass)},${sqlNumber(s.position)},${sqlNumber(s.appliedTorqueNm)},${sqlNumber(s.appliedPressureBar)},${sqlNumber(s.timeS)})`)
-      .join(',');
-    await sequelize.query(
-      `INSERT INTO tightening_steps (run_id, step_order, pass_number, position, applied_torque_nm, applied_pressure_bar, time_s) VALUES ${stepValues}`,
-      { type: QueryTypes.INSERT, transaction },
-    );
+  const bulk = bulkConnectionOf(transaction);
+  await insertSteps(runId, run.studCount, steps, bulk, transaction);
+}
+
+async function insertSteps(runId: number, studCount: number, steps: NormalisedRun['steps'], bulk: BulkConnection | null, transaction: Transaction): Promise<void> {
+  const stepsPerChunk = Math.max(1, Math.floor((bulk ? BULK_READINGS_PER_CHUNK : READINGS_PER_INSERT) / studCount));
+  for (let start = 0; start < steps.length; start += stepsPerChunk) {
+    const chunk = steps.slice(start, start + stepsPerChunk);
+    if (bulk) {
+      await bulk.batch(
+        'INSERT INTO tightening_steps (run_id, step_order, pass_number, position, applied_torque_nm, applied_pressure_bar, time_s) VALUES (?,?,?,?,?,?,?)',
+        chunk.map((s) => [runId, s.order, s.pass, s.position, finiteOrNull(s.appliedTorqueNm), finiteOrNull(s.appliedPressureBar), finiteOrNull(s.timeS)]),
+      );
+    } else {
+      const stepValues = chunk
+        .map((s) => `(${runId},${sqlNumber(s.order)},${sqlNumber(s.pass)},${sqlNumber(s.position)},${sqlNumber(s.appliedTorqueNm)},${sqlNumber(s.appliedPressureBar)},${sqlNumber(s.timeS)})`)
+        .join(',');
+      await sequelize.query(
+        `INSERT INTO tightening_steps (run_id, step_order, pass_number, position, applied_torque_nm, applied_pressure_bar, time_s) VALUES ${stepValues}`,
+        { type: QueryTypes.INSERT, transaction },
+      );
+    }
     const first = chunk[0]!.order;
     const last = chunk[chunk.length - 1]!.order;
     const ids = await sequelize.query<{ id: number; step_order: number }>(
@@ -83,15 +116,24 @@ export async function appendSteps(runId: number, run: NormalisedRun, existingSte
       { type: QueryTypes.SELECT, transaction, replacements: [runId, first, last] },
     );
     const idByOrder = new Map(ids.map((row) => [Number(row.step_order), Number(row.id)]));
-    const readingValues: string[] = [];
-    for (const step of chunk) {
-      const stepId = idByOrder.get(step.order);
-      step.loadsN.forEach((load, index) => readingValues.push(`(${stepId},${index + 1},${runId},${sqlNumber(load)})`));
+    if (bulk) {
+      const rows: unknown[][] = [];
+      for (const step of chunk) {
+        const stepId = idByOrder.get(step.order);
+        step.loadsN.forEach((load, index) => rows.push([stepId, index + 1, runId, finiteOrNull(load)]));
+      }
+      await bulk.batch('INSERT INTO readings (step_id, position, run_id, load_n) VALUES (?,?,?,?)', rows);
+    } else {
+      const readingValues: string[] = [];
+      for (const step of chunk) {
+        const stepId = idByOrder.get(step.order);
+        step.loadsN.forEach((load, index) => readingValues.push(`(${stepId},${index + 1},${runId},${sqlNumber(load)})`));
+      }
+      await sequelize.query(`INSERT INTO readings (step_id, position, run_id, load_n) VALUES ${readingValues.join(',')}`, {
+        type: QueryTypes.INSERT,
+        transaction,
+      });
     }
-    await sequelize.query(`INSERT INTO readings (step_id, position, run_id, load_n) VALUES ${readingValues.join(',')}`, {
-      type: QueryTypes.INSERT,
-      transaction,
-    });
   }
 }
 
