@@ -1,7 +1,8 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
+import { decode } from 'next-auth/jwt';
+import { cookies } from 'next/headers';
 import { redirect } from 'next/navigation';
-import { authOptions } from './auth';
+import { authSecret } from './env';
 import { AppError } from './errors';
 import type { Role } from '@/models/user';
 
@@ -14,15 +15,28 @@ export interface SessionUser {
   units: 'si' | 'us';
 }
 
+/** next-auth's session cookie names (the __Secure- one behind https). */
+const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
+
+/**
+ * The signed-in person, read from the session JWT (next-auth's own cookie, decoded and verified
+ * with the signing secret). Reading the token directly, rather than through getServerSession, keeps
+ * every request light: nothing but the cookie is needed, on any instance.
+ */
 export async function getSessionUser(): Promise<SessionUser | null> {
-  const session = await getServerSession(authOptions);
-  if (!session?.user?.id) return null;
+  const store = await cookies();
+  const name = SESSION_COOKIES.find((cookie) => store.has(cookie));
+  const value = name ? store.get(name)?.value : undefined;
+  if (!value) return null;
+  const token = await decode({ token: value, secret: authSecret() }).catch(() => null);
+  if (!token?.uid || !token.role) return null;
+  if (typeof token.exp === 'number' && token.exp * 1000 < Date.now()) return null;
   return {
-    id: session.user.id,
-    name: session.user.name ?? '',
-    email: session.user.email ?? '',
-    role: session.user.role,
-    units: session.user.units,
+    id: token.uid,
+    name: token.name ?? '',
+    email: token.email ?? '',
+    role: token.role,
+    units: token.units ?? 'si',
   };
 }
 

@@ -6,7 +6,7 @@ import { compareGroups, type ComparisonResult, type GroupInput } from '../analys
 import { nutFactor } from '../stats/nut-factor';
 import type { SessionUser } from '../session';
 import { sequelize } from '@/models';
-import { operatorLabel, taughtCohortIds } from './scope';
+import { operatorLabel, runScopeSql } from './scope';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
 const idList = z
@@ -63,15 +63,6 @@ interface RunRowSql {
   drift_json: string | null;
 }
 
-/** Scope as SQL for a comparison (the same rule as runScope). */
-async function scopeSql(user: SessionUser): Promise<{ sql: string; params: unknown[] }> {
-  if (user.role === 'trainee') return { sql: 'r.operator_id = ?', params: [user.id] };
-  if (user.role === 'instructor') {
-    const cohorts = await taughtCohortIds(user);
-    return cohorts.length ? { sql: '(r.operator_id = ? OR r.cohort_id IN (?))', params: [user.id, cohorts] } : { sql: 'r.operator_id = ?', params: [user.id] };
-  }
-  return { sql: '1 = 1', params: [] };
-}
 
 /**
  * A comparison of groups of complete runs (set-aside runs are left out). One query reads the stored
@@ -115,7 +106,7 @@ export async function compareRunsJson(user: SessionUser, query: CompareQuery): P
 }
 
 async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ where: string[]; params: unknown[] }> {
-  const scope = await scopeSql(user);
+  const scope = await runScopeSql(user);
   const where = ["r.status = 'complete'", scope.sql];
   const params: unknown[] = [...scope.params];
   if (query.jointId) (where.push('r.joint_id = ?'), params.push(query.jointId));

@@ -4,10 +4,9 @@ import { z } from 'zod';
 import { sequelize } from '@/lib/db';
 import { neutraliseCsvCell } from '@/lib/ingest/export-csv';
 import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
-import { Cohort, Joint, Lubricant, Method, Run, User } from '@/models';
 import type { SessionUser } from '../session';
 import { operatorLabel } from './scope';
-import { runListQuerySchema, runListWhere } from './runs';
+import { runListFilterSql, runListQuerySchema, selectRunRows } from './runs';
 
 /** At most this many runs in one selection export; narrow the filters for more. */
 export const EXPORT_MAX_RUNS = 5000;
@@ -50,34 +49,21 @@ interface ReadingRow {
 }
 
 async function selectedRuns(user: SessionUser, query: z.infer<typeof runListQuerySchema>): Promise<RunMeta[]> {
-  const runs = await Run.findAll({
-    where: await runListWhere(user, query),
-    include: [
-      { model: Joint, as: 'joint', attributes: ['name'] },
-      { model: Method, as: 'method', attributes: ['name'] },
-      { model: Lubricant, as: 'lubricant', attributes: ['name'] },
-      { model: User, as: 'operator', attributes: ['id', 'name'] },
-      { model: Cohort, as: 'cohort', attributes: ['name'] },
-    ],
-    order: [['recordedAt', 'ASC'], ['id', 'ASC']],
-    limit: EXPORT_MAX_RUNS,
-  });
-  return runs.map((run) => {
-    const r = run as Run & { joint: Joint; method: Method; lubricant: Lubricant; operator: User; cohort: Cohort | null };
-    return {
-      id: r.id,
-      recordedAt: r.recordedAt.toISOString(),
-      joint: r.joint.name,
-      method: r.method.name,
-      lubricant: r.lubricant.name,
-      operator: operatorLabel(user, r.operator),
-      cohort: r.cohort?.name ?? '',
-      status: r.status,
-      source: r.source,
-      studCount: r.studCount,
-      targetLoadN: r.targetLoadN,
-    };
-  });
+  const filter = await runListFilterSql(user, query);
+  const runs = await selectRunRows(filter, 'r.recorded_at ASC, r.id ASC', EXPORT_MAX_RUNS);
+  return runs.map((r) => ({
+    id: r.id,
+    recordedAt: new Date(r.recorded_at).toISOString(),
+    joint: r.joint_name,
+    method: r.method_name,
+    lubricant: r.lubricant_name,
+    operator: operatorLabel(user, { id: r.operator_id, name: r.operator_name }),
+    cohort: r.cohort_name ?? '',
+    status: r.status,
+    source: r.source,
+    studCount: r.stud_count,
+    targetLoadN: r.target_load_n,
+  }));
 }
 
 async function* readingsOf(runIds: number[]): AsyncGenerator<ReadingRow[]> {

@@ -1,10 +1,10 @@
 import 'server-only';
-import { Op, type Order, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { Cohort, Joint, Lubricant, Method, Run, User } from '@/models';
+import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
 import { RUN_SOURCES, RUN_STATUSES } from '@/models/run';
 import type { SessionUser } from '../session';
-import { operatorLabel, runScope } from './scope';
+import { operatorLabel, runScope, runScopeSql } from './scope';
 
 const id = z.coerce.number().int().positive().max(2 ** 31);
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
@@ -55,62 +55,93 @@ export interface RunPage {
   pageSize: number;
 }
 
-/** The runs query's filters, scoped to this person (shared by the table and the selection export). */
-export async function runListWhere(user: SessionUser, query: Omit<RunListQuery, 'sort' | 'dir' | 'page' | 'pageSize'>): Promise<WhereOptions> {
-  const filters: WhereOptions[] = [await runScope(user)];
-  for (const key of ['methodId', 'lubricantId', 'cohortId', 'operatorId', 'jointId', 'source', 'status'] as const) {
+/** The runs query's filters, scoped to this person, as SQL on the alias `r` (shared by the table and the selection export). */
+export async function runListFilterSql(
+  user: SessionUser,
+  query: Omit<RunListQuery, 'sort' | 'dir' | 'page' | 'pageSize'>,
+): Promise<{ sql: string; params: unknown[] }> {
+  const scope = await runScopeSql(user);
+  const conditions = [scope.sql];
+  const params: unknown[] = [...scope.params];
+  const columns = { methodId: 'r.method_id', lubricantId: 'r.lubricant_id', cohortId: 'r.cohort_id', operatorId: 'r.operator_id', jointId: 'r.joint_id', source: 'r.source', status: 'r.status' } as const;
+  for (const [key, column] of Object.entries(columns) as [keyof typeof columns, string][]) {
     const value = query[key];
-    if (value !== undefined) filters.push({ [key]: value });
+    if (value !== undefined) (conditions.push(`${column} = ?`), params.push(value));
   }
-  if (query.from) filters.push({ recordedAt: { [Op.gte]: new Date(`${query.from}T00:00:00Z`) } });
-  if (query.to) filters.push({ recordedAt: { [Op.lt]: new Date(new Date(`${query.to}T00:00:00Z`).getTime() + 86_400_000) } });
-  return { [Op.and]: filters };
+  if (query.from) (conditions.push('r.recorded_at >= ?'), params.push(new Date(`${query.from}T00:00:00Z`)));
+  if (query.to) (conditions.push('r.recorded_at < ?'), params.push(new Date(new Date(`${query.to}T00:00:00Z`).getTime() + 86_400_000)));
+  return { sql: conditions.join(' AND '), params };
 }
 
+/**
+ * Run rows with their names, for raw queries. The page is cut from `runs` alone first (so MariaDB
+ * walks the recorded_at index and stops at the limit), and only those rows are joined to their names.
+ */
+export async function selectRunRows(filter: { sql: string; params: unknown[] }, orderBy: string, limit: number, offset = 0): Promise<RunRowSql[]> {
+  return sequelize.query<RunRowSql>(
+    `SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
+       j.name AS joint_name, m.name AS method_name, l.name AS lubricant_name, o.id AS operator_id, o.name AS operator_name, c.name AS cohort_name
+     FROM (SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
+             r.joint_id, r.method_id, r.lubricant_id, r.operator_id, r.cohort_id
+           FROM runs r WHERE ${filter.sql} ORDER BY ${orderBy} LIMIT ? OFFSET ?) r
+     JOIN joints j ON j.id = r.joint_id JOIN methods m ON m.id = r.method_id JOIN lubricants l ON l.id = r.lubricant_id
+     JOIN users o ON o.id = r.operator_id LEFT JOIN cohorts c ON c.id = r.cohort_id
+     ORDER BY ${orderBy}`,
+    { type: QueryTypes.SELECT, replacements: [...filter.params, limit, offset] },
+  );
+}
+
+export interface RunRowSql {
+  id: number;
+  recorded_at: Date;
+  stud_count: number;
+  source: string;
+  status: string;
+  pass_count: number;
+  target_load_n: number;
+  final_mean_n: number | null;
+  final_cv: number | null;
+  joint_name: string;
+  method_name: string;
+  lubricant_name: string;
+  operator_id: number;
+  operator_name: string;
+  cohort_name: string | null;
+}
+
+const SORT_COLUMNS: Record<RunListQuery['sort'], string> = { recordedAt: 'r.recorded_at', finalCv: 'r.final_cv', finalMeanN: 'r.final_mean_n', passCount: 'r.pass_count' };
+
+/**
+ * One page of the runs list, in two raw queries: the count on `runs` alone (every filter is on its
+ * columns) and the page with its names. Sort column and direction come from a fixed list.
+ */
 export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
-  const order: Order = [[query.sort, query.dir.toUpperCase()], ['id', 'DESC']];
-  const { rows, count } = await Run.findAndCountAll({
-    where: await runListWhere(user, query),
-    include: [
-      { model: Joint, as: 'joint', attributes: ['name'] },
-      { model: Method, as: 'method', attributes: ['name'] },
-      { model: Lubricant, as: 'lubricant', attributes: ['name'] },
-      { model: User, as: 'operator', attributes: ['id', 'name'] },
-      { model: Cohort, as: 'cohort', attributes: ['name'] },
-    ],
-    order,
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
+  const filter = await runListFilterSql(user, query);
+  const direction = query.dir === 'asc' ? 'ASC' : 'DESC';
+  const [counted, rows] = await Promise.all([
+    sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM runs r WHERE ${filter.sql}`, { type: QueryTypes.SELECT, replacements: filter.params }),
+    selectRunRows(filter, `${SORT_COLUMNS[query.sort]} ${direction}, r.id DESC`, query.pageSize, (query.page - 1) * query.pageSize),
+  ]);
   return {
-    total: count,
+    total: Number(counted[0]?.n ?? 0),
     page: query.page,
     pageSize: query.pageSize,
-    rows: rows.map((run) => {
-      const r = run as Run & {
-        joint: Joint;
-        method: Method;
-        lubricant: Lubricant;
-        operator: User;
-        cohort: Cohort | null;
-      };
-      return {
-        id: r.id,
-        recordedAt: r.recordedAt.toISOString(),
-        jointName: r.joint.name,
-        studCount: r.studCount,
-        methodName: r.method.name,
-        lubricantName: r.lubricant.name,
-        operatorName: operatorLabel(user, r.operator),
-        cohortName: r.cohort?.name ?? null,
-        source: r.source,
-        status: r.status,
-        passCount: r.passCount,
-        targetLoadN: r.targetLoadN,
-        finalMeanN: r.finalMeanN,
-        finalCv: r.finalCv,
-      };
-    }),
+    rows: rows.map((r) => ({
+      id: r.id,
+      recordedAt: new Date(r.recorded_at).toISOString(),
+      jointName: r.joint_name,
+      studCount: r.stud_count,
+      methodName: r.method_name,
+      lubricantName: r.lubricant_name,
+      operatorName: operatorLabel(user, { id: r.operator_id, name: r.operator_name }),
+      cohortName: r.cohort_name,
+      source: r.source,
+      status: r.status,
+      passCount: r.pass_count,
+      targetLoadN: r.target_load_n,
+      finalMeanN: r.final_mean_n,
+      finalCv: r.final_cv,
+    })),
   };
 }
 

@@ -32,3 +32,13 @@ export async function runScope(user: SessionUser): Promise<WhereOptions> {
 export function operatorLabel(viewer: SessionUser, operator: { id: number; name: string }): string {
   return viewer.role === 'researcher' && operator.id !== viewer.id ? pseudonymFor(operator.id) : operator.name;
 }
+
+/** The same rule as runScope, as an SQL condition on the alias `r` (for raw queries). */
+export async function runScopeSql(user: SessionUser): Promise<{ sql: string; params: unknown[] }> {
+  if (user.role === 'trainee') return { sql: 'r.operator_id = ?', params: [user.id] };
+  if (user.role === 'instructor') {
+    const cohorts = await taughtCohortIds(user);
+    return cohorts.length ? { sql: '(r.operator_id = ? OR r.cohort_id IN (?))', params: [user.id, cohorts] } : { sql: 'r.operator_id = ?', params: [user.id] };
+  }
+  return { sql: '1 = 1', params: [] };
+}
