@@ -16,6 +16,15 @@ export interface BadInput {
   message?: RegExp;
 }
 
+/** A multipart upload whose file is over the 20 MB limit (built lazily: 21 MB of text). */
+function oversizedUpload(): FormData {
+  const form = new FormData();
+  form.set('file', new Blob(['time_s,Stud 1\n', '0,1\n'.repeat(5.5 * 1024 * 1024)], { type: 'text/csv' }), 'huge.csv');
+  form.set('mapping', 'null');
+  form.set('header', '{}');
+  return form;
+}
+
 const sqlInjection = encodeURIComponent("1' OR '1'='1");
 const dropTable = encodeURIComponent('1; DROP TABLE runs; --');
 const script = encodeURIComponent('<script>alert(1)</script>');
@@ -65,6 +74,15 @@ export const BAD_INPUTS: BadInput[] = [
   { name: 'pass count absurd', method: 'GET', path: '/api/compare?passCount=999', as: 'researcher', status: 422, message: /passCount/ },
   { name: 'HTML in the comparison choice', method: 'GET', path: `/api/compare?by=${script}`, as: 'researcher', status: 422, message: /by/ },
   { name: 'compare as a trainee', method: 'GET', path: '/api/compare', as: 'trainee', status: 403, message: /role/ },
+  // POST /api/uploads: bodies that are not an upload
+  { name: 'upload sent as JSON', method: 'POST', path: '/api/uploads', as: 'instructor', status: 422, body: { file: 'wide.csv' }, message: /multipart/ },
+  { name: 'upload sent as malformed JSON', method: 'POST', path: '/api/uploads', as: 'trainee', status: 422, body: '{"file": ', headers: { 'content-type': 'application/json' }, message: /multipart/ },
+  { name: 'upload of a 21 MB file', method: 'POST', path: '/api/uploads', as: 'researcher', status: 413, body: oversizedUpload(), message: /20 MB/ },
+  { name: 'upload by an admin (not a recording role)', method: 'POST', path: '/api/uploads', as: 'admin', status: 403, body: {}, message: /role/ },
+  // POST /api/runs/:id/stream: the bridge endpoint
+  { name: 'stream without a token', method: 'POST', path: '/api/runs/{othersRun}/stream', as: 'anonymous', status: 401, body: '{"t":0,"stud":1,"load":1}\n' },
+  { name: 'stream with a made-up token', method: 'POST', path: '/api/runs/{othersRun}/stream', as: 'anonymous', status: 401, body: '{"t":0,"stud":1,"load":1}\n', headers: { authorization: 'Bearer not-a-real-token' } },
+  { name: 'stream with SQL in the token', method: 'POST', path: '/api/runs/{othersRun}/stream', as: 'anonymous', status: 401, body: '{"t":0', headers: { authorization: "Bearer ' OR '1'='1" } },
   // Verbs a route does not take, and bodies where none belongs
   { name: 'POST to the runs list', method: 'POST', path: '/api/runs', as: 'instructor', status: 405, body: { id: 1 } },
   { name: 'DELETE a run through the read route', method: 'DELETE', path: '/api/runs/{othersRun}', as: 'admin', status: 405 },

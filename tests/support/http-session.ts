@@ -30,13 +30,15 @@ function makeSession(baseUrl: string, cookie: string): HttpSession {
   return {
     cookie,
     get: (path) => fetch(`${baseUrl}${path}`, { headers: { cookie }, redirect: 'manual' }),
-    send: (method, path, body, headers = {}) =>
-      fetch(`${baseUrl}${path}`, {
+    send: (method, path, body, headers = {}) => {
+      const raw = body === undefined || typeof body === 'string' || body instanceof FormData;
+      return fetch(`${baseUrl}${path}`, {
         method,
         redirect: 'manual',
-        headers: { cookie, ...(body !== undefined && typeof body !== 'string' ? { 'content-type': 'application/json' } : {}), ...headers },
-        body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
-      }),
+        headers: { cookie, ...(raw ? {} : { 'content-type': 'application/json' }), ...headers },
+        body: body === undefined ? undefined : raw ? (body as string | FormData) : JSON.stringify(body),
+      });
+    },
   };
 }
 
