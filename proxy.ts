@@ -19,5 +19,5 @@ export async function proxy(request: NextRequest) {
 
 export const config = {
   // Public: sign-in, the invitation and reset links, the forgot-password form and the dev outbox.
-  matcher: ['/((?!api|_next|fonts|favicon.ico|sign-in|welcome|reset|forgot-password|dev/outbox|robots.txt).*)'],
+  matcher: ['/((?!api|_next|fonts|favicon.ico|sign-in|welcome|reset|forgot-password|dev/outbox|icon.svg|robots.txt).*)'],
 };

@@ -1,5 +1,6 @@
 import type { PlotOptions } from '@observablehq/plot';
 import * as Plot from '@observablehq/plot';
+import { GROUP_COLOURS } from './palette';
 
 export interface ProgressPoint {
   attempt: number;
@@ -29,13 +30,12 @@ export function progressChartOptions(points: readonly ProgressPoint[], limits: {
     ...(limits.bandPercent !== null ? [{ y: limits.bandPercent, label: `Band ±${limits.bandPercent} %` }] : []),
   ];
   return {
-    title: 'Your evenness over attempts',
     width,
     height: 320,
     marginLeft: 56,
     x: { label: 'Attempt (number)', tickFormat: 'd', ticks: Math.min(points.length, 12), domain: [0.5, Math.max(1, points.length) + 0.5] },
     y: { label: 'Percent (%)', grid: true, zero: true },
-    color: { domain: ['CV of final loads', 'Largest deviation from target'], range: ['var(--el-below)', 'var(--el-above)'], legend: true },
+    color: { domain: ['CV of final loads', 'Largest deviation from target'], range: [GROUP_COLOURS[0], GROUP_COLOURS[3]], legend: true },
     marks: [
       Plot.ruleY(rules, { y: 'y', stroke: 'var(--el-muted)', strokeDasharray: '4 3' }),
       Plot.text(rules, { y: 'y', text: 'label', frameAnchor: 'right', textAnchor: 'end', dy: -7, fill: 'var(--el-muted)' }),

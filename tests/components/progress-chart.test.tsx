@@ -15,9 +15,14 @@ describe('progress chart', () => {
     expect(data.filter((d) => d.measure === 'CV of final loads').map((d) => d.attempt)).toEqual([1, 3]);
   });
 
-  it('has a title, axis labels with units, and renders without Plot warnings', () => {
+  it('has axis labels with units, keeps the deviation hues for deviation only, and renders without Plot warnings', () => {
     const options = progressChartOptions(points, { cvPercent: 5, bandPercent: 10 });
-    expect(options.title).toBe('Your evenness over attempts');
+    // The visible title is the figure's (components/charts/progress-chart.tsx), not a second one inside the plot.
+    expect(options.title).toBeUndefined();
+    // Below/above-target hues mean load deviation on every screen (PRODUCT.md): the two measures take group colours.
+    const range = (options.color as { range: string[] }).range;
+    expect(range).not.toContain('var(--el-below)');
+    expect(range).not.toContain('var(--el-above)');
     expect((options.x as { label: string }).label).toBe('Attempt (number)');
     expect((options.y as { label: string }).label).toBe('Percent (%)');
     const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
