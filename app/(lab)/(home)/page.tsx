@@ -40,7 +40,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
               <tbody className="num">
                 {summary.cohorts.map((c) => (
                   <tr key={c.id} className="border-t border-rule">
-                    <td className="py-1.5"><Link className="underline decoration-rule underline-offset-4" href={`/runs?cohortId=${c.id}`}>{c.name}</Link></td>
+                    <td className="py-1.5"><Link className="underline decoration-rule underline-offset-4" href={`/cohorts/${c.id}`}>{c.name}</Link></td>
                     <td>{c.site}</td><td>{formatDate(c.startsOn)} – {formatDate(c.endsOn)}</td>
                     <td className="text-right">{c.members}</td><td className="text-right">{c.runs}</td>
                   </tr>

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { ExportPanel } from '@/components/runs/export-panel';
 import { RunsTable } from '@/components/runs/runs-table';
 import { runFilterOptions } from '@/lib/data/runs';
 import { requirePageUser } from '@/lib/session';
@@ -22,6 +23,7 @@ export default async function RunsPage() {
         <p className="text-sm text-muted">{scopeNote} Choose a row to open its report.</p>
       </div>
       <RunsTable options={options} units={user.units} />
+      <ExportPanel units={user.units} research={user.role === 'researcher' || user.role === 'admin'} />
     </div>
   );
 }
