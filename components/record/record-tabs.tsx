@@ -5,6 +5,7 @@ import type { RecordOptions } from '@/lib/data/record';
 import type { StreamTokenRow } from '@/lib/data/stream-tokens';
 import { ManualGrid } from './manual-grid';
 import { RunHeaderFields, type HeaderErrors, type HeaderState } from './run-header-fields';
+import { SimulatePanel } from './simulate-panel';
 import { StreamPanel } from './stream-panel';
 import { UploadPanel } from './upload-panel';
 
@@ -12,6 +13,7 @@ const TABS = [
   { key: 'upload', label: 'Upload a file' },
   { key: 'manual', label: 'Enter by hand' },
   { key: 'stream', label: 'Stream live' },
+  { key: 'simulate', label: 'Simulate' },
 ] as const;
 type TabKey = (typeof TABS)[number]['key'];
 
@@ -72,6 +74,7 @@ export function RecordTabs({ options, tokens, recordings, user }: { options: Rec
       <div id={`record-panel-${tab}`} role="tabpanel" aria-labelledby={`record-tab-${tab}`} className="rounded-card border border-rule bg-panel p-4">
         {tab === 'upload' && joint ? <UploadPanel joint={joint} header={header} rememberedMappings={options.rememberedMappings} onHeaderErrors={setErrors} units={user.units} /> : null}
         {tab === 'manual' && joint && method ? <ManualGrid key={`${joint.id}-${method.id}`} joint={joint} method={method} header={header} onHeaderErrors={setErrors} units={user.units} /> : null}
+        {tab === 'simulate' ? <SimulatePanel header={header} onHeaderErrors={setErrors} /> : null}
         {tab === 'stream' && joint ? <StreamPanel joint={joint} joints={options.joints} header={header} tokens={tokens} recordings={recordings} onHeaderErrors={setErrors} canManageTokens={user.role === 'instructor'} units={user.units} /> : null}
       </div>
     </div>

@@ -1,3 +1,5 @@
+import type { BoxStats as BoxSummary } from '../charts/box-stats';
+
 /**
  * The computed figures of one run as the run report, the classroom and the charts receive them
  * (plain objects, safe to send to the client). Loads in newtons; percentages as numbers (5 = 5 %);
@@ -69,17 +71,8 @@ export interface RunAnalysis {
   figures: RunFigures;
 }
 
-/** A box-and-whisker summary (R-7 quartiles, whiskers at 1.5 IQR; see lib/charts/box-stats.ts). */
-export interface BoxSummary {
-  n: number;
-  q1: number;
-  median: number;
-  q3: number;
-  iqr: number;
-  lowerWhisker: number;
-  upperWhisker: number;
-  outliers: number[];
-}
+/** A box-and-whisker summary (R-7 quartiles, whiskers at 1.5 IQR): the chart layer's BoxStats. */
+export type { BoxStats as BoxSummary } from '../charts/box-stats';
 
 /** One group of a comparison (a method, lubricant, cohort, trainee or a hand-picked set). */
 export interface ComparisonGroupData {

@@ -7,6 +7,7 @@ import { createStreamToken, revokeStreamToken } from '@/lib/data/stream-tokens';
 import { isAppError } from '@/lib/errors';
 import { finishRecording, startRecording } from '@/lib/runs/live-stream';
 import { saveManualRun } from '@/lib/runs/manual-run';
+import { saveSimulatedRun } from '@/lib/runs/simulated-run';
 import type { RecordActionState } from '@/lib/record/action-state';
 import { assertRole, getSessionUser } from '@/lib/session';
 
@@ -41,6 +42,19 @@ export async function saveManualRunAction(_prev: RecordActionState, formData: Fo
     revalidatePath('/runs');
     revalidatePath('/record');
     return { ok: true, message: `Saved run ${runId} with ${stepCount} steps.`, errors: {}, runId };
+  } catch (error) {
+    return failure(error);
+  }
+}
+
+/** Simulates one run of the header's joint, method and lubricant and saves it (source simulated). */
+export async function saveSimulatedRunAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
+  try {
+    const user = await getSessionUser();
+    assertRole(user, RECORD_ROLES);
+    const { runId, stepCount } = await saveSimulatedRun(user, payloadOf(formData));
+    revalidatePath('/runs');
+    return { ok: true, message: `Simulated and saved run ${runId} with ${stepCount} steps.`, errors: {}, runId };
   } catch (error) {
     return failure(error);
   }

@@ -1,0 +1,63 @@
+import { QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sequelize } from '@/lib/db';
+import { saveSimulatedRun } from '@/lib/runs/simulated-run';
+import type { SessionUser } from '@/lib/session';
+import { DEMO_ACCOUNTS } from '../support/http-session';
+import { count, sessionUserFor } from './support';
+
+// "Simulate" on /record: one simulated run of the chosen joint/method/lubricant, stored like any
+// other run. Expected values come from the simulator's own contract (lib/sim/MODEL.md): same seed,
+// same run; one step per stud per pass plus the check passes.
+let trainee: SessionUser;
+let other: SessionUser;
+let ids: { joint: number; method: number; lubricant: number; studs: number; passes: number; checks: number };
+const created: number[] = [];
+
+beforeAll(async () => {
+  trainee = await sessionUserFor(DEMO_ACCOUNTS.trainee);
+  other = await sessionUserFor(DEMO_ACCOUNTS.researcher);
+  const [row] = await sequelize.query<{ joint: number; studs: number; method: number; passes: string; checks: number; lubricant: number }>(
+    `SELECT j.id AS joint, j.stud_count AS studs, m.id AS method, m.passes, m.check_passes AS checks, (SELECT id FROM lubricants ORDER BY id LIMIT 1) AS lubricant
+     FROM joints j JOIN methods m ON m.name LIKE 'Three cross passes%' WHERE j.stud_count = 8 ORDER BY j.id, m.id LIMIT 1`,
+    { type: QueryTypes.SELECT },
+  );
+  const passes = (typeof row!.passes === 'string' ? JSON.parse(row!.passes) : row!.passes) as unknown[];
+  ids = { joint: row!.joint, method: row!.method, lubricant: row!.lubricant, studs: row!.studs, passes: passes.length, checks: row!.checks };
+});
+
+afterAll(async () => {
+  if (created.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [created] });
+  await sequelize.close();
+});
+
+const input = (operatorId: number, seed: unknown) => ({
+  header: { jointId: ids.joint, methodId: ids.method, lubricantId: ids.lubricant, operatorId, cohortId: null, recordedAt: '2026-12-01T10:00', notes: null },
+  gasket: 'medium',
+  seed,
+});
+
+describe('saveSimulatedRun', () => {
+  it('stores a simulated run with one step per stud per pass, and the same seed gives the same final loads', async () => {
+    const first = await saveSimulatedRun(trainee, input(trainee.id, 4242));
+    const second = await saveSimulatedRun(trainee, input(trainee.id, 4242));
+    created.push(first.runId, second.runId);
+    expect(first.stepCount).toBe(ids.studs * (ids.passes + ids.checks));
+    const rows = await sequelize.query<{ source: string; final_loads_json: string; operator_id: number }>('SELECT source, final_loads_json, operator_id FROM runs WHERE id IN (?) ORDER BY id', {
+      type: QueryTypes.SELECT,
+      replacements: [[first.runId, second.runId]],
+    });
+    expect(rows.map((r) => r.source)).toEqual(['simulated', 'simulated']);
+    expect(rows[0]!.operator_id).toBe(trainee.id);
+    expect(rows[0]!.final_loads_json).toBe(rows[1]!.final_loads_json);
+    expect(await count('SELECT COUNT(*) AS n FROM readings WHERE run_id = ?', [first.runId])).toBe(first.stepCount * ids.studs);
+  });
+
+  it('refuses a trainee recording as someone else, and a bad seed, writing nothing', async () => {
+    const before = await count('SELECT COUNT(*) AS n FROM runs');
+    await expect(saveSimulatedRun(trainee, input(other.id, 7))).rejects.toMatchObject({ code: 'forbidden' });
+    await expect(saveSimulatedRun(trainee, input(trainee.id, 'abc'))).rejects.toMatchObject({ code: 'invalid_input' });
+    await expect(saveSimulatedRun(trainee, { ...input(trainee.id, 7), gasket: 'rubber' })).rejects.toMatchObject({ code: 'invalid_input' });
+    expect(await count('SELECT COUNT(*) AS n FROM runs')).toBe(before);
+  });
+});
