@@ -1,12 +1,12 @@
 'use client';
 
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import useSWR from 'swr';
 import { formatNumber, formatPercent } from '@/lib/calc/units';
 import type { CompareResponse } from '@/lib/data/compare';
 import type { RunFilterOptions } from '@/lib/data/runs';
 import { fetchJson } from '@/lib/fetch-json';
 import { groupColour } from '@/lib/charts/palette';
+import { useUrlState } from '../ui/use-url-state';
 import { CompareCharts } from './compare-charts';
 
 const BY_CHOICES = [
@@ -20,9 +20,7 @@ const BY_CHOICES = [
 const formatP = (p: number) => (p < 0.001 ? '< 0.001' : formatNumber(p, 2));
 
 export function CompareView({ options }: { options: RunFilterOptions }) {
-  const router = useRouter();
-  const pathname = usePathname();
-  const params = useSearchParams();
+  const { params, update } = useUrlState();
   const by = (params.get('by') ?? 'method') as (typeof BY_CHOICES)[number]['key'];
   const ids = (params.get('ids') ?? '').split(',').filter(Boolean);
   const query = params.toString();
@@ -30,16 +28,6 @@ export function CompareView({ options }: { options: RunFilterOptions }) {
   const { data, error, isLoading } = useSWR<CompareResponse>(key, fetchJson, { keepPreviousData: true });
   const choice = BY_CHOICES.find((c) => c.key === by) ?? BY_CHOICES[0];
   const groupOptions = choice.option ? options[choice.option] : [];
-
-  function update(changes: Record<string, string | null>) {
-    const next = new URLSearchParams(params.toString());
-    for (const [name, value] of Object.entries(changes)) {
-      if (value === null || value === '') next.delete(name);
-      else next.set(name, value);
-    }
-    const text = next.toString();
-    router.replace(`${pathname}${text ? `?${text}` : ''}`, { scroll: false });
-  }
 
   function toggleGroup(id: string) {
     const set = new Set(ids);

@@ -1,12 +1,12 @@
 'use client';
 
 import Link from 'next/link';
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import useSWR from 'swr';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RunFilterOptions, RunPage } from '@/lib/data/runs';
 import { fetchJson } from '@/lib/fetch-json';
 import { formatDateTime } from '@/lib/format-date';
+import { useUrlState } from '../ui/use-url-state';
 
 const FILTERS = [
   { key: 'methodId', label: 'Method', option: 'methods' },
@@ -26,27 +26,16 @@ const SORTS = [
 const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
 
 export function RunsTable({ options, units }: { options: RunFilterOptions; units: 'si' | 'us' }) {
-  const router = useRouter();
-  const pathname = usePathname();
-  const params = useSearchParams();
+  const { params, update: setParam } = useUrlState(['page']);
   const query = params.toString();
   const { data, error, isLoading } = useSWR<RunPage>(`/api/runs${query ? `?${query}` : ''}`, fetchJson, { keepPreviousData: true });
-
-  function setParam(changes: Record<string, string | null>) {
-    const next = new URLSearchParams(params.toString());
-    for (const [key, value] of Object.entries(changes)) {
-      if (value === null || value === '') next.delete(key);
-      else next.set(key, value);
-    }
-    if (!('page' in changes)) next.delete('page');
-    const text = next.toString();
-    router.replace(`${pathname}${text ? `?${text}` : ''}`, { scroll: false });
-  }
 
   const sort = params.get('sort') ?? 'recordedAt';
   const dir = params.get('dir') ?? 'desc';
   const page = Number(params.get('page') ?? '1');
   const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
+
+  const ariaSort = (key: string) => (sort === key ? (dir === 'asc' ? 'ascending' : 'descending') : undefined);
 
   function sortBy(key: string) {
     setParam({ sort: key, dir: sort === key && dir === 'desc' ? 'asc' : 'desc' });
@@ -84,15 +73,15 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
         <table className="w-full text-sm">
           <thead className="bg-rule/40 text-left">
             <tr>
-              <th className="px-3 py-2"><SortButton label="Recorded" active={sort === 'recordedAt'} dir={dir} onClick={() => sortBy('recordedAt')} /></th>
+              <th aria-sort={ariaSort('recordedAt')} className="px-3 py-2"><SortButton label="Recorded" active={sort === 'recordedAt'} dir={dir} onClick={() => sortBy('recordedAt')} /></th>
               <th className="px-3 py-2">Operator</th>
               <th className="px-3 py-2">Joint</th>
               <th className="px-3 py-2">Method</th>
               <th className="px-3 py-2">Lubricant</th>
               <th className="px-3 py-2">Cohort</th>
-              <th className="px-3 py-2 text-right"><SortButton label="Passes" active={sort === 'passCount'} dir={dir} onClick={() => sortBy('passCount')} /></th>
-              <th className="px-3 py-2 text-right"><SortButton label="Mean final load" active={sort === 'finalMeanN'} dir={dir} onClick={() => sortBy('finalMeanN')} /></th>
-              <th className="px-3 py-2 text-right"><SortButton label="CV" active={sort === 'finalCv'} dir={dir} onClick={() => sortBy('finalCv')} /></th>
+              <th aria-sort={ariaSort('passCount')} className="px-3 py-2 text-right"><SortButton label="Passes" active={sort === 'passCount'} dir={dir} onClick={() => sortBy('passCount')} /></th>
+              <th aria-sort={ariaSort('finalMeanN')} className="px-3 py-2 text-right"><SortButton label="Mean final load" active={sort === 'finalMeanN'} dir={dir} onClick={() => sortBy('finalMeanN')} /></th>
+              <th aria-sort={ariaSort('finalCv')} className="px-3 py-2 text-right"><SortButton label="CV" active={sort === 'finalCv'} dir={dir} onClick={() => sortBy('finalCv')} /></th>
               <th className="px-3 py-2">Status</th>
             </tr>
           </thead>
@@ -130,7 +119,7 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
 
 function SortButton({ label, active, dir, onClick }: { label: string; active: boolean; dir: string; onClick: () => void }) {
   return (
-    <button type="button" onClick={onClick} aria-sort={active ? (dir === 'asc' ? 'ascending' : 'descending') : undefined} className="font-semibold">
+    <button type="button" onClick={onClick} className="font-semibold">
       {label}{active ? (dir === 'asc' ? ' ▲' : ' ▼') : ''}
     </button>
   );

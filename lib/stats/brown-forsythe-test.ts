@@ -1,7 +1,4 @@
-import { StatsError } from './stats-error';
-import { assertGroups } from './internal/assert-groups';
-import { absoluteDeviationAnova } from './internal/absolute-deviation-anova';
-import { fUpperTail } from './f-upper-tail';
+import { leveneTypeTest } from './internal/absolute-deviation-anova';
 import type { LeveneTypeResult } from './levene-test';
 
 /**
@@ -21,21 +18,5 @@ import type { LeveneTypeResult } from './levene-test';
  * brownForsytheTest(gearDiametersByBatch).statistic; // 1.7059176930008935 (GEAR.DAT; scipy levene center='median')
  */
 export function brownForsytheTest(groups: readonly (readonly number[])[]): LeveneTypeResult {
-  assertGroups('brownForsytheTest', groups, 2, 2);
-  let a;
-  try {
-    a = absoluteDeviationAnova(groups, 'median');
-  } catch (e) {
-    if (e instanceof StatsError) throw new StatsError('brownForsytheTest requires some variation in the absolute deviations');
-    throw e;
-  }
-  return {
-    kind: 'brownForsytheTest',
-    statistic: a.statistic,
-    dfBetween: a.dfBetween,
-    dfWithin: a.dfWithin,
-    pValue: fUpperTail(a.statistic, a.dfBetween, a.dfWithin),
-    groupCount: a.groupCount,
-    n: a.n,
-  };
+  return leveneTypeTest('brownForsytheTest', groups, 'median');
 }

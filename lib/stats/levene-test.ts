@@ -1,7 +1,4 @@
-import { StatsError } from './stats-error';
-import { assertGroups } from './internal/assert-groups';
-import { absoluteDeviationAnova } from './internal/absolute-deviation-anova';
-import { fUpperTail } from './f-upper-tail';
+import { leveneTypeTest } from './internal/absolute-deviation-anova';
 
 /** Result of {@link leveneTest} and (with kind 'brownForsytheTest') of `brownForsytheTest`. */
 export interface LeveneTypeResult {
@@ -32,21 +29,5 @@ export interface LeveneTypeResult {
  * leveneTest([[1, 2, 3], [2, 4, 6]]).statistic; // 0.8 (scipy.stats.levene([1,2,3],[2,4,6], center='mean') = 0.7999999999999997)
  */
 export function leveneTest(groups: readonly (readonly number[])[]): LeveneTypeResult {
-  assertGroups('leveneTest', groups, 2, 2);
-  let a;
-  try {
-    a = absoluteDeviationAnova(groups, 'mean');
-  } catch (e) {
-    if (e instanceof StatsError) throw new StatsError('leveneTest requires some variation in the absolute deviations');
-    throw e;
-  }
-  return {
-    kind: 'leveneTest',
-    statistic: a.statistic,
-    dfBetween: a.dfBetween,
-    dfWithin: a.dfWithin,
-    pValue: fUpperTail(a.statistic, a.dfBetween, a.dfWithin),
-    groupCount: a.groupCount,
-    n: a.n,
-  };
+  return leveneTypeTest('leveneTest', groups, 'mean');
 }

@@ -1,6 +1,10 @@
 import { median } from 'simple-statistics';
-import { oneWayAnova, type OneWayAnovaResult } from '../one-way-anova';
+import { fUpperTail } from '../f-upper-tail';
+import type { LeveneTypeResult } from '../levene-test';
 import { mean } from '../mean';
+import { oneWayAnova, type OneWayAnovaResult } from '../one-way-anova';
+import { StatsError } from '../stats-error';
+import { assertGroups } from './assert-groups';
 
 /**
  * The core of Levene-type tests: one-way ANOVA on zᵢⱼ = |yᵢⱼ − cᵢ| where cᵢ is the group mean
@@ -20,4 +24,34 @@ export function absoluteDeviationAnova(
     return g.map((v) => Math.abs(v - c));
   });
   return oneWayAnova(deviations);
+}
+
+/**
+ * Levene (`centre` 'mean') and Brown–Forsythe ('median') share everything but the centre: validate
+ * under the caller's name, run `absoluteDeviationAnova`, and take p from `fUpperTail`.
+ * @throws {StatsError} `<name> requires at least two groups`, too few values, non-finite values,
+ *   `<name> requires some variation in the absolute deviations`.
+ */
+export function leveneTypeTest(
+  name: 'leveneTest' | 'brownForsytheTest',
+  groups: readonly (readonly number[])[],
+  centre: 'mean' | 'median',
+): LeveneTypeResult {
+  assertGroups(name, groups, 2, 2);
+  let a: OneWayAnovaResult;
+  try {
+    a = absoluteDeviationAnova(groups, centre);
+  } catch (e) {
+    if (e instanceof StatsError) throw new StatsError(`${name} requires some variation in the absolute deviations`);
+    throw e;
+  }
+  return {
+    kind: name,
+    statistic: a.statistic,
+    dfBetween: a.dfBetween,
+    dfWithin: a.dfWithin,
+    pValue: fUpperTail(a.statistic, a.dfBetween, a.dfWithin),
+    groupCount: a.groupCount,
+    n: a.n,
+  };
 }

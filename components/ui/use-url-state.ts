@@ -1,0 +1,25 @@
+'use client';
+
+import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+
+/**
+ * State that lives in the address bar (so a view can be bookmarked and shared): the current search
+ * params, and `update` to set or clear some of them. Keys in `resetOnChange` (such as the page
+ * number) are cleared whenever anything else changes.
+ */
+export function useUrlState(resetOnChange: readonly string[] = []) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const params = useSearchParams();
+  function update(changes: Record<string, string | null>) {
+    const next = new URLSearchParams(params.toString());
+    for (const [key, value] of Object.entries(changes)) {
+      if (value === null || value === '') next.delete(key);
+      else next.set(key, value);
+    }
+    for (const key of resetOnChange) if (!(key in changes)) next.delete(key);
+    const text = next.toString();
+    router.replace(`${pathname}${text ? `?${text}` : ''}`, { scroll: false });
+  }
+  return { params, update };
+}
