@@ -13,6 +13,11 @@ export NEXTAUTH_URL="http://127.0.0.1:${EVENLOAD_TEST_PORT}"
 # The tests' own mail fake port (2526 unless set), so it never mixes with `npm start`'s on 2525.
 export SMTP_PORT="${EVENLOAD_TEST_SMTP_PORT:-${SMTP_PORT:-2526}}"
 evenload_setup
+# Stop the test database and the mail fake when the tests end (set EVENLOAD_KEEP_TEST_SERVICES=1 to
+# keep them for a quick rerun), so the test ports are free for the next run or another checkout.
+if [ "${EVENLOAD_KEEP_TEST_SERVICES:-0}" != "1" ]; then
+  trap 'evenload_mail_fake_stop; bash scripts/db.sh stop >/dev/null 2>&1 || true' EXIT
+fi
 # The test database holds the same invented demo scenario; tests add and remove their own rows.
 npx tsx scripts/migrate.ts seed >&2
 
