@@ -13,6 +13,8 @@
 import { AppError } from '@/lib/errors';
 
 /** Load units a logger file may use. `microstrain` needs E, stress area and calibration. */
+import { N_PER_LBF, NM_PER_FTLB } from '../calc/units';
+
 export const LOAD_UNITS = ['N', 'kN', 'lbf', 'kip', 'microstrain'] as const;
 /** A load unit a logger file may use. */
 export type LoadUnit = (typeof LOAD_UNITS)[number];
@@ -22,12 +24,12 @@ export const TORQUE_UNITS = ['N·m', 'ft-lb'] as const;
 /** A torque unit a logger file may use. */
 export type TorqueUnit = (typeof TORQUE_UNITS)[number];
 
-/** Newtons in one pound-force, exact by definition (see the module note for the source). */
-export const NEWTONS_PER_LBF = 4.4482216152605;
+/** Newtons in one pound-force, exact by definition (the app's one constant, lib/calc/units.ts). */
+export const NEWTONS_PER_LBF = N_PER_LBF;
 /** Newtons in one kip (1000 lbf). */
 export const NEWTONS_PER_KIP = 1000 * NEWTONS_PER_LBF;
-/** N·m in one foot-pound (ft·lbf), computed from the exact foot and pound-force. */
-export const NM_PER_FT_LB = 1.3558179483314004;
+/** N·m in one foot-pound (ft·lbf), computed from the exact foot and pound-force (lib/calc/units.ts). */
+export const NM_PER_FT_LB = NM_PER_FTLB;
 
 /** What microstrain conversion needs: the caller's E, stress area and the position's factor. */
 export interface StrainConversion {

@@ -1,3 +1,5 @@
+import { inchTensileStressAreaIn2 } from '@/lib/calc/thread';
+import { N_PER_LBF } from '@/lib/calc/units';
 import type { NormalisedRun } from '@/lib/run-types';
 import { SimInputError } from './errors';
 import { circularOrder, crossPatternOrder } from './patterns';
@@ -136,11 +138,12 @@ export interface DemoScenario {
 }
 
 /** lbf → N (exact definition of the pound-force: 0.45359237 kg × 9.80665 m/s²). */
-const NEWTONS_PER_LBF = 4.4482216152605;
+const NEWTONS_PER_LBF = N_PER_LBF;
 const METRES_PER_INCH = 0.0254;
 
 /**
- * Tensile stress area of a Unified inch thread, As = 0.7854 (D − 0.9743/n)² in in²
+ * Tensile stress area of a Unified inch thread, As = 0.7854 (D − 0.9743/n)² in in², from lib/calc
+ * (guarded here so the demo scenario fails loudly on an impossible thread)
  * (REFERENCE.md §1, ASME B1.1 ✓ [EE-B1.1]).
  *
  * @throws {SimInputError} when D or n is not positive, or the thread is impossible (D ≤ 0.9743/n).
@@ -150,7 +153,7 @@ export function tensileStressAreaIn2(diameterIn: number, threadsPerInch: number)
   if (!(diameterIn > 0) || !(threadsPerInch > 0) || diameterIn <= 0.9743 / threadsPerInch) {
     throw new SimInputError('tensileStressAreaIn2 requires a positive diameter larger than 0.9743/n and positive threads per inch');
   }
-  return 0.7854 * (diameterIn - 0.9743 / threadsPerInch) ** 2;
+  return inchTensileStressAreaIn2(diameterIn, threadsPerInch);
 }
 
 /** Turns a demo method into the simulator's method for a given stud count. */
