@@ -1,13 +1,13 @@
 import { getToken } from 'next-auth/jwt';
 import { NextResponse, type NextRequest } from 'next/server';
+import { authSecret } from './lib/env';
 
 /**
  * Optimistic redirect only: signed-out visitors of app pages go to /sign-in. The real checks sit in
  * lib/data, every server action and every route handler (API routes answer 401 themselves).
  */
 export async function proxy(request: NextRequest) {
-  const secret = process.env.NEXTAUTH_SECRET ?? 'evenload-local-development-secret-not-for-production';
-  const token = await getToken({ req: request, secret });
+  const token = await getToken({ req: request, secret: authSecret() });
   if (!token) {
     const url = request.nextUrl.clone();
     url.pathname = '/sign-in';

@@ -25,7 +25,8 @@ import {
   type UnitSystem,
 } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
-import { CONTROL_CLASS, NumberField, parseNumberText } from './number-field';
+import { SelectField } from '../ui/form-fields';
+import { NumberField, parseNumberText } from './number-field';
 
 /**
  * The calculator page body: stud and grade, target preload, torque by the short and long forms,
@@ -196,7 +197,7 @@ export function CalculatorForm() {
         </fieldset>
 
         <Section title="Stud">
-          <SelectField label="Thread" value={threadId} onChange={chooseThread}>
+          <SelectField label="Thread" value={threadId} onChange={chooseThread} className="max-w-full">
             <optgroup label="Inch (UNC, and 8UN from 1 in)">
               {STANDARD_THREADS.filter((t) => t.spec.system === 'inch').map((t) => (
                 <option key={t.id} value={t.id}>
@@ -278,7 +279,7 @@ export function CalculatorForm() {
             </div>
           ) : null}
 
-          <SelectField label="Stud grade" value={grade} onChange={(v) => setGrade(v as GradeId)} error={errors.grade}>
+          <SelectField label="Stud grade" value={grade} onChange={(v) => setGrade(v as GradeId)} errors={errors.grade} className="max-w-full">
             {GRADES.map((g) => (
               <option key={g.id} value={g.id}>
                 {g.label}
@@ -340,7 +341,7 @@ export function CalculatorForm() {
         </Section>
 
         <Section title="Torque">
-          <SelectField label="Lubricant or finish" value={kChoice} onChange={chooseK}>
+          <SelectField label="Lubricant or finish" value={kChoice} onChange={chooseK} className="max-w-full">
             {NUT_FACTOR_SUGGESTIONS.map((s) => (
               <option key={s.id} value={s.id}>
                 {s.label}: K {s.quoted}
@@ -402,7 +403,7 @@ export function CalculatorForm() {
         </Section>
 
         <Section title="Hydraulic tensioner">
-          <SelectField label="Load transfer factor" value={ltfMode} onChange={(v) => setLtfMode(v as LtfMode)}>
+          <SelectField label="Load transfer factor" value={ltfMode} onChange={(v) => setLtfMode(v as LtfMode)} className="max-w-full">
             {LTF_RULES.map((r) => (
               <option key={r.id} value={r.id}>
                 {r.label}
@@ -454,44 +455,6 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
       <legend className="px-1 text-base font-semibold text-ink">{title}</legend>
       {children}
     </fieldset>
-  );
-}
-
-function SelectField({
-  label,
-  value,
-  onChange,
-  error,
-  children,
-}: {
-  label: string;
-  value: string;
-  onChange: (value: string) => void;
-  error?: string;
-  children: ReactNode;
-}) {
-  const id = useId();
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-      </label>
-      <select
-        id={id}
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className={`max-w-full ${CONTROL_CLASS}`}
-      >
-        {children}
-      </select>
-      {error ? (
-        <p id={`${id}-error`} className="text-sm text-danger">
-          {error}
-        </p>
-      ) : null}
-    </div>
   );
 }
 

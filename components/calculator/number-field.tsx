@@ -1,10 +1,9 @@
 'use client';
 
 import { useId, type ReactNode } from 'react';
+import { CONTROL_CLASS, FieldLabel } from '../ui/form-fields';
 
-/** Classes shared by the calculator's inputs and selects (theme tokens only). */
-export const CONTROL_CLASS =
-  'rounded border border-rule bg-paper px-2 py-1.5 text-ink aria-[invalid=true]:border-danger focus-visible:border-accent';
+export { CONTROL_CLASS };
 
 export interface NumberFieldProps {
   label: string;
@@ -34,10 +33,7 @@ export function NumberField({ label, value, onChange, unit, hint, error, optiona
   const describedBy = [unit ? unitId : null, hint ? hintId : null, error ? errorId : null].filter(Boolean).join(' ');
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-        {optional ? <span className="font-normal text-muted"> (optional)</span> : null}
-      </label>
+      <FieldLabel htmlFor={id} label={label} optional={optional} />
       <div className="flex items-center gap-2">
         <input
           id={id}

@@ -1,20 +1,12 @@
 'use client';
 
 import { useId, type ReactNode } from 'react';
+import { CONTROL_CLASS, FieldLabel, FieldMessage, SelectField } from '../ui/form-fields';
 
-/** Classes shared by the library's inputs (theme tokens only). */
-export const INPUT_CLASS =
-  'rounded border border-rule bg-paper px-2 py-1.5 text-ink aria-[invalid=true]:border-danger focus-visible:border-accent';
+/** Classes shared by the library's inputs: the app's one control style. */
+export const INPUT_CLASS = CONTROL_CLASS;
 
-/** The message region beside a field: always present so screen readers hear new messages. */
-export function FieldMessage({ id, messages }: { id: string; messages?: readonly string[] | string | null }) {
-  const list = typeof messages === 'string' ? [messages] : (messages ?? []);
-  return (
-    <p id={id} aria-live="polite" className="text-sm text-danger">
-      {list.join(' ')}
-    </p>
-  );
-}
+export { FieldMessage, SelectField };
 
 export interface TextFieldProps {
   label: string;
@@ -37,10 +29,7 @@ export function TextField({ label, name, value, onChange, errors, unit, hint, op
   const invalid = Boolean(errors?.length);
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-        {optional ? <span className="font-normal text-muted"> (optional)</span> : null}
-      </label>
+      <FieldLabel htmlFor={id} label={label} optional={optional} />
       <div className="flex items-center gap-2">
         <input
           id={id}
@@ -62,47 +51,6 @@ export function TextField({ label, name, value, onChange, errors, unit, hint, op
           {hint}
         </p>
       ) : null}
-      <FieldMessage id={`${id}-msg`} messages={errors} />
-    </div>
-  );
-}
-
-/** A labelled select with a message region. */
-export function SelectField({
-  label,
-  name,
-  value,
-  onChange,
-  errors,
-  children,
-  hint,
-}: {
-  label: string;
-  name: string;
-  value: string;
-  onChange: (value: string) => void;
-  errors?: readonly string[];
-  children: ReactNode;
-  hint?: ReactNode;
-}) {
-  const id = useId();
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-      </label>
-      <select
-        id={id}
-        name={name}
-        value={value}
-        onChange={(e) => onChange(e.target.value)}
-        aria-invalid={errors?.length ? true : undefined}
-        aria-describedby={`${id}-msg`}
-        className={`max-w-md ${INPUT_CLASS}`}
-      >
-        {children}
-      </select>
-      {hint ? <p className="text-xs text-muted">{hint}</p> : null}
       <FieldMessage id={`${id}-msg`} messages={errors} />
     </div>
   );
