@@ -46,7 +46,16 @@ export { bartlettTest, type BartlettTestResult } from './bartlett-test';
 export { varianceRatioTest, type VarianceRatioTestResult } from './variance-ratio-test';
 export { tukeyHsd, type TukeyHsdComparison, type TukeyHsdResult } from './tukey-hsd';
 export { cvConfidenceInterval, type CvConfidenceIntervalResult } from './cv-confidence-interval';
+export { gamesHowell, type GamesHowellComparison, type GamesHowellResult } from './games-howell';
+export { holmAdjust } from './holm-adjust';
+export { cvRatioFromLogCv, type CvRatioResult } from './cv-ratio-from-log-cv';
+export { varianceComponents, type VarianceComponentsResult } from './variance-components';
+export { runsPerGroupForCvRatio, type RunsPerGroupResult } from './runs-per-group-for-cv-ratio';
 export { readStatisticalResult, type ReadableResult, type ReadingOptions } from './read-statistical-result';
+
+// Mixed model (trainees as blocks)
+export { randomInterceptModel, type RandomInterceptModelResult } from './random-intercept-model';
+export { likelihoodRatioTest, type LikelihoodRatioTestResult } from './likelihood-ratio-test';
 
 // Regression and nut factor
 export { multipleLinearRegression, type LinearRegressionResult } from './multiple-linear-regression';

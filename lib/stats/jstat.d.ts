@@ -8,6 +8,7 @@ declare module 'jstat' {
     studentt: { inv(p: number, dof: number): number; pdf(x: number, dof: number): number };
     chisquare: { inv(p: number, dof: number): number; pdf(x: number, dof: number): number };
     tukey: { cdf(q: number, nmeans: number, df: number): number; inv(p: number, nmeans: number, df: number): number };
+    noncentralt: { cdf(x: number, dof: number, ncp: number): number };
   }
   export const jStat: JStatDistributions;
 }

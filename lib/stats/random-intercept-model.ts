@@ -100,6 +100,14 @@ export function randomInterceptModel(
   if (n <= m) throw new StatsError(`${fn} requires more observations than clusters (got ${n} for ${m})`);
   if (n <= p) throw new StatsError(`${fn} requires more observations than parameters (got ${n} for ${p})`);
 
+  const firstInCluster = new Map<number, number>();
+  const constantWithin = y.every((v, i) => {
+    const first = firstInCluster.get(clusterIndex[i]!);
+    if (first === undefined) firstInCluster.set(clusterIndex[i]!, v);
+    return first === undefined || first === v;
+  });
+  if (constantWithin) throw new StatsError(`${fn} requires some variation within clusters`);
+
   const yBar = mean(y);
   const xBars = predictors.map((c) => mean(c));
   const row = (i: number): number[] => [1, ...predictors.map((c, j) => c[i]! - xBars[j]!)];
