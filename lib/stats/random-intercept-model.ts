@@ -110,25 +110,26 @@ export function randomInterceptModel(
 
   const yBar = mean(y);
   const xBars = predictors.map((c) => mean(c));
-  const row = (i: number): number[] => [1, ...predictors.map((c, j) => c[i]! - xBars[j]!)];
-  const yc = y.map((v) => v - yBar);
+  // Columns of the centred design, the intercept's column of ones first.
+  const columns = [Float64Array.from({ length: n }, () => 1), ...predictors.map((c, j) => Float64Array.from(c, (v: number) => v - xBars[j]!))];
+  const yc = Float64Array.from(y, (v) => v - yBar);
+  const dot = (u: Float64Array, v: Float64Array): number => {
+    let acc = 0;
+    for (let i = 0; i < n; i++) acc += u[i]! * v[i]!;
+    return acc;
+  };
   const sums: ClusterSums[] = Array.from({ length: m }, () => ({ count: 0, x: new Array<number>(p).fill(0), y: 0 }));
-  const xtx = Array.from({ length: p }, () => new Array<number>(p).fill(0));
-  const xty = new Array<number>(p).fill(0);
-  let yty = 0;
   for (let i = 0; i < n; i++) {
-    const xi = row(i);
     const s = sums[clusterIndex[i]!]!;
     s.count += 1;
     s.y += yc[i]!;
-    for (let a = 0; a < p; a++) {
-      s.x[a]! += xi[a]!;
-      xty[a]! += xi[a]! * yc[i]!;
-      for (let b = 0; b <= a; b++) xtx[a]![b]! += xi[a]! * xi[b]!;
-    }
-    yty += yc[i]! ** 2;
   }
-  for (let a = 0; a < p; a++) for (let b = a + 1; b < p; b++) xtx[a]![b] = xtx[b]![a]!;
+  columns.forEach((column, a) => {
+    for (let i = 0; i < n; i++) sums[clusterIndex[i]!]!.x[a]! += column[i]!;
+  });
+  const xtx = columns.map((u) => columns.map((v) => dot(u, v)));
+  const xty = columns.map((u) => dot(u, yc));
+  const yty = dot(yc, yc);
 
   const dfSigma = method === 'REML' ? n - p : n;
   let evaluations = 0;
@@ -171,14 +172,13 @@ export function randomInterceptModel(
   const theta = minimiseProfile(fn, profile);
   const best = profile(theta);
   // r² and σ² again from the residuals themselves (no cancellation of yᵀH⁻¹y − qᵀβ̂).
+  const residuals = Float64Array.from(yc);
+  columns.forEach((column, a) => {
+    for (let i = 0; i < n; i++) residuals[i]! -= best.beta[a]! * column[i]!;
+  });
   const residualSums = new Array<number>(m).fill(0);
-  let squares = 0;
-  for (let i = 0; i < n; i++) {
-    const xi = row(i);
-    const e = yc[i]! - xi.reduce((acc, v, a) => acc + v * best.beta[a]!, 0);
-    residualSums[clusterIndex[i]!]! += e;
-    squares += e * e;
-  }
+  for (let i = 0; i < n; i++) residualSums[clusterIndex[i]!]! += residuals[i]!;
+  const squares = dot(residuals, residuals);
   const r2 = squares - sums.reduce((acc, s, k) => acc + (theta / (1 + s.count * theta)) * residualSums[k]! ** 2, 0);
   const logDetH = sums.reduce((acc, s) => acc + Math.log1p(s.count * theta), 0);
   const residualVariance = r2 / dfSigma;

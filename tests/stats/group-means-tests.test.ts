@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { oneWayAnova, tukeyHsd, welchAnova, welchTTest } from '@/lib/stats';
 import { relativeError } from './support/lre';
+import { expectPairsToMatch } from './support/pairwise-comparisons';
 import { type ComparisonFixture, scipyFixture } from './support/scipy-fixtures';
 
 const gearFx = scipyFixture<ComparisonFixture>('gear.json');
@@ -61,25 +62,10 @@ describe('welchTTest', () => {
 });
 
 describe('tukeyHsd', () => {
-  // Tolerances: mean differences to 1e-10; p-values 1e-7 relative or 1e-9 absolute, because the
-  // studentized range cdf here is jstat's port of R's ptukey, observed to agree with scipy's
-  // studentized_range (a different quadrature) to ~1e-8 relative (see distributions test).
-  // Interval end points inherit that through the critical value: 1e-8 of the interval width.
+  // Tolerances and why: see expectPairsToMatch (tests/stats/support/pairwise-comparisons.ts).
   it('tukeyHsd (Tukey–Kramer) matches scipy.stats.tukey_hsd on GEAR.DAT and unequal-n seeded loads', () => {
     for (const fx of [gearFx, loadsFx]) {
-      const r = tukeyHsd(fx.groups);
-      expect(r.comparisons).toHaveLength(fx.tukeyHsd.pairs.length);
-      r.comparisons.forEach((c, i) => {
-        const e = fx.tukeyHsd.pairs[i]!;
-        expect([c.groupA, c.groupB]).toEqual([e.groupA, e.groupB]);
-        // A difference of two ~1e5 N means: cancellation leaves ~1e-11 relative agreement.
-        expect(relativeError(c.meanDifference, e.meanDifference)).toBeLessThan(1e-10);
-        expect(Math.abs(c.pValue - e.pValue)).toBeLessThan(Math.max(1e-9, 1e-7 * e.pValue));
-        // End points can sit near 0 (relative error meaningless there): compare against the interval width.
-        const width = e.upper - e.lower;
-        expect(Math.abs(c.confidenceInterval.lower - e.lower)).toBeLessThan(1e-8 * width);
-        expect(Math.abs(c.confidenceInterval.upper - e.upper)).toBeLessThan(1e-8 * width);
-      });
+      expectPairsToMatch(tukeyHsd(fx.groups).comparisons, fx.tukeyHsd.pairs);
     }
   });
   it('tukeyHsd q for 1,2,3 | 4,5,6 | 7,8,9 is 3/√(1/3) per adjacent pair (hand: MSW = 1, n = 3)', () => {
