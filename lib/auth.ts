@@ -6,6 +6,8 @@ import { authSecret, env } from './env';
 import { verifyPassword } from './passwords';
 import { clearFailures, isLocked, recordFailure } from './rate-limit';
 import { User } from '@/models';
+import { checkSession, openSession, revokeSession } from './data/session-store';
+import { sessionClaimsOf } from './session';
 import type { Role } from '@/models/user';
 
 const credentialsSchema = z.object({
@@ -25,7 +27,8 @@ function clientAddress(headers: Record<string, unknown> | undefined): string {
 
 export const authOptions: NextAuthOptions = {
   secret: authSecret(),
-  session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+  // The cookie lives no longer than the absolute lifetime; lib/data/session-store decides whether it still stands.
+  session: { strategy: 'jwt', maxAge: env.EVENLOAD_SESSION_MAX_AGE_S },
   pages: { signIn: '/sign-in', error: '/sign-in' },
   // Secure, prefixed cookies whenever the public address is https (production behind TLS).
   useSecureCookies: (env.NEXTAUTH_URL ?? '').startsWith('https://'),
@@ -46,19 +49,27 @@ export const authOptions: NextAuthOptions = {
           throw new Error(SIGN_IN_FAILED);
         }
         await clearFailures([keys[0] as string]);
-        return { id: String(user.id), name: user.name, email: user.email, role: user.role, units: user.preferredUnits };
+        return { id: String(user.id), name: user.name, email: user.email, role: user.role, units: user.preferredUnits, sessionVersion: user.sessionVersion };
       },
     }),
   ],
   callbacks: {
+    /**
+     * At sign-in: opens the server-side session and puts its claims in the token. On every renewal
+     * (GET /api/auth/session): the session must still stand (lib/data/session-store), or the renewal
+     * fails and next-auth clears the cookie; the sign-in time is copied, so renewal never extends the
+     * absolute lifetime.
+     */
     async jwt({ token, user }) {
       if (user) {
-        const u = user as unknown as { id: string; role: Role; units: 'si' | 'us' };
-        token.uid = Number(u.id);
-        token.role = u.role;
-        token.units = u.units;
+        const u = user as unknown as { id: string; role: Role; units: 'si' | 'us'; sessionVersion: number };
+        Object.assign(token, await openSession(Number(u.id), u.sessionVersion), { role: u.role, units: u.units });
+        return token;
       }
-      return token;
+      const claims = sessionClaimsOf(token);
+      const account = claims ? await checkSession(claims) : null;
+      if (!account) throw new SessionEndedError();
+      return Object.assign(token, { name: account.name, email: account.email, role: account.role, units: account.units });
     },
     async session({ session, token }) {
       session.user = {
@@ -70,4 +81,29 @@ export const authOptions: NextAuthOptions = {
       return session;
     },
   },
+  events: {
+    /** Sign-out revokes the session on the server: a copy of the cookie is refused afterwards. */
+    async signOut({ token }) {
+      const claims = sessionClaimsOf(token);
+      if (claims) await revokeSession(claims.sid);
+    },
+  },
+  logger: {
+    // An ended session is an expected answer, not a server error worth a stack trace.
+    error(code, metadata) {
+      if (code === 'JWT_SESSION_ERROR' && metadata instanceof SessionEndedError) return;
+      console.error(`[next-auth] ${code}`, metadata);
+    },
+    warn(code) {
+      console.warn(`[next-auth] ${code}`);
+    },
+    debug() {},
+  },
 };
+
+/** Thrown by the renewal of a session that has ended (next-auth then clears the cookie). */
+class SessionEndedError extends Error {
+  constructor() {
+    super('The session has ended.');
+  }
+}

@@ -17,6 +17,12 @@ const schema = z.object({
   DB_POOL_ACQUIRE_MS: z.coerce.number().int().min(100).default(4000),
   NEXTAUTH_SECRET: z.string().min(16).optional(),
   NEXTAUTH_URL: z.string().url().optional(),
+  /** Sessions: absolute lifetime from sign-in (renewal never extends it), idle timeout, and how long an
+   *  instance may reuse its last database check of a session (at most 60 s, so an ended session ends
+   *  everywhere within a minute). */
+  EVENLOAD_SESSION_MAX_AGE_S: z.coerce.number().int().min(1).default(12 * 60 * 60),
+  EVENLOAD_SESSION_IDLE_S: z.coerce.number().int().min(1).default(2 * 60 * 60),
+  EVENLOAD_SESSION_CHECK_TTL_MS: z.coerce.number().int().min(0).max(60_000).default(30_000),
   EVENLOAD_LOG_SQL: z.enum(['0', '1']).default('0'),
   /** Outgoing mail (nodemailer over SMTP). Locally the SMTP fake (scripts/mail-fake.ts) listens here. */
   SMTP_HOST: z.string().min(1).default('127.0.0.1'),

@@ -1,27 +1,31 @@
 import 'server-only';
-import { decode } from 'next-auth/jwt';
+import { decode, type JWT } from 'next-auth/jwt';
 import { cookies } from 'next/headers';
 import { redirect } from 'next/navigation';
 import { authSecret } from './env';
 import { AppError } from './errors';
 import type { Role } from '@/models/user';
+import { checkSession, type SessionAccount, type SessionClaims } from './data/session-store';
 
-/** The signed-in person as every data function receives it. */
-export interface SessionUser {
-  id: number;
-  name: string;
-  email: string;
-  role: Role;
-  units: 'si' | 'us';
-}
+/** The signed-in person as every data function receives it (name, role and units from the users row). */
+export type SessionUser = SessionAccount;
 
 /** next-auth's session cookie names (the __Secure- one behind https). */
 const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 
+/** The sign-in claims of a decoded session token, or null for a token without them (e.g. one from before sessions were recorded). */
+export function sessionClaimsOf(token: JWT | null | undefined): SessionClaims | null {
+  if (!token) return null;
+  const { uid, sid, sv, sat } = token;
+  if (typeof uid !== 'number' || typeof sid !== 'string' || typeof sv !== 'number' || typeof sat !== 'number') return null;
+  return { uid, sid, sv, sat };
+}
+
 /**
- * The signed-in person, read from the session JWT (next-auth's own cookie, decoded and verified
- * with the signing secret). Reading the token directly, rather than through getServerSession, keeps
- * every request light: nothing but the cookie is needed, on any instance.
+ * The signed-in person for pages, route handlers and server actions alike. The session JWT
+ * (next-auth's own cookie) is decoded and verified with the signing secret, then the session is
+ * checked against MariaDB through lib/data/session-store (absolute lifetime, idle timeout,
+ * sign-out, deactivation, session version), which answers from a short in-process cache.
  */
 export async function getSessionUser(): Promise<SessionUser | null> {
   const store = await cookies();
@@ -29,15 +33,9 @@ export async function getSessionUser(): Promise<SessionUser | null> {
   const value = name ? store.get(name)?.value : undefined;
   if (!value) return null;
   const token = await decode({ token: value, secret: authSecret() }).catch(() => null);
-  if (!token?.uid || !token.role) return null;
-  if (typeof token.exp === 'number' && token.exp * 1000 < Date.now()) return null;
-  return {
-    id: token.uid,
-    name: token.name ?? '',
-    email: token.email ?? '',
-    role: token.role,
-    units: token.units ?? 'si',
-  };
+  if (typeof token?.exp === 'number' && token.exp * 1000 < Date.now()) return null;
+  const claims = sessionClaimsOf(token);
+  return claims ? checkSession(claims) : null;
 }
 
 /** The one role check: throws 401 when signed out and 403 when the role is not allowed. */

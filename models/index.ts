@@ -16,10 +16,11 @@ import { SignInAttempt } from './sign-in-attempt';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
 import { User } from './user';
+import { UserSession } from './user-session';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
     model.initModel(sequelize);
   }
 
@@ -40,6 +41,7 @@ import { User } from './user';
   Cohort.hasOne(CohortCriteria, { as: 'criteria', foreignKey: 'cohortId' });
   Run.hasOne(RunVerdict, { as: 'verdict', foreignKey: 'runId' });
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
+  UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User, UserSession };

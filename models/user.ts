@@ -13,6 +13,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare preferredUnits: CreationOptional<UnitSystem>;
   declare employerContact: CreationOptional<string | null>;
   declare isActive: CreationOptional<boolean>;
+  /** Raised to end every session of the person (role change, deactivation, reset, sign out everywhere). */
+  declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -27,6 +29,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         preferredUnits: { type: DataTypes.ENUM('si', 'us'), allowNull: false, defaultValue: 'si' },
         employerContact: { type: DataTypes.STRING(254), allowNull: true },
         isActive: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        sessionVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

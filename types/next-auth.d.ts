@@ -12,5 +12,11 @@ declare module 'next-auth/jwt' {
     uid?: number;
     role?: Role;
     units?: 'si' | 'us';
+    /** The server-side session row (user_sessions.id). */
+    sid?: string;
+    /** The person's session version at sign-in. */
+    sv?: number;
+    /** Sign-in time in seconds: the absolute lifetime counts from here. */
+    sat?: number;
   }
 }

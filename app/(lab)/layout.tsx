@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { NavLinks } from '@/components/shell/nav-links';
 import { navItemsFor, ROLE_LABELS } from '@/components/shell/navigation';
-import { SignOutButton } from '@/components/shell/sign-out-button';
+import { SignOutButton, SignOutEverywhereButton } from '@/components/shell/sign-out-button';
 import { Wordmark } from '@/components/shell/wordmark';
 import { requirePageUser } from '@/lib/session';
 
@@ -21,6 +21,7 @@ export default async function LabLayout({ children }: { children: React.ReactNod
               <span className="rounded bg-rule/70 px-1.5 py-0.5 text-xs text-ink">{ROLE_LABELS[user.role]}</span>
             </span>
             <SignOutButton />
+            <SignOutEverywhereButton />
           </div>
         </nav>
       </header>

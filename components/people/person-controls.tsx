@@ -1,7 +1,7 @@
 'use client';
 
 import { useActionState } from 'react';
-import { changeRoleAction, setActiveAction } from '@/app/(lab)/people/actions';
+import { changeRoleAction, endSessionsAction, setActiveAction } from '@/app/(lab)/people/actions';
 import { IDLE_STATE } from '@/lib/action-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import type { Role } from '@/models/user';
@@ -17,8 +17,9 @@ const ROLE_OPTIONS: { value: Role; label: string }[] = [
 export function PersonControls({ userId, name, role, isActive, isSelf }: { userId: number; name: string; role: Role; isActive: boolean; isSelf: boolean }) {
   const [roleState, roleAction, rolePending] = useActionState(changeRoleAction.bind(null, userId), IDLE_STATE);
   const [activeState, activeAction, activePending] = useActionState(setActiveAction.bind(null, userId, !isActive), IDLE_STATE);
+  const [endState, endAction, endPending] = useActionState(endSessionsAction.bind(null, userId), IDLE_STATE);
   if (isSelf) return <span className="text-xs text-muted">Your own account: another admin changes its role.</span>;
-  const state = activeState.message ? activeState : roleState;
+  const state = endState.message ? endState : activeState.message ? activeState : roleState;
   return (
     <div className="flex flex-wrap items-center gap-2">
       <form action={roleAction} onSubmit={keepValuesSubmit(roleAction)} className="flex items-center gap-2">
@@ -33,6 +34,11 @@ export function PersonControls({ userId, name, role, isActive, isSelf }: { userI
           {isActive ? 'Deactivate' : 'Reactivate'}
         </button>
       </form>
+      {isActive ? (
+        <form action={endAction}>
+          <button type="submit" disabled={endPending} className="rounded-md border border-rule px-2 py-1 text-sm hover:bg-rule/60">Sign out everywhere</button>
+        </form>
+      ) : null}
       <FormMessage ok={state.ok} message={state.message} />
     </div>
   );

@@ -12,6 +12,7 @@ import { hashPassword } from '../passwords';
 import { isLocked, recordFailure } from '../rate-limit';
 import type { SessionUser } from '../session';
 import { manageableCohort } from './cohort-access';
+import { endAllSessions } from './session-store';
 
 export const MAX_INVITES_AT_ONCE = 100;
 export const PASSWORD_MIN_LENGTH = 10;
@@ -112,6 +113,7 @@ export const setPasswordSchema = z
 /**
  * Sets the password through a one-time link and marks the link used, in one transaction with the
  * link's row locked, so a link works exactly once. Expired, used or unknown links change nothing.
+ * Setting the password ends the account's open sessions.
  */
 export async function setPasswordWithToken(value: string, purpose: TokenPurpose, input: unknown, now = new Date()): Promise<{ email: string }> {
   const parsed = setPasswordSchema.safeParse(input);
@@ -129,6 +131,8 @@ export async function setPasswordWithToken(value: string, purpose: TokenPurpose,
     if (!account || !account.isActive) throw new AppError('forbidden', 'This account is deactivated; ask the centre’s admin.');
     await account.update({ passwordHash, ...(purpose === 'invite' && parsed.data.name ? { name: parsed.data.name } : {}) }, { transaction });
     await row.update({ usedAt: now }, { transaction });
+    // A new password ends every session opened with the old one.
+    await endAllSessions(account.id, transaction, now);
     // Any other open link of the same purpose for this account stops working too.
     await OneTimeToken.update({ usedAt: now }, { where: { userId: account.id, purpose, usedAt: null }, transaction });
     return { email: account.email };

@@ -1,9 +1,10 @@
 import 'server-only';
 import { z } from 'zod';
-import { User } from '@/models';
+import { User, sequelize } from '@/models';
 import { ROLES, type Role } from '@/models/user';
 import { AppError } from '../errors';
 import { assertRole, type SessionUser } from '../session';
+import { endAllSessions } from './session-store';
 
 export interface PersonRow {
   id: number;
@@ -26,22 +27,49 @@ const roleSchema = z.enum(ROLES, { error: 'Choose one of the roles: admin, instr
 /**
  * Changes someone's role (admins only). Nobody raises their own role: an admin cannot change their
  * own role at all (another admin must), so the centre never loses its last admin by accident.
+ * A change ends the person's sessions: they sign in again with the new role.
  */
 export async function changeRole(user: SessionUser | null, userId: number, rawRole: unknown): Promise<void> {
   assertRole(user, ['admin']);
   const role = roleSchema.safeParse(rawRole);
   if (!role.success) throw new AppError('invalid_input', role.error.issues[0]?.message ?? 'Choose a role.', { fieldErrors: { role: [role.error.issues[0]?.message ?? 'Choose a role.'] } });
   if (userId === user.id) throw new AppError('forbidden', 'You cannot change your own role; another admin can.');
-  const target = await User.findByPk(userId);
-  if (!target) throw new AppError('not_found', 'That account does not exist.');
-  await target.update({ role: role.data });
+  await updateAccount(userId, (target) => (target.role === role.data ? null : { role: role.data }));
 }
 
-/** Deactivates or reactivates an account (admins only; not their own). A deactivated account cannot sign in. */
+/**
+ * Deactivates or reactivates an account (admins only; not their own). A deactivated account cannot
+ * sign in, and its open sessions end.
+ */
 export async function setActive(user: SessionUser | null, userId: number, active: boolean): Promise<void> {
   assertRole(user, ['admin']);
   if (userId === user.id) throw new AppError('forbidden', 'You cannot deactivate your own account; another admin can.');
-  const target = await User.findByPk(userId);
-  if (!target) throw new AppError('not_found', 'That account does not exist.');
-  await target.update({ isActive: active });
+  await updateAccount(userId, (target) => (Boolean(target.isActive) === active ? null : { isActive: active }));
+}
+
+/** "Sign out everywhere" for an account, by an admin (their own included). */
+export async function endSessionsOf(user: SessionUser | null, userId: number): Promise<void> {
+  assertRole(user, ['admin']);
+  await updateAccount(userId, () => ({}));
+}
+
+/** "Sign out everywhere" for the signed-in person: every session of theirs ends, this one too. */
+export async function endOwnSessions(user: SessionUser | null): Promise<void> {
+  if (!user) throw new AppError('unauthenticated', 'Sign in to continue.');
+  await updateAccount(user.id, () => ({}));
+}
+
+/**
+ * Applies a change to an account and ends all its sessions, in one transaction (the row is locked,
+ * so two admins acting at once both take effect). A change of nothing (`null`) ends no session.
+ */
+async function updateAccount(userId: number, change: (target: User) => Partial<Pick<User, 'role' | 'isActive'>> | null): Promise<void> {
+  await sequelize.transaction(async (transaction) => {
+    const target = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!target) throw new AppError('not_found', 'That account does not exist.');
+    const values = change(target);
+    if (!values) return;
+    if (Object.keys(values).length) await target.update(values, { transaction });
+    await endAllSessions(userId, transaction);
+  });
 }

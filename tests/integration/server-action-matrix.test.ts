@@ -28,6 +28,7 @@ const joints = await import('@/app/(lab)/joints/actions');
 const record = await import('@/app/(lab)/record/actions');
 const comments = await import('@/app/(lab)/runs/[id]/actions');
 const people = await import('@/app/(lab)/people/actions');
+const lab = await import('@/app/(lab)/actions');
 
 type Caller = Role | 'anonymous';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'instructor', 'researcher', 'trainee'];
@@ -61,6 +62,8 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },
+  { file: 'app/(lab)/people/actions.ts', name: 'endSessionsAction', allowed: ['admin'], call: () => people.endSessionsAction(ids.trainee, idle, form()) },
+  { file: 'app/(lab)/actions.ts', name: 'signOutEverywhereAction', allowed: ['admin', 'instructor', 'researcher', 'trainee'], call: () => lab.signOutEverywhereAction(idle, form()) },
 ];
 
 /** Public actions (a one-time link or an e-mail address is the credential): covered by tests/integration/cohorts.test.ts. */

@@ -23,10 +23,11 @@ export interface HttpSession {
 }
 
 export function anonymous(baseUrl: string): HttpSession {
-  return makeSession(baseUrl, '');
+  return sessionWithCookie(baseUrl, '');
 }
 
-function makeSession(baseUrl: string, cookie: string): HttpSession {
+/** A session that sends the given Cookie header (e.g. a renewed or copied session cookie). */
+export function sessionWithCookie(baseUrl: string, cookie: string): HttpSession {
   return {
     cookie,
     get: (path) => fetch(`${baseUrl}${path}`, { headers: { cookie }, redirect: 'manual' }),
@@ -61,11 +62,21 @@ export async function signIn(baseUrl: string, email: string, password = DEMO_PAS
   const location = body.url ?? response.headers.get('location') ?? '';
   const error = new URL(location, baseUrl).searchParams.get('error');
   const ok = [...jar.keys()].some((key) => key.endsWith('next-auth.session-token'));
-  return { ok, session: makeSession(baseUrl, cookie), error };
+  return { ok, session: sessionWithCookie(baseUrl, cookie), error };
 }
 
-export async function signInAs(baseUrl: string, email: string): Promise<HttpSession> {
-  const result = await signIn(baseUrl, email);
+export async function signInAs(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<HttpSession> {
+  const result = await signIn(baseUrl, email, password);
   if (!result.ok) throw new Error(`sign-in as ${email} failed: ${result.error}`);
   return result.session;
+}
+
+/** Signs out through next-auth's endpoint as the browser does (with the CSRF token); returns the status. */
+export async function signOut(baseUrl: string, session: HttpSession): Promise<number> {
+  const { csrfToken } = (await (await session.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  const response = await session.send('POST', '/api/auth/signout', new URLSearchParams({ csrfToken, json: 'true' }).toString(), {
+    'content-type': 'application/x-www-form-urlencoded',
+    origin: baseUrl,
+  });
+  return response.status;
 }

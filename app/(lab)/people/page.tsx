@@ -15,7 +15,7 @@ export default async function PeoplePage() {
     <div className="space-y-4">
       <div>
         <h1 className="text-2xl font-semibold">People</h1>
-        <p className="text-sm text-muted">Every account of the centre. A role change takes effect at the person&apos;s next sign-in; a deactivated account cannot sign in. Trainees join through their instructor&apos;s invitation.</p>
+        <p className="text-sm text-muted">Every account of the centre. A role change or a deactivation signs the person out everywhere within a minute; a deactivated account cannot sign in. Trainees join through their instructor&apos;s invitation.</p>
       </div>
       <table className="w-full rounded-card border border-rule bg-panel text-sm">
         <thead className="text-left text-muted">

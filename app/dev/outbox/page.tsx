@@ -4,6 +4,7 @@ import { Wordmark } from '@/components/shell/wordmark';
 import { listCapturedMail } from '@/lib/data/outbox';
 import { outboxEnabled } from '@/lib/env';
 import { formatDateTime } from '@/lib/format-date';
+import { requirePageUser } from '@/lib/session';
 
 export const metadata: Metadata = { title: 'Outbox (development)', robots: { index: false } };
 export const dynamic = 'force-dynamic';
@@ -26,18 +27,20 @@ function Linkified({ text }: { text: string }) {
 
 export default async function OutboxPage() {
   if (!outboxEnabled()) notFound();
-  const mails = await listCapturedMail(50);
+  const user = await requirePageUser();
+  const mails = await listCapturedMail(user, 50);
+  const everyone = user.role === 'admin';
   return (
     <main className="mx-auto max-w-4xl space-y-4 px-4 py-6">
       <div className="text-lg"><Wordmark /></div>
       <h1 className="text-2xl font-semibold">Outbox (development)</h1>
       <p className="text-sm text-muted">
-        Mail caught by the local SMTP fake, newest first. Nothing here left this machine. This page is off in production
-        unless EVENLOAD_OUTBOX=1 (the demo sets it).
+        {everyone ? 'Every message' : `Messages sent to ${user.email}`} caught by the local mail catcher, newest first.
+        Nothing here left this machine.
       </p>
       {mails.length === 0 ? (
         <p className="rounded-card border border-dashed border-rule bg-panel/50 p-6 text-center text-sm text-muted">
-          No mail yet. Invite a trainee from a cohort, or ask for a password reset, and the message appears here.
+          {everyone ? 'No mail yet. Invite a trainee from a cohort, or ask for a password reset, and the message appears here.' : 'No mail to your address yet.'}
         </p>
       ) : (
         <ol className="space-y-3">
