@@ -15,11 +15,12 @@ import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
+import { UploadChunk } from './upload-chunk';
 import { User } from './user';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail]) {
     model.initModel(sequelize);
   }
 
@@ -40,6 +41,7 @@ import { User } from './user';
   Cohort.hasOne(CohortCriteria, { as: 'criteria', foreignKey: 'cohortId' });
   Run.hasOne(RunVerdict, { as: 'verdict', foreignKey: 'runId' });
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
+  Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User };

@@ -5,6 +5,8 @@ const root = path.resolve(__dirname, '../..');
 
 export interface AppServer {
   baseUrl: string;
+  /** Process id of `next start` (the server process, for memory readings in the bench). */
+  pid: number;
   stop: () => Promise<void>;
 }
 
@@ -36,6 +38,7 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   if (Date.now() >= deadline) throw new Error(`the app did not become healthy within 60 s:\n${output}`);
   return {
     baseUrl,
+    pid: child.pid ?? 0,
     stop: () =>
       new Promise<void>((resolve) => {
         if (child.exitCode !== null) return resolve();

@@ -2,9 +2,9 @@ import { NextResponse } from 'next/server';
 import { withRole } from '@/lib/api';
 import { RECORD_ROLES } from '@/lib/data/record';
 import { AppError } from '@/lib/errors';
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { readBodyWithin } from '@/lib/read-body';
 import { UPLOAD_FORM_OVERHEAD_BYTES, UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import { storeUploadedRun } from '@/lib/runs/upload-run';
+import { storeUploadedRun, uploadTooLarge } from '@/lib/runs/upload-run';
 
 export const runtime = 'nodejs';
 
@@ -20,11 +20,9 @@ function jsonField(form: FormData, name: string): unknown {
 
 // POST /api/uploads - store a logger file (multipart: file, mapping (JSON or null = server's guess), header) as a run; 409 with runId for a file already uploaded
 export const POST = withRole(RECORD_ROLES, async (request, user) => {
-  const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > UPLOAD_LIMIT_BYTES + UPLOAD_FORM_OVERHEAD_BYTES) {
-    throw new AppError('too_large', `The file is larger than the upload limit of ${UPLOAD_LIMIT_BYTES / BYTES_PER_MB} MB. Split the log or export only this run.`, { field: 'file', limitBytes: UPLOAD_LIMIT_BYTES });
-  }
-  const form = await request.formData().catch(() => {
+  // The limit is counted while the body is read (chunked or not); an oversize body is never held whole.
+  const body = await readBodyWithin(request, UPLOAD_LIMIT_BYTES + UPLOAD_FORM_OVERHEAD_BYTES, uploadTooLarge);
+  const form = await new Response(body as BodyInit, { headers: { 'content-type': request.headers.get('content-type') ?? '' } }).formData().catch(() => {
     throw new AppError('invalid_input', 'Send the upload as multipart form data with the fields file, mapping and header.', { field: 'file' });
   });
   const file = form.get('file');
