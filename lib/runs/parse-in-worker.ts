@@ -1,11 +1,16 @@
 import 'server-only';
-import path from 'node:path';
 import { existsSync } from 'node:fs';
-import { Worker } from 'node:worker_threads';
+import path from 'node:path';
 import { AppError } from '@/lib/errors';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import type { ParsedUpload, ParseJob, ParseReply } from './parse-upload-protocol';
+
+/**
+ * node:worker_threads, loaded past the bundler: Turbopack rewrites a statically imported
+ * `new Worker(path)` into a lookup among its own chunks, which cannot find a prebuilt file.
+ */
+const { Worker } = (process as unknown as { getBuiltinModule(id: string): typeof import('node:worker_threads') }).getBuiltinModule('node:worker_threads');
 
 /** Heap of one parse worker: room for a 20 MB file's text and its run, not more. */
 export const PARSE_WORKER_HEAP_MB = 256;

@@ -14,7 +14,8 @@ import { readUploadBytes } from '@/lib/runs/upload-file';
 import type { AppServer } from '../support/app-server';
 import type { HttpSession } from '../support/http-session';
 import { pathologicalFiles } from '../support/pathological-files';
-import { header, postUpload, startUploadTestbed, storedSteps, tableCounts } from '../support/record-fixtures';
+import { header, mappingFor, postUpload, startUploadTestbed, storedSteps, tableCounts } from '../support/record-fixtures';
+import { FOUR_STUD_JOINT } from '../ingest/joints';
 
 const MB = 1024 * 1024;
 let server: AppServer;
@@ -71,7 +72,8 @@ function validFile(megabytes: number): Uint8Array {
   return bytes;
 }
 
-const mapping = { shape: 'wide', loadUnit: 'kN', time: 'Time (s)', step: 'Step', pass: 'Pass', studs: [1, 2, 3, 4].map((position) => ({ position, column: `Stud ${position} [kN]` })) };
+/** The confirmed mapping, as the upload page sends it: the server's guess for this header. */
+const mapping = mappingFor(new TextEncoder().encode('Time (s),Step,Pass,Stud 1 [kN],Stud 2 [kN],Stud 3 [kN],Stud 4 [kN]\n0.5,1,1,24,0,0,0\n'), FOUR_STUD_JOINT);
 
 async function errorOf(response: Response) {
   return ((await response.json()) as { error: { message: string; runId?: number; row?: number } }).error;
@@ -158,7 +160,8 @@ describe('POST /api/uploads: what a refusal tells', () => {
     const response = await postUpload(instructor, server.baseUrl, commas!.bytes, 'long-line.csv', null, header(jointId, instructorId, ids));
     const text = await response.text();
     expect(response.status).toBe(422);
-    expect(text).toContain('(it starts "Time (s),Stud 1,,,,,,,,,,,,,,,,,,,,,,,,,,…")');
+    // "Time (s),Stud 1" is 15 characters, so the 40 quoted end after 25 commas.
+    expect((JSON.parse(text) as { error: { message: string } }).error.message).toContain(`(it starts "Time (s),Stud 1${','.repeat(25)}…")`);
     expect(text.length).toBeLessThan(600);
   });
 });

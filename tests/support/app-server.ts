@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import { appendFileSync } from 'node:fs';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '../..');
@@ -41,6 +42,8 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
     pid: child.pid ?? 0,
     stop: () =>
       new Promise<void>((resolve) => {
+        // EVENLOAD_SERVER_LOG=file keeps the server's output for debugging a failing test.
+        if (process.env.EVENLOAD_SERVER_LOG) appendFileSync(process.env.EVENLOAD_SERVER_LOG, output);
         if (child.exitCode !== null) return resolve();
         child.once('exit', () => resolve());
         child.kill('SIGTERM');
