@@ -15,12 +15,13 @@ import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
+import { UploadChunk } from './upload-chunk';
 import { User } from './user';
 import { UserSession } from './user-session';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
     model.initModel(sequelize);
   }
 
@@ -42,6 +43,7 @@ import { UserSession } from './user-session';
   Run.hasOne(RunVerdict, { as: 'verdict', foreignKey: 'runId' });
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, User, UserSession };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

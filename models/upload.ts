@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-/** The raw logger file as uploaded, kept with its sha256 and the parse report. */
+/** An uploaded logger file: its sha256, size and parse report; the bytes are in `upload_chunks` (UploadChunk). */
 export class Upload extends Model<InferAttributes<Upload>, InferCreationAttributes<Upload>> {
   declare id: CreationOptional<number>;
   declare runId: number | null;
@@ -9,7 +9,6 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare sha256: string;
   declare sizeBytes: number;
   declare contentType: string;
-  declare content: Buffer;
   declare parseReport: CreationOptional<unknown>;
   declare createdAt: CreationOptional<Date>;
 
@@ -23,7 +22,6 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
         sha256: { type: DataTypes.CHAR(64), allowNull: false },
         sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         contentType: { type: DataTypes.STRING(120), allowNull: false },
-        content: { type: DataTypes.BLOB('long'), allowNull: false },
         parseReport: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE,
       },

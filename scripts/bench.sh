@@ -16,5 +16,6 @@ if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib models proxy.ts ne
   evenload_log "building the app"
   npx next build >&2
 fi
+node scripts/build-workers.mjs >&2
 mkdir -p bench-results
 npx tsx scripts/bench/run-all.ts "$@"

@@ -9,6 +9,7 @@ if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib models proxy.ts ne
   evenload_log "building the app"
   npx next build
 fi
+node scripts/build-workers.mjs
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://127.0.0.1:${PORT:-3000}}"
 # The demo shows captured mail at /dev/outbox (the local SMTP fake started by setup.sh).
 export EVENLOAD_OUTBOX="${EVENLOAD_OUTBOX:-1}"

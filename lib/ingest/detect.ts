@@ -7,6 +7,7 @@
  */
 import { AppError } from '@/lib/errors';
 import { isNumericText } from './numbers';
+import { clipInput } from './text-limits';
 
 /** Column separators we accept. */
 export type Delimiter = ',' | ';' | '\t';
@@ -298,7 +299,7 @@ export function inspectText(input: string): DetectionReport {
   sentences.push(
     lineEnding === 'CRLF' ? 'Windows line endings (CRLF).' : lineEnding === 'CR' ? 'Old Mac line endings (CR).' : lineEnding === 'LF' ? 'Unix line endings (LF).' : 'A single line without a line ending.',
   );
-  if (metadata.length > 0) sentences.push(`Metadata: ${metadata.map((m) => `${m.key} = ${m.value}`).join('; ')}.`);
+  if (metadata.length > 0) sentences.push(`Metadata: ${metadata.map((m) => `${clipInput(m.key)} = ${clipInput(m.value)}`).join('; ')}.`);
 
   return {
     text,

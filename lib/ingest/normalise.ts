@@ -23,6 +23,7 @@
 import { AppError } from '@/lib/errors';
 import type { NormalisedRun, NormalisedStep } from '@/lib/run-types';
 import { readNumberCell } from './numbers';
+import { clipInput, quoteInput } from './text-limits';
 import type { ColumnMapping } from './shapes';
 import { loadToN, torqueToNm, type StrainConversion } from './units';
 import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DerivedStep, type Snapshot, type StepDeriver } from './derive-steps';
@@ -94,7 +95,8 @@ function ranges(positions: number[]): string {
 }
 
 function bad(line: number, column: string, message: string): AppError {
-  return new AppError('invalid_input', `Line ${line}, column "${column}": ${message}`, { row: line, column });
+  const name = quoteInput(column);
+  return new AppError('invalid_input', `Line ${line}, column ${name}: ${message}`, { row: line, column: name.slice(1, -1) });
 }
 
 interface PendingStep {
@@ -174,7 +176,7 @@ export function createRowNormaliser(
       const i = indexOf(s.column);
       if (s.position < 1 || s.position > N) throw bad(headerLine, s.column, `position ${s.position} is outside 1..${N} (the joint has ${N} studs).`);
       const prev = byPosition.get(s.position);
-      if (prev !== undefined) throw bad(headerLine, s.column, `position ${s.position} is mapped twice ("${prev}" and "${s.column}").`);
+      if (prev !== undefined) throw bad(headerLine, s.column, `position ${s.position} is mapped twice (${quoteInput(prev)} and ${quoteInput(s.column)}).`);
       if (studIdx.includes(i)) throw bad(headerLine, s.column, 'this column is mapped to two stud positions.');
       byPosition.set(s.position, s.column);
       studIdx[s.position - 1] = i;
@@ -211,11 +213,11 @@ export function createRowNormaliser(
       if (required) throw bad(line, names[idx]!, 'the cell is empty; a number is needed here.');
       return null;
     }
-    throw bad(line, names[idx]!, `"${raw.trim()}" ${r.reason}.`);
+    throw bad(line, names[idx]!, `${quoteInput(raw)} ${r.reason}.`);
   };
   const loadN = (row: readonly string[], idx: number, line: number, position: number): number => {
     const v = num(row, idx, line, true)!;
-    if (v < 0) throw bad(line, names[idx]!, `"${row[idx]!.trim()}" is a negative load; stud loads must be 0 or more.`);
+    if (v < 0) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is a negative load; stud loads must be 0 or more.`);
     const n = loadToN(v, mapping.loadUnit, strainFor(position));
     if (n > joint.maxStudLoadN) {
       throw bad(line, names[idx]!, `${fmtN(n)} is above the limit of ${fmtN(joint.maxStudLoadN)} (${limitSource}); check the load unit (${mapping.loadUnit}).`);
@@ -224,14 +226,14 @@ export function createRowNormaliser(
   };
   const positionOf = (row: readonly string[], idx: number, line: number): number => {
     const v = num(row, idx, line, true)!;
-    if (!Number.isInteger(v)) throw bad(line, names[idx]!, `"${row[idx]!.trim()}" is not a whole stud position.`);
+    if (!Number.isInteger(v)) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is not a whole stud position.`);
     if (v < 1 || v > N) throw bad(line, names[idx]!, `position ${v} is outside 1..${N} (the joint has ${N} studs).`);
     return v;
   };
   const optionalNumber = (row: readonly string[], idx: number, line: number, what: string): number | null => {
     if (idx < 0) return null;
     const v = num(row, idx, line, false);
-    if (v !== null && v < 0) throw bad(line, names[idx]!, `"${row[idx]!.trim()}" is a negative ${what}.`);
+    if (v !== null && v < 0) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is a negative ${what}.`);
     return v;
   };
   /** Reads the markers of a row; returns the marker key ('' = before the first marker). */
@@ -241,7 +243,7 @@ export function createRowNormaliser(
       if (raw !== '') {
         const r = readNumberCell(raw, options.decimalComma);
         if (r.kind !== 'number' || !Number.isInteger(r.value) || r.value < 1) {
-          throw bad(line, names[passIdx]!, `"${raw}" is not a pass number (1, 2, 3, ...).`);
+          throw bad(line, names[passIdx]!, `${quoteInput(raw)} is not a pass number (1, 2, 3, ...).`);
         }
         markerPass = r.value;
       }
@@ -273,7 +275,7 @@ export function createRowNormaliser(
         }
       }
       position = best + 1;
-      if (!(rise > 0)) warnings.push(`Lines ${p.firstLine}–${p.lastLine}: no stud load rose in step ${p.label}; tightened position ${position} is a guess.`);
+      if (!(rise > 0)) warnings.push(`Lines ${p.firstLine}–${p.lastLine}: no stud load rose in step ${clipInput(p.label)}; tightened position ${position} is a guess.`);
     }
     const order = steps.length + 1;
     steps.push({
@@ -364,7 +366,7 @@ export function createRowNormaliser(
       if (l === 0) missing.push(k + 1);
     });
     if (missing.length > 0) {
-      throw bad(table.lastLine, names[posIdx]!, `step ${table.label} (lines ${table.firstLine}–${table.lastLine}) has no reading for position${missing.length === 1 ? '' : 's'} ${ranges(missing)}; a step table lists every stud after every step.`);
+      throw bad(table.lastLine, names[posIdx]!, `step ${clipInput(table.label)} (lines ${table.firstLine}–${table.lastLine}) has no reading for position${missing.length === 1 ? '' : 's'} ${ranges(missing)}; a step table lists every stud after every step.`);
     }
     closeStep(table);
   };
@@ -425,7 +427,7 @@ export function createRowNormaliser(
         table = { key, label: markerStep, seen: new Int32Array(N), firstLine: line, lastLine: line, loads: new Float64Array(N), timeS: null, torque: null, pressure: null, pass: null, tightened: null };
       }
       const seenAt = table.seen[position - 1]!;
-      if (seenAt > 0) throw bad(line, names[posIdx]!, `position ${position} appears twice in step ${table.label} (lines ${seenAt} and ${line}).`);
+      if (seenAt > 0) throw bad(line, names[posIdx]!, `position ${position} appears twice in step ${clipInput(table.label)} (lines ${seenAt} and ${line}).`);
       table.seen[position - 1] = line;
       table.loads[position - 1] = load;
       table.lastLine = line;

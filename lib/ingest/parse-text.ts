@@ -14,6 +14,7 @@ import { inspectText, type DetectionReport } from './detect';
 import type { DerivedStep } from './derive-steps';
 import { createRowNormaliser, type JointForImport, type NormaliseOptions, type RowNormaliser, type StepLines } from './normalise';
 import { columnMappingSchema, proposeMappingWithNotes, type ColumnMapping } from './shapes';
+import { assertTextWithinLimits } from './text-limits';
 
 /** Rows shown in the upload preview. */
 export const PREVIEW_ROWS = 10;
@@ -110,6 +111,7 @@ export function streamTableRows(detection: DetectionReport, onRow: (cells: strin
 /**
  * Parses a logger text file into a normalised run in one call.
  *
+ * 0. {@link assertTextWithinLimits}: line length, blank-line runs and quoted cells within limits.
  * 1. {@link inspectText}: byte-order mark, line endings, delimiter, decimal comma, header line.
  * 2. Mapping: the caller's (validated with the zod schema) or {@link proposeMappingWithNotes} from
  *    the header and the first {@link SAMPLE_ROWS} rows.
@@ -126,6 +128,7 @@ export function parseLoggerText(
   joint: JointForImport,
   options: ParseLoggerTextOptions = {},
 ): LoggerTextResult {
+  assertTextWithinLimits(text);
   const detection = inspectText(text);
   const sample: TableRow[] = [];
   streamTableRows(detection, (cells, line) => sample.push({ line, cells }), SAMPLE_ROWS);

@@ -13,6 +13,7 @@ import { z } from 'zod';
 import { AppError } from '@/lib/errors';
 import { LOAD_UNITS, TORQUE_UNITS, type LoadUnit, type TorqueUnit } from './units';
 import { isNumericText } from './numbers';
+import { quoteInput } from './text-limits';
 
 /** The table shapes we import. */
 export const SHAPES = ['wide', 'long', 'step_table'] as const;
@@ -182,14 +183,14 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
     if (shape === 'long' && col('time') === null) {
       throw new AppError(
         'invalid_input',
-        `Line ${headerLine}, column "${col('position')}": the columns look like one reading per row (stud position here, load in "${col('load')}") but there is no time or step column to group them.`,
+        `Line ${headerLine}, column ${quoteInput(col('position') ?? '')}: the columns look like one reading per row (stud position here, load in ${quoteInput(col('load') ?? '')}) but there is no time or step column to group them.`,
         { row: headerLine, column: col('position') ?? undefined },
       );
     }
   } else {
     throw new AppError(
       'invalid_input',
-      `Line ${headerLine}: could not recognise the columns (${headers.map((h) => `"${h.trim()}"`).join(', ')}). Name the stud load columns "Stud 1", "Stud 2", ... (wide), or give "position" and "load" columns (long or step table).`,
+      `Line ${headerLine}: could not recognise the columns (${headers.slice(0, 10).map((h) => quoteInput(h)).join(', ')}${headers.length > 10 ? ` and ${headers.length - 10} more` : ''}). Name the stud load columns "Stud 1", "Stud 2", ... (wide), or give "position" and "load" columns (long or step table).`,
       { row: headerLine },
     );
   }
@@ -199,7 +200,7 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
   for (const h of loadHeaders) {
     loadUnit = loadUnitOfHeader(h);
     if (loadUnit) {
-      notes.push(`Load unit ${loadUnit} taken from "${h}".`);
+      notes.push(`Load unit ${loadUnit} taken from ${quoteInput(h)}.`);
       break;
     }
   }
@@ -216,7 +217,7 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
   }
   const torqueColumn = col('torque');
   const torqueUnit = (torqueColumn && torqueUnitOfHeader(torqueColumn)) || 'N·m';
-  if (torqueColumn) notes.push(`Torque unit ${torqueUnit}${torqueUnitOfHeader(torqueColumn) ? ` taken from "${torqueColumn}"` : ' assumed (no unit in the header)'}.`);
+  if (torqueColumn) notes.push(`Torque unit ${torqueUnit}${torqueUnitOfHeader(torqueColumn) ? ` taken from ${quoteInput(torqueColumn)}` : ' assumed (no unit in the header)'}.`);
 
   const mapping: ColumnMapping = {
     shape,

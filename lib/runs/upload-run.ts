@@ -1,14 +1,18 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
-import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import { sequelize } from '@/lib/db';
 import { AppError } from '@/lib/errors';
-import { assertTextFile } from '@/lib/ingest/detect';
-import { parseColumnMapping, parseLoggerText } from '@/lib/ingest/parse-text';
+import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { parseColumnMapping } from '@/lib/ingest/parse-text';
 import { rememberMapping, resolveRunHeader } from '@/lib/data/record';
+import { runScope } from '@/lib/data/scope';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
 import type { SessionUser } from '@/lib/session';
+import { Run } from '@/models';
+import { parseUploadInWorker } from './parse-in-worker';
 import { storeRun } from './store-run';
+import { storeUploadBytes } from './upload-file';
 
 export interface UploadInput {
   bytes: Uint8Array;
@@ -29,6 +33,11 @@ export interface UploadResult {
   warnings: string[];
 }
 
+/** The 413 for a body or file over the upload limit. */
+export function uploadTooLarge(): AppError {
+  return new AppError('too_large', `The file is larger than the upload limit of ${UPLOAD_LIMIT_BYTES / BYTES_PER_MB} MB. Split the log or export only this run.`, { field: 'file', limitBytes: UPLOAD_LIMIT_BYTES });
+}
+
 /** The upload with this sha256, if any, and its run. */
 async function existingUpload(sha256: string): Promise<{ runId: number | null } | null> {
   const rows = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM uploads WHERE sha256 = ?', { type: QueryTypes.SELECT, replacements: [sha256] });
@@ -36,28 +45,36 @@ async function existingUpload(sha256: string): Promise<{ runId: number | null } 
   return row ? { runId: row.run_id === null ? null : Number(row.run_id) } : null;
 }
 
-function duplicate(runId: number | null): AppError {
-  return new AppError('conflict', `This file was uploaded before${runId ? ` (run ${runId})` : ''}; it is not stored twice. Open the existing run instead.`, { runId, field: 'file' });
+/**
+ * The 409 for a file already uploaded: the run is named only when this person may see it;
+ * otherwise the answer says only that the file was uploaded before.
+ */
+async function duplicate(user: SessionUser, runId: number | null): Promise<AppError> {
+  const visible = runId !== null && (await Run.count({ where: { [Op.and]: [await runScope(user), { id: runId }] } })) > 0;
+  return visible
+    ? new AppError('conflict', `This file has already been uploaded (run ${runId}); it is not stored twice. Open the existing run instead.`, { runId, field: 'file' })
+    : new AppError('conflict', 'This file has already been uploaded; it is not stored twice.', { field: 'file' });
 }
 
 /**
  * Stores an uploaded logger file as a complete run. The server re-parses the raw bytes with
- * lib/ingest (the browser's parse is only a preview), then writes the run, its steps and readings,
- * the Upload row (raw bytes, sha256, size, content type, parse report) and the remembered mapping in
- * one transaction: a failure anywhere stores nothing.
+ * lib/ingest in a worker thread with bounded memory and time (the browser's parse is only a
+ * preview), then writes the run, its steps and readings, the Upload row (sha256, size, content
+ * type, parse report), the bytes in 1 MB chunks and the remembered mapping in one transaction: a
+ * failure anywhere stores nothing.
  *
  * @throws AppError: 'too_large' over {@link UPLOAD_LIMIT_BYTES}; 'invalid_input' naming line and
- *   column; 'conflict' with `runId` for a file already uploaded (same sha256); 'forbidden' for an
- *   operator this person may not record as.
+ *   column; 'conflict' for a file already uploaded (same sha256), with `runId` when this person may
+ *   see that run; 'forbidden' for an operator this person may not record as.
  */
 export async function storeUploadedRun(user: SessionUser, input: UploadInput): Promise<UploadResult> {
   const resolved = await resolveRunHeader(user, input.header, 'upload', 'complete');
-  const text = assertTextFile(input.bytes, UPLOAD_LIMIT_BYTES);
+  if (input.bytes.length > UPLOAD_LIMIT_BYTES) throw uploadTooLarge();
   const sha256 = createHash('sha256').update(input.bytes).digest('hex');
   const existing = await existingUpload(sha256);
-  if (existing) throw duplicate(existing.runId);
+  if (existing) throw await duplicate(user, existing.runId);
   const mapping = input.mapping === null || input.mapping === undefined ? undefined : parseColumnMapping(input.mapping);
-  const parsed = parseLoggerText(text, mapping, resolved.jointImport);
+  const parsed = await parseUploadInWorker(input.bytes, UPLOAD_LIMIT_BYTES, mapping, resolved.jointImport);
   const report = {
     detection: parsed.detection.sentences,
     delimiter: parsed.detection.delimiter,
@@ -75,13 +92,14 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
     return await sequelize.transaction(async (transaction) => {
       const runId = await storeRun(resolved.header, parsed.run, transaction);
       const [uploadId] = await sequelize.query(
-        'INSERT INTO uploads (run_id, uploaded_by_id, file_name, sha256, size_bytes, content_type, content, parse_report, created_at) VALUES (?,?,?,?,?,?,?,?,?)',
+        'INSERT INTO uploads (run_id, uploaded_by_id, file_name, sha256, size_bytes, content_type, parse_report, created_at) VALUES (?,?,?,?,?,?,?,?)',
         {
           type: QueryTypes.INSERT,
           transaction,
-          replacements: [runId, user.id, input.fileName.slice(0, 255) || 'upload.csv', sha256, input.bytes.length, (input.contentType || 'text/csv').slice(0, 120), Buffer.from(input.bytes), JSON.stringify(report), new Date()],
+          replacements: [runId, user.id, input.fileName.slice(0, 255) || 'upload.csv', sha256, input.bytes.length, (input.contentType || 'text/csv').slice(0, 120), JSON.stringify(report), new Date()],
         },
       );
+      await storeUploadBytes(Number(uploadId), input.bytes, transaction);
       await rememberMapping(user, resolved.joint.id, parsed.detection.headers, parsed.mapping, transaction);
       return {
         runId,
@@ -94,7 +112,7 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
     });
   } catch (error) {
     // Two uploads of the same file at once: the unique sha256 index decides, the loser gets 409.
-    if (error instanceof UniqueConstraintError || (error as { parent?: { errno?: number } })?.parent?.errno === 1062) throw duplicate((await existingUpload(sha256))?.runId ?? null);
+    if (error instanceof UniqueConstraintError || (error as { parent?: { errno?: number } })?.parent?.errno === 1062) throw await duplicate(user, (await existingUpload(sha256))?.runId ?? null);
     throw error;
   }
 }

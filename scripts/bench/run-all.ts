@@ -7,6 +7,8 @@
  *  3. load: runs-list and run-analysis APIs under 50 connections vs a constant-JSON handler
  *     (target: runs-list >= 0.5x throughput, p99 < 100 ms).
  *  4. burst: 200 connections for 60 s on the runs list: errors, non-2xx, timeouts (target 0).
+ *  5. uploads: /api/health's p99 while pathological 19.9 MB files and a chunked 40 MB body are
+ *     refused, and the server's peak memory (targets p99 < 200 ms, peak < 600 MB), on a fresh server.
  * Prints a table; writes bench-results/bench-<time>.json.
  */
 import { spawnSync } from 'node:child_process';
@@ -20,6 +22,7 @@ import { sequelize } from '../../lib/db';
 import { env } from '../../lib/env';
 import { startAppServer } from '../../tests/support/app-server';
 import { DEMO_ACCOUNTS, signInAs } from '../../tests/support/http-session';
+import { benchUploadPressure } from './upload-pressure';
 
 const root = path.resolve(__dirname, '../..');
 const results: Record<string, unknown> = { machine: { cpus: os.cpus().length, memoryGiB: Math.round(os.totalmem() / 2 ** 30), node: process.version }, startedAt: new Date().toISOString() };
@@ -162,8 +165,26 @@ async function benchBurst(baseUrl: string) {
   rows.push([`burst 200 conn x ${seconds} s: GET /api/runs`, `${burst.total.toLocaleString('en-US')} requests, ${Math.round(burst.requestsPerSecond)} req/s, p99 ${burst.p99} ms`, `pool max ${env.DB_POOL_MAX}`, `errors ${burst.errors}, timeouts ${burst.timeouts}, non-2xx ${burst.non2xx}`]);
 }
 
+async function benchUploads() {
+  // A server of its own (before the shared one starts), so its peak memory (VmHWM) is this scenario's alone.
+  const server = await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200));
+  try {
+    const researcher = await signInAs(server.baseUrl, DEMO_ACCOUNTS.researcher);
+    const ids = await demoIds();
+    const runHeader = { ...ids, cohortId: null, recordedAt: '2026-03-31T09:30', notes: 'bench pathological upload' };
+    const result = await benchUploadPressure(server.baseUrl, researcher.cookie, server.pid, runHeader);
+    results.uploads = { ...result, target: 'health p99 < 200 ms, peak RSS < 600 MB' };
+    for (const u of result.uploads) rows.push([`upload: ${u.name}`, `${u.status} in ${u.seconds.toFixed(1)} s`, u.message.slice(0, 60), '']);
+    rows.push(['uploads: GET /api/health meanwhile', `${result.health.requests} requests, p50 ${result.health.p50} ms, p99 ${result.health.p99} ms, max ${result.health.max} ms`, `failures ${result.health.failures}`, `p99 ${result.health.p99 < 200 ? '<' : '>='} 200 ms`]);
+    rows.push(['uploads: server peak memory', `${result.peakRssMb} MB VmHWM`, '', result.peakRssMb < 600 ? 'under 600 MB' : 'OVER 600 MB']);
+  } finally {
+    await server.stop();
+  }
+}
+
 async function main() {
   if (want('ingest')) await benchIngest();
+  if (want('uploads')) await benchUploads();
   const needsServer = ['compare', 'load', 'burst'].some(want);
   const server = needsServer ? await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200)) : null;
   try {
@@ -185,7 +206,8 @@ async function main() {
   console.log(`\nwritten: ${path.relative(root, file)}`);
 }
 
-main().catch((error: unknown) => {
+// Exit when done: an upload body the server refused early may keep the client's stream open.
+main().then(() => process.exit(0)).catch((error: unknown) => {
   console.error(error);
   process.exit(1);
 });

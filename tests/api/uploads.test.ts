@@ -7,9 +7,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/db';
 import { NM_PER_FT_LB } from '@/lib/ingest/units';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
-import { createTestJoint, dropTestJoints, firstIds, goodFile, header, kN, mappingFor, postUpload, storedSteps, userId } from '../support/record-fixtures';
+import { readUploadBytes } from '@/lib/runs/upload-file';
+import type { AppServer } from '../support/app-server';
+import type { HttpSession } from '../support/http-session';
+import { goodFile, header, kN, mappingFor, postUpload, startUploadTestbed, storedSteps } from '../support/record-fixtures';
 import { FOUR_STUD_JOINT } from '../ingest/joints';
 
 let server: AppServer;
@@ -19,21 +20,14 @@ let jointId: number;
 let instructorId: number;
 let traineeId: number;
 let ids: { methodId: number; lubricantId: number };
+let stop: () => Promise<void>;
 
 beforeAll(async () => {
-  server = await startAppServer();
-  instructor = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
-  trainee = await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee);
-  jointId = await createTestJoint(4, 'uploads');
-  instructorId = await userId(DEMO_ACCOUNTS.instructor);
-  traineeId = await userId(DEMO_ACCOUNTS.trainee);
-  ids = await firstIds();
+  ({ server, instructor, trainee, jointId, instructorId, traineeId, ids, stop } = await startUploadTestbed('uploads'));
 });
 
 afterAll(async () => {
-  await dropTestJoints([jointId]);
-  await server?.stop();
-  await sequelize.close();
+  await stop?.();
 });
 
 async function uploadGood(file: string, session = instructor, operator = () => instructorId) {
@@ -58,9 +52,9 @@ describe('POST /api/uploads', () => {
       { order: 7, pass: 2, position: 2, loadsN: kN(38, 44, 44, 23) },
       { order: 8, pass: 2, position: 4, loadsN: kN(37, 43, 43, 46) },
     ]);
-    const [upload] = await sequelize.query<{ size_bytes: number; sha256: string; content: Buffer }>('SELECT size_bytes, sha256, content FROM uploads WHERE run_id = ?', { type: 'SELECT' as never, replacements: [body.runId] });
+    const [upload] = await sequelize.query<{ id: number; size_bytes: number; sha256: string }>('SELECT id, size_bytes, sha256 FROM uploads WHERE run_id = ?', { type: 'SELECT' as never, replacements: [body.runId] });
     expect(Number(upload!.size_bytes)).toBe(goodFile('wide-step-column.csv').length);
-    expect(Buffer.compare(Buffer.from(upload!.content), Buffer.from(goodFile('wide-step-column.csv')))).toBe(0);
+    expect(Buffer.compare(await readUploadBytes(upload!.id), Buffer.from(goodFile('wide-step-column.csv')))).toBe(0);
   });
 
   it('stores a wide file without a marker with the steps derived from the loads', async () => {
@@ -98,7 +92,7 @@ describe('POST /api/uploads', () => {
     const again = await uploadGood('tab.tsv');
     expect(again.response.status).toBe(409);
     expect(again.body.error?.runId).toBe(first.body.runId);
-    expect(again.body.error?.message).toMatch(/uploaded before/);
+    expect(again.body.error?.message).toMatch(/already been uploaded \(run \d+\)/);
   });
 
   it('lets a trainee upload only as the operator', async () => {

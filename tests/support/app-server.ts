@@ -1,10 +1,13 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import { appendFileSync } from 'node:fs';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '../..');
 
 export interface AppServer {
   baseUrl: string;
+  /** Process id of `next start` (the server process, for memory readings in the bench). */
+  pid: number;
   stop: () => Promise<void>;
 }
 
@@ -36,8 +39,11 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   if (Date.now() >= deadline) throw new Error(`the app did not become healthy within 60 s:\n${output}`);
   return {
     baseUrl,
+    pid: child.pid ?? 0,
     stop: () =>
       new Promise<void>((resolve) => {
+        // EVENLOAD_SERVER_LOG=file keeps the server's output for debugging a failing test.
+        if (process.env.EVENLOAD_SERVER_LOG) appendFileSync(process.env.EVENLOAD_SERVER_LOG, output);
         if (child.exitCode !== null) return resolve();
         child.once('exit', () => resolve());
         child.kill('SIGTERM');

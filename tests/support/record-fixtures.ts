@@ -102,3 +102,25 @@ export async function tableCounts(): Promise<Record<'runs' | 'tightening_steps' 
 }
 
 export const kN = (...v: number[]) => v.map((x) => x * 1000);
+
+/** The shared set-up of the upload tests: the app, an instructor and a trainee signed in, a 4-stud test joint. */
+export async function startUploadTestbed(tag: string) {
+  const { startAppServer } = await import('./app-server');
+  const { DEMO_ACCOUNTS, signInAs } = await import('./http-session');
+  const server = await startAppServer();
+  const testbed = {
+    server,
+    instructor: await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor),
+    trainee: await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee),
+    jointId: await createTestJoint(4, tag),
+    instructorId: await userId(DEMO_ACCOUNTS.instructor),
+    traineeId: await userId(DEMO_ACCOUNTS.trainee),
+    ids: await firstIds(),
+    async stop() {
+      await dropTestJoints([testbed.jointId]);
+      await server.stop();
+      await sequelize.close();
+    },
+  };
+  return testbed;
+}

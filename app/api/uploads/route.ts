@@ -2,37 +2,34 @@ import { NextResponse } from 'next/server';
 import { withRole } from '@/lib/api';
 import { RECORD_ROLES } from '@/lib/data/record';
 import { AppError } from '@/lib/errors';
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { splitMultipart, type FormPart } from '@/lib/multipart';
+import { readBodyWithin } from '@/lib/read-body';
 import { UPLOAD_FORM_OVERHEAD_BYTES, UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import { storeUploadedRun } from '@/lib/runs/upload-run';
+import { storeUploadedRun, uploadTooLarge } from '@/lib/runs/upload-run';
 
 export const runtime = 'nodejs';
 
-function jsonField(form: FormData, name: string): unknown {
-  const value = form.get(name);
-  if (typeof value !== 'string') throw new AppError('invalid_input', `The form has no "${name}" field.`, { field: name });
+function jsonField(form: Map<string, FormPart>, name: string): unknown {
+  const part = form.get(name);
+  if (!part || part.fileName !== null) throw new AppError('invalid_input', `The form has no "${name}" field.`, { field: name });
   try {
-    return JSON.parse(value);
+    return JSON.parse(Buffer.from(part.data).toString('utf8'));
   } catch {
     throw new AppError('invalid_input', `The "${name}" field is not valid JSON.`, { field: name });
   }
 }
 
-// POST /api/uploads - store a logger file (multipart: file, mapping (JSON or null = server's guess), header) as a run; 409 with runId for a file already uploaded
+// POST /api/uploads - store a logger file (multipart: file, mapping (JSON or null = server's guess), header) as a run; 409 for a file already uploaded (with runId when the caller may see that run)
 export const POST = withRole(RECORD_ROLES, async (request, user) => {
-  const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > UPLOAD_LIMIT_BYTES + UPLOAD_FORM_OVERHEAD_BYTES) {
-    throw new AppError('too_large', `The file is larger than the upload limit of ${UPLOAD_LIMIT_BYTES / BYTES_PER_MB} MB. Split the log or export only this run.`, { field: 'file', limitBytes: UPLOAD_LIMIT_BYTES });
-  }
-  const form = await request.formData().catch(() => {
-    throw new AppError('invalid_input', 'Send the upload as multipart form data with the fields file, mapping and header.', { field: 'file' });
-  });
+  // The limit is counted while the body is read (chunked or not); an oversize body is never held whole.
+  const body = await readBodyWithin(request, UPLOAD_LIMIT_BYTES + UPLOAD_FORM_OVERHEAD_BYTES, uploadTooLarge);
+  const form = splitMultipart(body, request.headers.get('content-type') ?? '');
   const file = form.get('file');
-  if (!(file instanceof Blob)) throw new AppError('invalid_input', 'Choose a file to upload.', { field: 'file' });
+  if (!file || file.fileName === null) throw new AppError('invalid_input', 'Choose a file to upload.', { field: 'file' });
   const result = await storeUploadedRun(user, {
-    bytes: new Uint8Array(await file.arrayBuffer()),
-    fileName: file instanceof File ? file.name : 'upload.csv',
-    contentType: file.type,
+    bytes: file.data,
+    fileName: file.fileName || 'upload.csv',
+    contentType: file.contentType,
     mapping: jsonField(form, 'mapping'),
     header: jsonField(form, 'header'),
   });

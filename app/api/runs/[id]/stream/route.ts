@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { errorResponse, withRole, type RouteContext } from '@/lib/api';
 import { authenticateStreamToken } from '@/lib/data/stream-tokens';
 import { AppError } from '@/lib/errors';
+import { readBodyWithin } from '@/lib/read-body';
 import { STREAM_BODY_LIMIT_BYTES } from '@/lib/record/limits';
 import { appendStreamReadings, streamStatus } from '@/lib/runs/live-stream';
 import { ALL_ROLES } from '@/lib/session';
@@ -22,11 +23,8 @@ export async function POST(request: NextRequest, { params }: RouteContext<{ id: 
   try {
     const token = await authenticateStreamToken(request.headers.get('authorization'));
     const { id } = paramsSchema.parse(await params);
-    if (Number(request.headers.get('content-length') ?? '0') > STREAM_BODY_LIMIT_BYTES) {
-      throw new AppError('too_large', `One request may carry at most ${STREAM_BODY_LIMIT_BYTES / 1024 / 1024} MB; send smaller batches.`);
-    }
-    const body = await request.text();
-    if (body.length > STREAM_BODY_LIMIT_BYTES) throw new AppError('too_large', `One request may carry at most ${STREAM_BODY_LIMIT_BYTES / 1024 / 1024} MB; send smaller batches.`);
+    const tooLarge = () => new AppError('too_large', `One request may carry at most ${STREAM_BODY_LIMIT_BYTES / 1024 / 1024} MB; send smaller batches.`);
+    const body = new TextDecoder().decode(await readBodyWithin(request, STREAM_BODY_LIMIT_BYTES, tooLarge));
     return NextResponse.json(await appendStreamReadings(token.jointId, id, body));
   } catch (error) {
     return errorResponse(error);
