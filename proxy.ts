@@ -41,11 +41,14 @@ function withPolicy(response: NextResponse, policy: string): NextResponse {
   return response;
 }
 
-/** By Content-Length when sent; a chunked body is counted as it is read, and reading stops past the limit. */
+/**
+ * By Content-Length when sent; a chunked body is counted as it is read, and reading stops past the
+ * limit. (Next hands the proxy its own copy of the body and replays the original to the page.)
+ */
 async function actionBodyTooLarge(request: NextRequest): Promise<boolean> {
   const declared = request.headers.get('content-length');
   if (declared !== null) return Number(declared) > SERVER_ACTION_BODY_LIMIT_BYTES;
-  const reader = request.clone().body?.getReader();
+  const reader = request.body?.getReader();
   if (!reader) return false;
   let total = 0;
   for (;;) {
