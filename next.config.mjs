@@ -1,21 +1,12 @@
+/**
+ * Pages get their Content-Security-Policy, with a per-request nonce, from proxy.ts
+ * (lib/content-security-policy.ts). Route handlers answer data, never a document to run: nothing
+ * at all may load in their name.
+ */
+const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
+
 /** @type {import('next').NextConfig} */
 const securityHeaders = [
-  {
-    key: 'Content-Security-Policy',
-    value: [
-      "default-src 'self'",
-      "script-src 'self' 'unsafe-inline'",
-      "style-src 'self' 'unsafe-inline'",
-      "img-src 'self' data: blob:",
-      "font-src 'self'",
-      "connect-src 'self'",
-      "worker-src 'self' blob:",
-      "frame-ancestors 'none'",
-      "object-src 'none'",
-      "base-uri 'self'",
-      "form-action 'self'",
-    ].join('; '),
-  },
   { key: 'X-Content-Type-Options', value: 'nosniff' },
   { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
   { key: 'X-Frame-Options', value: 'DENY' },
@@ -26,8 +17,16 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'mariadb'],
   poweredByHeader: false,
   reactStrictMode: true,
+  experimental: {
+    // Server actions carry form fields only (files go to /api/uploads); proxy.ts answers 413 above
+    // this size (SERVER_ACTION_BODY_LIMIT_BYTES) before Next reads the body.
+    serverActions: { bodySizeLimit: '1mb' },
+  },
   async headers() {
-    return [{ source: '/:path*', headers: securityHeaders }];
+    return [
+      { source: '/:path*', headers: securityHeaders },
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: API_CONTENT_SECURITY_POLICY }] },
+    ];
   },
 };
 

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 const sans = localFont({
@@ -23,7 +24,12 @@ export const metadata: Metadata = {
   description: 'The web lab for bolted flange joint assembly: per-stud load runs, scatter and elastic interaction.',
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+/**
+ * Every page renders per request: proxy.ts gives each request a CSP nonce, which Next puts on its
+ * scripts only when the HTML is rendered for that request (a prerendered page would carry none).
+ */
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  await connection();
   return (
     <html lang="en" className={`${sans.variable} ${mono.variable}`}>
       <body className="min-h-screen bg-paper font-sans text-ink antialiased">{children}</body>

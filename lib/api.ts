@@ -39,18 +39,57 @@ export function isDatabaseDown(error: unknown): boolean {
   return name.startsWith('SequelizeConnection') || name === 'SequelizeHostNotReachableError';
 }
 
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
 /**
- * The one wrapper for route handlers: authenticates, checks the role, and maps errors.
+ * The rule Next applies to server actions, for route handlers that change data: a browser's request
+ * must come from our own origin. The Origin header (sent by browsers on every POST, PUT, PATCH and
+ * DELETE) must name the host the request was sent to; without it, Sec-Fetch-Site must not say
+ * `cross-site` or `same-site` (another port or subdomain is another origin). A request with neither
+ * comes from a program, not a browser page, and cannot carry a victim's cookie by itself.
+ */
+export function assertSameOrigin(request: Request): void {
+  if (SAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get('origin');
+  if (origin !== null) {
+    const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
+    let originHost: string | null = null;
+    try {
+      originHost = origin === 'null' ? null : new URL(origin).host;
+    } catch {
+      originHost = null;
+    }
+    if (!host || originHost !== host.split(',')[0]!.trim()) throw new AppError('forbidden', 'This request came from another site and was refused.');
+    return;
+  }
+  const site = request.headers.get('sec-fetch-site');
+  if (site === 'cross-site' || site === 'same-site') throw new AppError('forbidden', 'This request came from another site and was refused.');
+}
+
+/** Signed-in answers are one person's data: no shared cache may keep them, nor the browser's disk cache. */
+function privateNoStore(response: Response): Response {
+  try {
+    response.headers.set('Cache-Control', 'private, no-store');
+  } catch {
+    // a response with immutable headers (e.g. Response.redirect) carries no private data
+  }
+  return response;
+}
+
+/**
+ * The one wrapper for route handlers: refuses cross-origin writes, authenticates, checks the role,
+ * maps errors, and marks every answer `Cache-Control: private, no-store`.
  * `withRole(['instructor'], async (request, user, { params }) => ...)`.
  */
 export function withRole<P = Record<string, string>>(roles: readonly Role[], handler: Handler<P>) {
   return async (request: NextRequest, context: RouteContext<P>): Promise<Response> => {
     try {
+      assertSameOrigin(request);
       const user = await getSessionUser();
       assertRole(user, roles);
-      return await handler(request, user, context);
+      return privateNoStore(await handler(request, user, context));
     } catch (error) {
-      return errorResponse(error);
+      return privateNoStore(errorResponse(error));
     }
   };
 }

@@ -2,9 +2,10 @@ import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
+import { CLIENT_ADDRESS_HEADER } from './client-address';
 import { authSecret, env } from './env';
 import { verifyPassword } from './passwords';
-import { clearFailures, isLocked, recordFailure } from './rate-limit';
+import { clearSignInFailures, isSignInLocked, recordSignInFailure, signInKeys } from './rate-limit';
 import { User } from '@/models';
 import { checkSession, openSession, revokeSession } from './data/session-store';
 import { sessionClaimsOf } from './session';
@@ -19,10 +20,25 @@ const credentialsSchema = z.object({
 export const SIGN_IN_FAILED = 'That e-mail and password do not match an account.';
 export const SIGN_IN_LOCKED = 'Too many failed attempts. Wait 15 minutes, then try again.';
 
+let warnedNoClientAddress = false;
+
+/**
+ * The address the server saw, from scripts/serve.ts (lib/client-address.ts): never the client's own
+ * X-Forwarded-For. Started another way (plain `next start`), production has no trustworthy address,
+ * so every client shares one and the per-account limits still hold; `next dev` uses Next's header.
+ */
 function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.['x-forwarded-for'];
-  const first = typeof forwarded === 'string' ? forwarded.split(',')[0]?.trim() : undefined;
-  return first || 'local';
+  const resolved = headers?.[CLIENT_ADDRESS_HEADER];
+  if (typeof resolved === 'string' && resolved) return resolved;
+  if (env.NODE_ENV !== 'production') {
+    const forwarded = headers?.['x-forwarded-for'];
+    return (typeof forwarded === 'string' ? forwarded.split(',')[0]?.trim() : undefined) || 'local';
+  }
+  if (!warnedNoClientAddress) {
+    warnedNoClientAddress = true;
+    console.warn('[auth] no client address: start the app with scripts/serve.ts (npm start / npm run serve) so sign-in throttling is per address');
+  }
+  return 'unknown';
 }
 
 export const authOptions: NextAuthOptions = {
@@ -40,15 +56,15 @@ export const authOptions: NextAuthOptions = {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) throw new Error(SIGN_IN_FAILED);
         const { email, password } = parsed.data;
-        const keys = [`email:${email}`, `addr:${clientAddress(request?.headers)}`];
-        if (await isLocked(keys)) throw new Error(SIGN_IN_LOCKED);
+        const keys = signInKeys(email, clientAddress(request?.headers));
+        if (await isSignInLocked(keys)) throw new Error(SIGN_IN_LOCKED);
         const user = await User.findOne({ where: { email } });
         const ok = await verifyPassword(password, user?.passwordHash);
         if (!user || !ok || !user.isActive) {
-          await recordFailure(keys);
+          await recordSignInFailure(keys);
           throw new Error(SIGN_IN_FAILED);
         }
-        await clearFailures([keys[0] as string]);
+        await clearSignInFailures(keys);
         return { id: String(user.id), name: user.name, email: user.email, role: user.role, units: user.preferredUnits, sessionVersion: user.sessionVersion };
       },
     }),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseTrustedProxies } from './client-address';
 
 /**
  * Environment settings, parsed once with zod. Local defaults let `npm start` run with nothing set;
@@ -34,6 +35,21 @@ const schema = z.object({
   APP_BASE_URL: z.string().url().optional(),
   /** 1 shows the development outbox (/dev/outbox) in a production build, for the demo. */
   EVENLOAD_OUTBOX: z.enum(['0', '1']).default('0'),
+  /**
+   * Load balancers / reverse proxies whose X-Forwarded-For is believed, as IPs or CIDR ranges
+   * ("10.0.0.5, 10.1.0.0/16"). Empty: the socket's peer is the client (scripts/serve.ts).
+   */
+  EVENLOAD_TRUSTED_PROXIES: z
+    .string()
+    .default('')
+    .refine((list) => {
+      try {
+        parseTrustedProxies(list);
+        return true;
+      } catch {
+        return false;
+      }
+    }, 'a comma-separated list of IP addresses or CIDR ranges, e.g. 10.0.0.5, 10.1.0.0/16'),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -14,4 +14,4 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-http://127.0.0.1:${PORT:-3000}}"
 # The demo shows captured mail at /dev/outbox (the local SMTP fake started by setup.sh).
 export EVENLOAD_OUTBOX="${EVENLOAD_OUTBOX:-1}"
 evenload_log "serving on http://127.0.0.1:${PORT:-3000} (demo accounts in README.md; Ctrl-C to stop the app; 'npm run db:stop' stops MariaDB)"
-exec npx next start -H 127.0.0.1 -p "${PORT:-3000}"
+exec npx tsx scripts/serve.ts -H 127.0.0.1 -p "${PORT:-3000}"

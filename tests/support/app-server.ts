@@ -12,12 +12,12 @@ export interface AppServer {
 }
 
 /**
- * Starts the built app (`next start`) against the test database on its own port and waits until
+ * Starts the built app (through scripts/serve.ts, as `npm start` does) against the test database on its own port and waits until
  * /api/health answers. The test command builds the app first.
  */
 export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_PORT ?? 3100), extraEnv: Record<string, string> = {}): Promise<AppServer> {
   const baseUrl = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '-H', '127.0.0.1', '-p', String(port)], {
+  const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), ['scripts/serve.ts', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1', ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -27,7 +27,7 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   child.stderr?.on('data', (chunk) => (output += String(chunk)));
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error(`next start exited early:\n${output}`);
+    if (child.exitCode !== null) throw new Error(`the app server exited early:\n${output}`);
     try {
       const response = await fetch(`${baseUrl}/api/health`);
       if (response.status === 200) break;

@@ -1,3 +1,5 @@
+import { request as httpRequest } from 'node:http';
+
 /** A signed-in HTTP client for API tests: signs in through next-auth's credentials endpoint. */
 export const DEMO_PASSWORD = 'even-load-demo';
 
@@ -43,17 +45,41 @@ export function sessionWithCookie(baseUrl: string, cookie: string): HttpSession 
   };
 }
 
+/** Where a sign-in comes from: extra headers (e.g. a forged X-Forwarded-For) and the local socket address (any 127.x on Linux). */
+export interface RequestOrigin {
+  headers?: Record<string, string>;
+  localAddress?: string;
+}
+
+/** fetch, or node:http bound to a chosen local address (fetch cannot choose it). */
+async function fetchFrom(from: RequestOrigin, url: string, init: { method?: string; headers?: Record<string, string>; body?: string } = {}): Promise<Response> {
+  const headers = { ...init.headers, ...from.headers };
+  if (!from.localAddress) return fetch(url, { ...init, headers, redirect: 'manual' });
+  return new Promise((resolve, reject) => {
+    const request = httpRequest(url, { method: init.method ?? 'GET', headers, localAddress: from.localAddress }, (response) => {
+      const chunks: Buffer[] = [];
+      response.on('data', (chunk: Buffer) => chunks.push(chunk));
+      response.on('end', () => {
+        const out = new Headers();
+        for (const [name, value] of Object.entries(response.headers)) for (const one of [value ?? []].flat()) out.append(name, one);
+        resolve(new Response(Buffer.concat(chunks), { status: response.statusCode, headers: out }));
+      });
+    });
+    request.on('error', reject);
+    request.end(init.body);
+  });
+}
+
 /** Returns the response of the credentials callback and, when it worked, a session. */
-export async function signIn(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<{ ok: boolean; session: HttpSession; error: string | null }> {
+export async function signIn(baseUrl: string, email: string, password = DEMO_PASSWORD, from: RequestOrigin = {}): Promise<{ ok: boolean; session: HttpSession; error: string | null }> {
   const jar = new Map<string, string>();
-  const csrfResponse = await fetch(`${baseUrl}/api/auth/csrf`);
+  const csrfResponse = await fetchFrom(from, `${baseUrl}/api/auth/csrf`);
   cookiesFrom(csrfResponse, jar);
   const { csrfToken } = (await csrfResponse.json()) as { csrfToken: string };
-  const response = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+  const response = await fetchFrom(from, `${baseUrl}/api/auth/callback/credentials`, {
     method: 'POST',
-    redirect: 'manual',
     headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; ') },
-    body: new URLSearchParams({ email, password, csrfToken, json: 'true' }),
+    body: new URLSearchParams({ email, password, csrfToken, json: 'true' }).toString(),
   });
   cookiesFrom(response, jar);
   const cookie = [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
