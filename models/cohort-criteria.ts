@@ -8,6 +8,8 @@ export class CohortCriteria extends Model<InferAttributes<CohortCriteria>, Infer
   declare requirePattern: boolean;
   declare maxYieldPercent: number;
   declare updatedById: number | null;
+  /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -20,6 +22,7 @@ export class CohortCriteria extends Model<InferAttributes<CohortCriteria>, Infer
         requirePattern: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         maxYieldPercent: { type: DataTypes.DOUBLE, allowNull: false },
         updatedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -18,6 +18,8 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
   declare targetLoadN: number;
   declare bandPercent: CreationOptional<number>;
   declare notes: CreationOptional<string | null>;
+  /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -39,6 +41,7 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
         targetLoadN: { type: DataTypes.DOUBLE, allowNull: false },
         bandPercent: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 10 },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -5,6 +5,8 @@ export class Lubricant extends Model<InferAttributes<Lubricant>, InferCreationAt
   declare name: string;
   declare nominalNutFactor: number;
   declare notes: CreationOptional<string | null>;
+  /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -15,6 +17,7 @@ export class Lubricant extends Model<InferAttributes<Lubricant>, InferCreationAt
         name: { type: DataTypes.STRING(160), allowNull: false, unique: true },
         nominalNutFactor: { type: DataTypes.DOUBLE, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

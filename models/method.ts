@@ -20,6 +20,8 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
   declare passes: MethodPass[];
   declare checkPasses: CreationOptional<number>;
   declare notes: CreationOptional<string | null>;
+  /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -40,6 +42,7 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
         },
         checkPasses: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 0 },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -9,7 +9,7 @@ import { FieldError, FormMessage } from '../ui/field-error';
 
 const input = 'mt-1 w-28 rounded-md border border-rule bg-paper px-3 py-1.5 text-right text-ink num';
 
-export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number; criteria: AssessmentCriteria; limits: Record<'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', { min: number; max: number }> }) {
+export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number; criteria: AssessmentCriteria & { version: number }; limits: Record<'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', { min: number; max: number }> }) {
   const [state, action, pending] = useActionState(saveCriteriaAction.bind(null, cohortId), IDLE_STATE);
   const numberField = (name: 'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', label: string, hint: string) => (
     <div>
@@ -24,6 +24,7 @@ export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number;
   );
   return (
     <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
+      <input type="hidden" name="version" value={criteria.version} />
       {numberField('bandPercent', 'Band: every final load within ± % of target', 'Default ±10 % (common practice).')}
       {numberField('maxCvPercent', 'Largest CV of the final loads', 'Default 5 % (our classroom default, from memory).')}
       {numberField('maxYieldPercent', 'Largest stud load, % of minimum yield load', 'Default 70 % (top of the commonly quoted 40–70 % range, from memory).')}

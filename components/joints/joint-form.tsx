@@ -72,6 +72,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
   return (
     <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={joint ? `Edit joint ${joint.name}` : 'New joint'}>
       <input type="hidden" name="units" value={units} />
+      {joint ? <input type="hidden" name="version" value={joint.version} /> : null}
       <FormMessage status={state.status} message={state.message} />
 
       <Section title="Flange and studs">

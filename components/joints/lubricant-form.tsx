@@ -17,6 +17,7 @@ export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSumm
   const errors = state.errors;
   return (
     <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={lubricant ? `Edit lubricant ${lubricant.name}` : 'New lubricant'}>
+      {lubricant ? <input type="hidden" name="version" value={lubricant.version} /> : null}
       <FormMessage status={state.status} message={state.message} />
       <Section title="Lubricant">
         <div className="flex flex-wrap gap-4">

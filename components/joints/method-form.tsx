@@ -73,6 +73,7 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
   return (
     <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={method ? `Edit method ${method.name}` : 'New method'}>
       <input type="hidden" name="passCount" value={passes.length} />
+      {method ? <input type="hidden" name="version" value={method.version} /> : null}
       <input type="hidden" name="studCounts" value={counts.join(',')} />
       <FormMessage status={state.status} message={state.message} />
       {method && method.runCount > 0 ? (

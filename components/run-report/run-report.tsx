@@ -129,7 +129,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
         </div>
       </section>
 
-      <CommentPanel comments={comments} action={commentAction} />
+      {role === 'researcher' ? null : <CommentPanel comments={comments} action={commentAction} />}
     </article>
   );
 }

@@ -21,7 +21,6 @@ export function ExportPanel({ units, research }: { units: 'si' | 'us'; research:
   const selection = pick(FILTER_KEYS);
   const href = (format: 'csv' | 'json') => `/api/runs/export?${new URLSearchParams([...selection.entries(), ['format', format], ['units', units]]).toString()}`;
   const researchParams = pick(RESEARCH_KEYS);
-  researchParams.set('key', key.trim());
   const keyOk = key.trim().length >= 8;
   return (
     <section aria-labelledby="export-heading" className="no-print rounded-card border border-rule bg-panel p-3 text-sm">
@@ -32,18 +31,20 @@ export function ExportPanel({ units, research }: { units: 'si' | 'us'; research:
         <a className="rounded-md border border-rule px-3 py-1.5 hover:bg-rule/60" href={href('json')}>JSON</a>
       </div>
       {research ? (
-        <div className="mt-3 border-t border-rule pt-3">
+        // A form post: the key travels in the body, never in the address (history, logs, Referer).
+        <form method="post" action="/api/exports/runs.csv" onSubmit={(e) => { if (!keyOk) e.preventDefault(); }} className="mt-3 border-t border-rule pt-3">
+          {[...researchParams.entries()].map(([name, value]) => <input key={name} type="hidden" name={name} value={value} />)}
           <label htmlFor="export-key" className="block font-medium">Research export (pseudonymised)</label>
           <p id="export-key-hint" className="text-xs text-muted">Complete runs only. Operators become stable pseudonyms under your export key (at least 8 characters); the file holds no names or e-mail addresses. Use the same key to get the same pseudonyms next time.</p>
           <div className="mt-1 flex flex-wrap items-center gap-2">
-            <input id="export-key" value={key} onChange={(e) => setKey(e.target.value)} aria-describedby="export-key-hint export-key-error" className="rounded-md border border-rule bg-paper px-2 py-1.5" placeholder="e.g. lube-study-2026" />
+            <input id="export-key" name="key" autoComplete="off" value={key} onChange={(e) => setKey(e.target.value)} aria-describedby="export-key-hint export-key-error" className="rounded-md border border-rule bg-paper px-2 py-1.5" placeholder="e.g. lube-study-2026" />
             {keyOk ? (
-              <a className="rounded-md bg-accent px-3 py-1.5 text-accent-ink" href={`/api/exports/runs.csv?${researchParams.toString()}`} download>Download pseudonymised CSV</a>
+              <button type="submit" className="rounded-md bg-accent px-3 py-1.5 text-accent-ink">Download pseudonymised CSV</button>
             ) : (
               <span id="export-key-error" aria-live="polite" className="text-xs text-muted">{key ? 'The key needs at least 8 characters.' : 'Enter a key to download.'}</span>
             )}
           </div>
-        </div>
+        </form>
       ) : null}
     </section>
   );

@@ -1,5 +1,5 @@
 import 'server-only';
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { criteriaSchema, DEFAULT_CRITERIA, type AssessmentCriteria } from '../assessment/criteria';
 import { judgeRun, type Judgement, type JudgeRunInput } from '../assessment/judge-run';
 import { appBaseUrl } from '../env';
@@ -7,29 +7,41 @@ import { AppError } from '../errors';
 import { sendMail } from '../mail/mailer';
 import { resultsMail } from '../mail/templates';
 import type { SessionUser } from '../session';
-import { CohortCriteria, Joint, Method, Run, RunVerdict, User, sequelize } from '@/models';
+import { Cohort, CohortCriteria, Joint, Method, Run, RunVerdict, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
 import { manageableCohort } from './cohort-access';
+import { nextVersion } from './optimistic-lock';
 
 export interface CohortCriteriaDto extends AssessmentCriteria {
   /** True while the cohort still uses the defaults (nothing saved yet). */
   isDefault: boolean;
+  /** Sent back by the criteria form (optimistic locking); 0 while nothing is saved. */
+  version: number;
 }
 
 export async function criteriaForCohort(cohortId: number, transaction?: Transaction): Promise<CohortCriteriaDto> {
   const row = await CohortCriteria.findByPk(cohortId, { transaction });
-  if (!row) return { ...DEFAULT_CRITERIA, isDefault: true };
-  return { bandPercent: row.bandPercent, maxCvPercent: row.maxCvPercent, requirePattern: Boolean(row.requirePattern), maxYieldPercent: row.maxYieldPercent, isDefault: false };
+  if (!row) return { ...DEFAULT_CRITERIA, isDefault: true, version: 0 };
+  return { bandPercent: row.bandPercent, maxCvPercent: row.maxCvPercent, requirePattern: Boolean(row.requirePattern), maxYieldPercent: row.maxYieldPercent, isDefault: false, version: row.version };
 }
 
-/** Saves a cohort's criteria. @throws AppError `invalid_input` with per-field messages; nothing is saved then. */
-export async function saveCohortCriteria(user: SessionUser | null, cohortId: number, input: unknown): Promise<AssessmentCriteria> {
+/**
+ * Saves a cohort's criteria when `sentVersion` is the version the form was opened with.
+ * @throws AppError `invalid_input` with per-field messages, `conflict` for a stale form; nothing is saved then.
+ */
+export async function saveCohortCriteria(user: SessionUser | null, cohortId: number, input: unknown, sentVersion: unknown): Promise<AssessmentCriteria> {
   const cohort = await manageableCohort(user, cohortId);
   const parsed = criteriaSchema.safeParse(input);
   if (!parsed.success) {
     throw new AppError('invalid_input', 'Some criteria are outside sensible limits; nothing was saved. Correct the fields marked.', { fieldErrors: parsed.error.flatten().fieldErrors });
   }
-  await CohortCriteria.upsert({ cohortId: cohort.id, ...parsed.data, updatedById: user!.id });
+  await sequelize.transaction(async (transaction) => {
+    // The cohort's row is the lock for a first save too (no criteria row yet to hold).
+    await Cohort.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
+    const row = await CohortCriteria.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE });
+    const version = nextVersion(row?.version ?? 0, sentVersion);
+    await CohortCriteria.upsert({ cohortId: cohort.id, ...parsed.data, updatedById: user!.id, version }, { transaction });
+  });
   return parsed.data;
 }
 
@@ -102,20 +114,31 @@ export async function signOffRun(user: SessionUser | null, runId: number, rawCom
   const comment = typeof rawComment === 'string' ? rawComment.trim() : '';
   if (comment.length > 4000) throw new AppError('invalid_input', 'The comment is longer than 4,000 characters; shorten it.', { fieldErrors: { comment: ['The comment is longer than 4,000 characters; shorten it.'] } });
   if (run.status !== 'complete') throw new AppError('invalid_input', `Only complete runs can be signed off; this run is ${run.status.replace('_', ' ')}.`);
-  return sequelize.transaction(async (transaction) => {
-    const existing = await RunVerdict.findOne({ where: { runId: run.id }, transaction, lock: transaction.LOCK.UPDATE });
-    if (existing) throw new AppError('conflict', `This run was already signed off on ${existing.signedAt.toISOString().slice(0, 10)}.`);
-    const { isDefault: _isDefault, ...criteria } = await criteriaForCohort(cohort.id, transaction);
-    const judgement = (await judgeRuns([run.id], criteria, transaction)).get(run.id);
-    if (!judgement) throw new AppError('invalid_input', 'This run has no final loads for every stud, so it cannot be judged.');
-    const now = new Date();
-    const verdict = await RunVerdict.create(
-      { runId: run.id, cohortId: cohort.id, criteria, results: judgement.results, allMet: judgement.allMet, comment: comment || null, signedById: user!.id, signedAt: now },
-      { transaction },
-    );
-    return { verdictId: verdict.id, allMet: judgement.allMet };
-  });
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      // Lock the run's own row (it exists), not the verdict's gap: simultaneous sign-offs queue
+      // here one behind the other instead of deadlocking on the verdict index.
+      await Run.findByPk(run.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
+      const existing = await RunVerdict.findOne({ where: { runId: run.id }, transaction });
+      if (existing) throw alreadySignedOff(existing.signedAt);
+      const { isDefault: _isDefault, version: _version, ...criteria } = await criteriaForCohort(cohort.id, transaction);
+      const judgement = (await judgeRuns([run.id], criteria, transaction)).get(run.id);
+      if (!judgement) throw new AppError('invalid_input', 'This run has no final loads for every stud, so it cannot be judged.');
+      const now = new Date();
+      const verdict = await RunVerdict.create(
+        { runId: run.id, cohortId: cohort.id, criteria, results: judgement.results, allMet: judgement.allMet, comment: comment || null, signedById: user!.id, signedAt: now },
+        { transaction },
+      );
+      return { verdictId: verdict.id, allMet: judgement.allMet };
+    });
+  } catch (error) {
+    // A second instance that inserted between our check and our insert: the unique index answers.
+    if (error instanceof UniqueConstraintError) throw alreadySignedOff((await RunVerdict.findOne({ where: { runId: run.id } }))?.signedAt ?? new Date());
+    throw error;
+  }
 }
+
+const alreadySignedOff = (signedAt: Date) => new AppError('conflict', `This run is already signed off (on ${signedAt.toISOString().slice(0, 10)}); nothing was changed.`);
 
 /** Sends the signed result to the trainee (and, when asked and known, their employer contact). */
 export async function sendRunResults(user: SessionUser | null, runId: number, copyEmployer: boolean): Promise<{ to: string; cc: string | null }> {

@@ -3,15 +3,17 @@ import { z } from 'zod';
 import { Cohort, CohortMember, Joint, Method, OneTimeToken, Run, RunVerdict, User } from '@/models';
 import type { CriterionResult } from '../assessment/judge-run';
 import { AppError } from '../errors';
+import { isoDateSchema } from '../validation/iso-date';
+import { nameSchema } from '../validation/display-name';
 import { assertRole, type SessionUser } from '../session';
 import { criteriaForCohort, judgeRuns, type CohortCriteriaDto } from './assessment';
 import { COHORT_ROLES, manageableCohort } from './cohort-access';
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Enter a date like 2026-03-31.' });
+const isoDate = isoDateSchema('Enter a real date like 2026-03-31.');
 
 export const newCohortSchema = z
   .object({
-    name: z.string().trim().min(3, { error: 'Give the course a name of at least 3 characters.' }).max(160, { error: 'Keep the course name under 160 characters.' }),
+    name: nameSchema({ what: 'the course name', min: 3, tooShort: 'Give the course a name of at least 3 characters.' }),
     site: z.string().trim().min(2, { error: 'Name the site where the course runs.' }).max(160, { error: 'Keep the site under 160 characters.' }),
     startsOn: isoDate,
     endsOn: isoDate,

@@ -5,10 +5,11 @@ import { z } from 'zod';
 import { compareGroups, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
 import { nutFactor } from '../stats/nut-factor';
 import type { SessionUser } from '../session';
+import { isoDateSchema } from '../validation/iso-date';
 import { sequelize } from '@/models';
-import { operatorLabel, runScopeSql } from './scope';
+import { operatorKey, operatorLabel, refuseOperatorIdsForResearcher, runScopeSql } from './scope';
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
+const isoDate = isoDateSchema();
 const idList = z
   .string()
   .regex(/^\d+(,\d+)*$/, 'must be a comma-separated list of numbers')
@@ -83,6 +84,7 @@ const CACHE_DAYS = 2;
  * aggregate plus a primary-key read.
  */
 export async function compareRunsJson(user: SessionUser, query: CompareQuery): Promise<string> {
+  refuseOperatorIdsForResearcher(user, 'ids', query.by === 'trainee' && Boolean(query.ids?.length));
   const { where, params } = await filterSql(user, query);
   const [fp] = await sequelize.query<{ n: number; changed: Date | null; ids: number | null; names: Date | null }>(
     `SELECT COUNT(*) AS n, MAX(r.updated_at) AS changed, SUM(r.id) AS ids,
@@ -138,7 +140,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
   if (!query.ids) groupIds = groupIds.sort((a, b) => (labels.get(a) ?? '').localeCompare(labels.get(b) ?? ''));
 
   const inputs: GroupInput[] = groupIds.map((id) => ({
-    key: String(id),
+    key: query.by === 'trainee' ? operatorKey(user, id) : String(id),
     label: labels.get(id) ?? `#${id}`,
     runs: (byGroup.get(id) ?? [])
       .filter((r) => r.final_loads_json)

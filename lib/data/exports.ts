@@ -5,9 +5,10 @@ import { Cohort, Joint, Lubricant, Method, Run, sequelize } from '@/models';
 import { csvLine } from '../export/csv-cell';
 import { pseudonymFor } from '../pseudonym';
 import { assertRole, type SessionUser } from '../session';
+import { isoDateSchema } from '../validation/iso-date';
 
 const id = z.coerce.number().int().positive();
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
+const isoDate = isoDateSchema();
 
 export const runExportQuerySchema = z
   .object({

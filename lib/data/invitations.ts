@@ -1,4 +1,5 @@
 import 'server-only';
+import { Op, type Transaction } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, CohortMember, OneTimeToken, User, sequelize } from '@/models';
 import type { TokenPurpose } from '@/models/one-time-token';
@@ -10,6 +11,7 @@ import { sendMail, type OutgoingMail } from '../mail/mailer';
 import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/templates';
 import { hashPassword } from '../passwords';
 import { isLocked, recordFailure } from '../rate-limit';
+import { nameSchema } from '../validation/display-name';
 import type { SessionUser } from '../session';
 import { manageableCohort } from './cohort-access';
 import { endAllSessions } from './session-store';
@@ -51,6 +53,8 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
   const mails: OutgoingMail[] = [];
   const base = appBaseUrl();
   await sequelize.transaction(async (transaction) => {
+    // One instructor's invitations queue behind each other, so the hourly count holds on every instance.
+    await User.findByPk(user!.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
     for (const email of valid) {
       let account = await User.findOne({ where: { email }, transaction, lock: transaction.LOCK.UPDATE });
       const isNew = !account;
@@ -63,6 +67,7 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
       if (!member) await CohortMember.create({ cohortId: cohort.id, userId: account.id }, { transaction });
       if (account.passwordHash === null) {
         // A new account, or an invited one that never set a password: a fresh link.
+        await assertInvitationAllowed(user!.id, account.id, email, now, transaction);
         const value = newTokenValue();
         const expiresAt = tokenExpiry('invite', now);
         await OneTimeToken.create({ tokenSha256: hashToken(value), purpose: 'invite', userId: account.id, cohortId: cohort.id, createdById: user!.id, expiresAt }, { transaction });
@@ -82,6 +87,31 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
     }
   }
   return outcome;
+}
+
+/** Invitation links one instructor may send per hour, and one address may receive per day (from any instructor). */
+export const INVITATION_LIMITS = { perInstructorPerHour: 20, perAddressPerDay: 3 } as const;
+
+const HOUR_MS = 3_600_000;
+
+/**
+ * Refuses the next invitation link when the instructor has sent `perInstructorPerHour` in the last
+ * hour or the address has received `perAddressPerDay` in the last day. Counted on one_time_tokens in
+ * MariaDB (inside the caller's transaction, which holds the instructor's and the account's rows), so
+ * the limit holds across app instances. The caller's transaction rolls back: nobody in the list is invited.
+ */
+async function assertInvitationAllowed(instructorId: number, accountId: number, email: string, now: Date, transaction: Transaction): Promise<void> {
+  const since = (ms: number) => ({ [Op.gt]: new Date(now.getTime() - ms) });
+  const byInstructor = await OneTimeToken.count({ where: { purpose: 'invite', createdById: instructorId, createdAt: since(HOUR_MS) }, transaction });
+  if (byInstructor >= INVITATION_LIMITS.perInstructorPerHour) {
+    const message = `You have sent ${INVITATION_LIMITS.perInstructorPerHour} invitations in the last hour, the most allowed. Nobody in this list was invited; try again in an hour.`;
+    throw new AppError('rate_limited', message, { fieldErrors: { addresses: [message] } });
+  }
+  const toAddress = await OneTimeToken.count({ where: { purpose: 'invite', userId: accountId, createdAt: since(24 * HOUR_MS) }, transaction });
+  if (toAddress >= INVITATION_LIMITS.perAddressPerDay) {
+    const message = `${email} has already been sent ${INVITATION_LIMITS.perAddressPerDay} invitations today, the most allowed. Nobody in this list was invited; remove ${email} or try again tomorrow.`;
+    throw new AppError('rate_limited', message, { fieldErrors: { addresses: [message] } });
+  }
 }
 
 export interface TokenDescription {
@@ -104,7 +134,7 @@ export async function describeToken(value: string, purpose: TokenPurpose, now = 
 
 export const setPasswordSchema = z
   .object({
-    name: z.string().trim().min(2, { error: 'Enter your name as it should appear on your results (at least 2 characters).' }).max(120, { error: 'Keep your name under 120 characters.' }).optional(),
+    name: nameSchema({ what: 'your name', min: 2, max: 120, tooShort: 'Enter your name as it should appear on your results (at least 2 characters).' }).optional(),
     password: z.string().min(PASSWORD_MIN_LENGTH, { error: `Choose a password of at least ${PASSWORD_MIN_LENGTH} characters.` }).max(200, { error: 'Keep the password under 200 characters.' }),
     confirm: z.string(),
   })

@@ -1,5 +1,6 @@
 import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
+import { nextVersion } from './optimistic-lock';
 import { AppError } from '@/lib/errors';
 import { gradeIdOf, gradeStoredName, threadSpecOf, type JointInput } from '@/lib/joints/joint-input';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
@@ -29,6 +30,8 @@ export interface JointSummary {
   targetLoadN: number;
   bandPercent: number;
   runCount: number;
+  /** Sent back by the edit form (optimistic locking). */
+  version: number;
 }
 
 export interface JointDetail extends JointSummary {
@@ -48,6 +51,7 @@ export interface MethodSummary {
   checkPasses: number;
   notes: string | null;
   runCount: number;
+  version: number;
 }
 
 export interface LubricantSummary {
@@ -56,6 +60,7 @@ export interface LubricantSummary {
   nominalNutFactor: number;
   notes: string | null;
   runCount: number;
+  version: number;
 }
 
 export interface JointLibrary {
@@ -84,6 +89,7 @@ const jointSummary = (j: Joint, runs: number): JointSummary => ({
   targetLoadN: j.targetLoadN,
   bandPercent: j.bandPercent,
   runCount: runs,
+  version: j.version,
 });
 
 const methodSummary = (m: Method, runs: number): MethodSummary => ({
@@ -94,6 +100,7 @@ const methodSummary = (m: Method, runs: number): MethodSummary => ({
   checkPasses: m.checkPasses,
   notes: m.notes ?? null,
   runCount: runs,
+  version: m.version,
 });
 
 const lubricantSummary = (l: Lubricant, runs: number): LubricantSummary => ({
@@ -102,6 +109,7 @@ const lubricantSummary = (l: Lubricant, runs: number): LubricantSummary => ({
   nominalNutFactor: l.nominalNutFactor,
   notes: l.notes ?? null,
   runCount: runs,
+  version: l.version,
 });
 
 /** Everything the /joints page lists, with how many runs use each entry. */
@@ -187,7 +195,7 @@ const jointColumns = (input: JointInput) => ({
  * @throws AppError `forbidden` for a role outside instructor/admin, `not_found` for an unknown id,
  * `conflict` (field studCount) for a stud count change on a joint with runs.
  */
-export async function saveJoint(user: SessionUser, id: number | null, input: JointInput): Promise<{ id: number }> {
+export async function saveJoint(user: SessionUser, id: number | null, input: JointInput, sentVersion?: unknown): Promise<{ id: number }> {
   assertRole(user, JOINT_LIBRARY_ROLES);
   if (input.positions.length !== input.studCount || input.positions.some((p, i) => p.position !== i + 1)) {
     throw new AppError('invalid_input', 'Every position from 1 to the stud count needs a row.', { field: 'positions' });
@@ -200,6 +208,7 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
     } else {
       const joint = await Joint.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!joint) throw new AppError('not_found', 'There is no joint with this id; it may have been removed.');
+      const version = nextVersion(joint.version, sentVersion);
       if (joint.studCount !== input.studCount) {
         const runs = await Run.count({ where: { jointId: id }, transaction });
         if (runs > 0) {
@@ -210,7 +219,7 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
           );
         }
       }
-      await joint.update(jointColumns(input), { transaction });
+      await joint.update({ ...jointColumns(input), version }, { transaction });
       await JointPosition.destroy({ where: { jointId: id }, transaction });
       jointId = id;
     }
@@ -230,14 +239,14 @@ function nameTaken(error: unknown, what: string, name: string): never {
 }
 
 /** Creates or updates a method (one row, one transaction). */
-export async function saveMethod(user: SessionUser, id: number | null, input: MethodInput): Promise<{ id: number }> {
+export async function saveMethod(user: SessionUser, id: number | null, input: MethodInput, sentVersion?: unknown): Promise<{ id: number }> {
   assertRole(user, JOINT_LIBRARY_ROLES);
   try {
     return await sequelize.transaction(async (transaction) => {
       if (id === null) return { id: (await Method.create(input, { transaction })).id };
       const method = await Method.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!method) throw new AppError('not_found', 'There is no method with this id; it may have been removed.');
-      await method.update(input, { transaction });
+      await method.update({ ...input, version: nextVersion(method.version, sentVersion) }, { transaction });
       return { id };
     });
   } catch (error) {
@@ -246,14 +255,14 @@ export async function saveMethod(user: SessionUser, id: number | null, input: Me
 }
 
 /** Creates or updates a lubricant (one row, one transaction). */
-export async function saveLubricant(user: SessionUser, id: number | null, input: LubricantInput): Promise<{ id: number }> {
+export async function saveLubricant(user: SessionUser, id: number | null, input: LubricantInput, sentVersion?: unknown): Promise<{ id: number }> {
   assertRole(user, JOINT_LIBRARY_ROLES);
   try {
     return await sequelize.transaction(async (transaction) => {
       if (id === null) return { id: (await Lubricant.create(input, { transaction })).id };
       const lubricant = await Lubricant.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!lubricant) throw new AppError('not_found', 'There is no lubricant with this id; it may have been removed.');
-      await lubricant.update(input, { transaction });
+      await lubricant.update({ ...input, version: nextVersion(lubricant.version, sentVersion) }, { transaction });
       return { id };
     });
   } catch (error) {

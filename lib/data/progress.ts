@@ -66,7 +66,7 @@ export async function traineeProgress(user: SessionUser | null): Promise<Trainee
   const latestInCohort = [...runs].reverse().find((r) => r.cohortId !== null) as (Run & { cohort: Cohort | null }) | undefined;
   let latest: TraineeProgress['latest'] = null;
   if (latestInCohort?.cohortId) {
-    const { isDefault: _d, ...criteria } = await criteriaForCohort(latestInCohort.cohortId);
+    const { isDefault: _d, version: _v, ...criteria } = await criteriaForCohort(latestInCohort.cohortId);
     const judgement = (await judgeRuns([latestInCohort.id], criteria)).get(latestInCohort.id);
     if (judgement) latest = { runId: latestInCohort.id, cohortName: latestInCohort.cohort?.name ?? '', ...judgement };
   }

@@ -5,7 +5,7 @@ import type { NormalisedRun } from '../run-types';
 import type { SessionUser } from '../session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
-import { operatorLabel, runScope } from './scope';
+import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 
 export interface RunHeaderDto {
   id: number;
@@ -20,7 +20,8 @@ export interface RunHeaderDto {
   joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string };
   method: { id: number; name: string; toolKind: string; passPercents: number[]; checkPasses: number; passOrders: number[][] };
   lubricant: { id: number; name: string; nominalNutFactor: number };
-  operator: { id: number; label: string };
+  /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
+  operator: { key: string; label: string };
   cohort: { id: number; name: string } | null;
 }
 
@@ -78,7 +79,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
     }
     step.loadsN[row.position - 1] = row.load_n;
   }
-  const comments = await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
+  const comments = !seesFreeText(user) ? [] : await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
   const method = run.method;
   return {
     header: {
@@ -87,7 +88,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       status: run.status,
       setAsideReason: run.setAsideReason,
       source: run.source,
-      notes: run.notes,
+      notes: seesFreeText(user) ? run.notes : null,
       targetLoadN: run.targetLoadN,
       bandPercent: run.bandPercent,
       studCount: run.studCount,
@@ -101,7 +102,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
         passOrders: method.passes.map((p) => p.orderByStudCount[String(run.studCount)] ?? []),
       },
       lubricant: { id: run.lubricant.id, name: run.lubricant.name, nominalNutFactor: run.lubricant.nominalNutFactor },
-      operator: { id: run.operator.id, label: operatorLabel(user, run.operator) },
+      operator: { key: operatorKey(user, run.operator.id), label: operatorLabel(user, run.operator) },
       cohort: run.cohort ? { id: run.cohort.id, name: run.cohort.name } : null,
     },
     run: { studCount: run.studCount, targetLoadN: run.targetLoadN, steps },

@@ -4,10 +4,11 @@ import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
 import { RUN_SOURCES, RUN_STATUSES } from '@/models/run';
 import type { SessionUser } from '../session';
-import { operatorLabel, runScope, runScopeSql } from './scope';
+import { isoDateSchema } from '../validation/iso-date';
+import { operatorLabel, refuseOperatorIdsForResearcher, runScope, runScopeSql } from './scope';
 
 const id = z.coerce.number().int().positive().max(2 ** 31);
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date like 2026-03-31');
+const isoDate = isoDateSchema();
 
 /** The runs table's query: filters, sorting and paging, validated at the boundary. */
 export const runListQuerySchema = z
@@ -60,6 +61,7 @@ export async function runListFilterSql(
   user: SessionUser,
   query: Omit<RunListQuery, 'sort' | 'dir' | 'page' | 'pageSize'>,
 ): Promise<{ sql: string; params: unknown[] }> {
+  refuseOperatorIdsForResearcher(user, 'operatorId', query.operatorId !== undefined);
   const scope = await runScopeSql(user);
   const conditions = [scope.sql];
   const params: unknown[] = [...scope.params];
@@ -175,7 +177,8 @@ export async function runFilterOptions(user: SessionUser): Promise<RunFilterOpti
     lubricants,
     joints,
     cohorts: cohorts.map((c) => ({ id: c.id, name: c.name })),
-    operators: operators
+    // Researchers get no operator choice: its values would be user ids.
+    operators: (user.role === 'researcher' ? [] : operators)
       .map((o) => ({ id: o.id, name: operatorLabel(user, o) }))
       .sort((a, b) => a.name.localeCompare(b.name)),
   };

@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, type WhereOptions } from 'sequelize';
 import { Cohort } from '@/models';
+import { AppError } from '../errors';
 import type { SessionUser } from '../session';
 import { pseudonymFor } from '../pseudonym';
 
@@ -32,6 +33,25 @@ export async function runScope(user: SessionUser): Promise<WhereOptions> {
 export function operatorLabel(viewer: SessionUser, operator: { id: number; name: string }): string {
   return viewer.role === 'researcher' && operator.id !== viewer.id ? pseudonymFor(operator.id) : operator.name;
 }
+
+/**
+ * How an operator is keyed in what this viewer receives (run JSON, comparison groups): researchers
+ * get the pseudonym's code, never the user id; everyone else the id as text.
+ */
+export function operatorKey(viewer: SessionUser, operatorId: number): string {
+  return viewer.role === 'researcher' && operatorId !== viewer.id ? pseudonymFor(operatorId).replace(/^Operator /, 'op-') : String(operatorId);
+}
+
+/** Researchers do not choose people by user id (they would learn which id is behind a pseudonym). */
+export function refuseOperatorIdsForResearcher(viewer: SessionUser, field: string, given: boolean): void {
+  if (viewer.role === 'researcher' && given) {
+    const message = 'Researchers see operators only as pseudonyms, so runs cannot be chosen by a person’s id.';
+    throw new AppError('invalid_input', message, { field, fieldErrors: { [field]: [message] } });
+  }
+}
+
+/** Free text (run notes, comments) may name people, so researchers do not receive it. */
+export const seesFreeText = (viewer: SessionUser) => viewer.role !== 'researcher';
 
 /** The same rule as runScope, as an SQL condition on the alias `r` (for raw queries). */
 export async function runScopeSql(user: SessionUser): Promise<{ sql: string; params: unknown[] }> {

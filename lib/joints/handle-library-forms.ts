@@ -24,20 +24,21 @@ export function formValues(formData: FormData): Record<string, string> {
 function refused(error: unknown): LibraryFormState {
   if (!isAppError(error)) throw error;
   const field = typeof error.details.field === 'string' ? error.details.field : null;
-  return { status: 'error', code: error.code, message: error.message, errors: field ? { [field]: [error.message] } : {} };
+  return { status: 'error', code: error.code, message: error.message, errors: field && field !== 'version' ? { [field]: [error.message] } : {} };
 }
 
 async function handle<T>(
   user: SessionUser | null,
   formData: FormData,
   parse: (values: Record<string, string>) => ParseResult<T>,
-  save: (user: SessionUser, input: T) => Promise<{ id: number }>,
+  save: (user: SessionUser, input: T, version: string | undefined) => Promise<{ id: number }>,
 ): Promise<LibraryFormState> {
   try {
     assertRole(user, LIBRARY_ROLES);
-    const parsed = parse(formValues(formData));
+    const values = formValues(formData);
+    const parsed = parse(values);
     if (!parsed.ok) return { status: 'error', code: 'invalid_input', message: parsed.message, errors: parsed.errors };
-    const { id } = await save(user, parsed.value);
+    const { id } = await save(user, parsed.value, values.version);
     return { status: 'saved', message: 'Saved.', errors: {}, savedId: id };
   } catch (error) {
     return refused(error);
@@ -45,10 +46,10 @@ async function handle<T>(
 }
 
 export const handleJointSave = (user: SessionUser | null, id: number | null, formData: FormData) =>
-  handle(user, formData, parseJointForm, (u, input) => saveJoint(u, id, input));
+  handle(user, formData, parseJointForm, (u, input, version) => saveJoint(u, id, input, version));
 
 export const handleMethodSave = (user: SessionUser | null, id: number | null, formData: FormData) =>
-  handle(user, formData, parseMethodForm, (u, input) => saveMethod(u, id, input));
+  handle(user, formData, parseMethodForm, (u, input, version) => saveMethod(u, id, input, version));
 
 export const handleLubricantSave = (user: SessionUser | null, id: number | null, formData: FormData) =>
-  handle(user, formData, parseLubricantForm, (u, input) => saveLubricant(u, id, input));
+  handle(user, formData, parseLubricantForm, (u, input, version) => saveLubricant(u, id, input, version));

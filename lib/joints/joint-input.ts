@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameSchema } from '@/lib/validation/display-name';
 import { isAppError } from '@/lib/errors';
 import { GRADES, gradeProperties, type GradeId, type GradeProperties } from '@/lib/calc/grades';
 import { percentOfYield, preloadFromPercentOfYield, preloadFromStress, preloadWarnings } from '@/lib/calc/preload';
@@ -194,7 +195,7 @@ const optionalText = (what: string, max: number) =>
     .transform((v) => (v === '' ? null : v));
 
 const jointScalars = z.object({
-  name: text('joint name', 160),
+  name: nameSchema({ what: 'the joint name' }),
   nominalSize: text('nominal pipe size', 40),
   pressureClass: text('pressure class', 40),
   studCount: z

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameSchema } from '@/lib/validation/display-name';
 import { circularOrder, crossPatternOrder, validatePassOrder } from '@/lib/sim/patterns';
 import type { MethodPass, ToolKind } from '@/models/method';
 import { numberFromText, STUD_COUNT_RANGE, type FieldErrors, type ParseResult } from './joint-input';
@@ -83,7 +84,7 @@ export interface MethodInput {
 }
 
 const methodScalars = z.object({
-  name: z.string().trim().min(1, { error: 'Enter the method name.' }).max(160, { error: 'Keep the method name to 160 characters or fewer.' }),
+  name: nameSchema({ what: 'the method name' }),
   toolKind: z.enum(TOOL_KINDS, { error: 'Choose the tool kind from the list.' }),
   checkPasses: z
     .number({ error: 'Enter the number of check passes as a whole number (0 for none).' })
@@ -158,7 +159,7 @@ export interface LubricantInput {
 }
 
 const lubricantSchema = z.object({
-  name: z.string().trim().min(1, { error: 'Enter the lubricant name.' }).max(160, { error: 'Keep the lubricant name to 160 characters or fewer.' }),
+  name: nameSchema({ what: 'the lubricant name' }),
   nominalNutFactor: z
     .number({ error: 'Enter the nominal nut factor (K) as a number, e.g. 0.16.' })
     .min(NUT_FACTOR_RANGE.min, { error: 'The nut factor (K) must be between 0.05 and 0.60.' })

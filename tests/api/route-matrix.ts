@@ -34,8 +34,9 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/runs/[id]/stream', method: 'POST', path: '/api/runs/1/stream', body: '{"t":0,"stud":1,"load":0}', expect: { anonymous: 401, admin: 401, instructor: 401, researcher: 401, trainee: 401 } },
   {
     route: '/api/exports/runs.csv',
-    method: 'GET',
-    path: '/api/exports/runs.csv?key=role-matrix-key&from=2026-01-01&to=2026-01-31',
+    method: 'POST',
+    path: '/api/exports/runs.csv',
+    body: { key: 'role-matrix-key', from: '2026-01-01', to: '2026-01-31' },
     expect: { anonymous: 401, admin: 200, instructor: 403, researcher: 200, trainee: 403 },
   },
 ];

@@ -3,7 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hashToken } from '@/lib/accounts/one-time-token';
 import { sequelize } from '@/lib/db';
-import { saveCohortCriteria, signOffRun, sendRunResults } from '@/lib/data/assessment';
+import { criteriaForCohort, saveCohortCriteria, signOffRun, sendRunResults } from '@/lib/data/assessment';
 import { cohortDetail, createCohort } from '@/lib/data/cohorts';
 import { exportRunsCsv } from '@/lib/data/exports';
 import { inviteToCohort, requestPasswordReset, setPasswordWithToken } from '@/lib/data/invitations';
@@ -147,16 +147,16 @@ describe('one-time links', () => {
 describe('criteria and verdicts', () => {
   it('refuses criteria outside sensible limits, naming the field, and saves nothing', async () => {
     const before = await tableCounts();
-    await expect(saveCohortCriteria(instructor, cohortId, { bandPercent: 60, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 })).rejects.toMatchObject({
+    await expect(saveCohortCriteria(instructor, cohortId, { bandPercent: 60, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 }, 0)).rejects.toMatchObject({
       code: 'invalid_input',
       details: { fieldErrors: { bandPercent: [expect.stringContaining('between 1 and 30 %')] } },
     });
-    await expect(saveCohortCriteria(trainee, cohortId, { bandPercent: 10, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 })).rejects.toMatchObject({ code: 'forbidden' });
+    await expect(saveCohortCriteria(trainee, cohortId, { bandPercent: 10, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 }, 0)).rejects.toMatchObject({ code: 'forbidden' });
     expect(await tableCounts()).toEqual(before);
   });
 
   it('judges a run, refuses a researcher sign-off, and stores one signed snapshot for the instructor', async () => {
-    await saveCohortCriteria(instructor, cohortId, { bandPercent: 10, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 });
+    await saveCohortCriteria(instructor, cohortId, { bandPercent: 10, maxCvPercent: 5, requirePattern: true, maxYieldPercent: 70 }, (await criteriaForCohort(cohortId)).version);
     const target = await jointTarget();
     const finalLoadsN = [0.95, 1.05, 1, 1, 0.98, 1.02, 0.99, 1.01].map((f) => f * target);
     const runId = await storeFixtureRun({ operatorId: trainee.id, cohortId, finalLoadsN });
@@ -178,7 +178,7 @@ describe('criteria and verdicts', () => {
     expect(Boolean(verdict!.all_met)).toBe(true);
 
     // A later change of the criteria does not change the signed snapshot.
-    await saveCohortCriteria(instructor, cohortId, { bandPercent: 2, maxCvPercent: 1, requirePattern: true, maxYieldPercent: 70 });
+    await saveCohortCriteria(instructor, cohortId, { bandPercent: 2, maxCvPercent: 1, requirePattern: true, maxYieldPercent: 70 }, (await criteriaForCohort(cohortId)).version);
     const later = (await cohortDetail(instructor, cohortId)).runs.find((r) => r.id === runId)!;
     expect(later.verdict?.allMet).toBe(true);
     expect(later.judgement?.allMet).toBe(false);

@@ -43,7 +43,7 @@ describe('lib/data/joints against MariaDB', () => {
   it('changes the stud count of a joint without runs and replaces its positions', async () => {
     const { id } = await saveJoint(instructor, null, joint({ name: `${TAG} resize` }));
     const twelve = Array.from({ length: 12 }, (_, i) => ({ position: i + 1, calibrationFactor: 1, note: null }));
-    await saveJoint(instructor, id, joint({ name: `${TAG} resize`, studCount: 12, positions: twelve }));
+    await saveJoint(instructor, id, joint({ name: `${TAG} resize`, studCount: 12, positions: twelve }), 0);
     expect(await count('SELECT COUNT(*) AS n FROM joint_positions WHERE joint_id = ?', [id])).toBe(12);
   });
 
@@ -56,7 +56,7 @@ describe('lib/data/joints against MariaDB', () => {
     const before = await getJoint(instructor, row!.id);
     const n = row!.stud_count + 4;
     const attempt = joint({ name: before!.name, studCount: n, positions: Array.from({ length: n }, (_, i) => ({ position: i + 1, calibrationFactor: 1, note: null })) });
-    await expect(saveJoint(instructor, row!.id, attempt)).rejects.toMatchObject({ code: 'conflict', details: { field: 'studCount' } });
+    await expect(saveJoint(instructor, row!.id, attempt, before!.version)).rejects.toMatchObject({ code: 'conflict', details: { field: 'studCount' } });
     const after = await getJoint(instructor, row!.id);
     expect(after).toEqual(before);
   });

@@ -44,7 +44,7 @@ export async function saveCriteriaAction(cohortId: number, _previous: ActionStat
       maxCvPercent: text(form, 'maxCvPercent'),
       requirePattern: form.get('requirePattern') === 'on',
       maxYieldPercent: text(form, 'maxYieldPercent'),
-    });
+    }, form.get('version'));
     revalidatePath(`/cohorts/${cohortId}`);
     return { ok: true, message: 'Criteria saved. Runs not yet signed off are judged against them now.' };
   } catch (error) {
