@@ -1,6 +1,6 @@
 /**
  * The short caution block the calculator, the joint form and the classroom carry (PRODUCT.md,
- * "Cautions"). Wording is ours; the points follow REFERENCE.md §8 (governing statement, hydraulic
+ * "Cautions"). Wording is ours; the points follow docs/REFERENCE.md §8 (governing statement, hydraulic
  * tools, pinch points), all marked there as common practice.
  *
  * A server-safe component (no hooks), so it renders in server and client trees alike.

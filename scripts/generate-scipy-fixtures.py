@@ -3,7 +3,7 @@
 
 Writes JSON files into tests/fixtures/scipy/. Every file records the scipy and numpy versions and
 this script's path, so a change of reference is visible in review. Inputs are either the NIST
-e-Handbook GEAR.DAT file (read from ../shared/reference relative to the repository root) or data
+e-Handbook GEAR.DAT file (tests/fixtures/reference/nist-ehandbook/GEAR.DAT in this repository) or data
 drawn from numpy's PCG64 generator with a fixed seed; the data themselves are written into the JSON
 so the TypeScript tests never need to reproduce the generator.
 
@@ -21,7 +21,7 @@ from scipy import stats
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 OUT = os.path.join(ROOT, "tests", "fixtures", "scipy")
-SHARED = os.path.join(os.path.dirname(ROOT), "shared", "reference")
+REFERENCE = os.path.join(ROOT, "tests", "fixtures", "reference")
 SEED = 20261201
 
 
@@ -44,11 +44,11 @@ def write(name, payload):
 
 
 def read_gear():
-    path = os.path.join(SHARED, "nist-ehandbook", "GEAR.DAT")
+    path = os.path.join(REFERENCE, "nist-ehandbook", "GEAR.DAT")
     with open(path, "r", encoding="ascii") as fh:
         lines = fh.read().splitlines()
     groups = {}
-    for line in lines[25:]:  # data lines 26-125 (1-based), per shared/reference/README.md
+    for line in lines[25:]:  # data lines 26-125 (1-based), per tests/fixtures/reference/README.md
         parts = line.split()
         if len(parts) != 2:
             continue

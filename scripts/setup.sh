@@ -57,3 +57,11 @@ evenload_mail_fake_stop() {
   if [ -s "$pid_file" ] && kill -0 "$(cat "$pid_file")" 2>/dev/null; then kill "$(cat "$pid_file")"; fi
   rm -f "$pid_file"
 }
+
+# Stops this command's MariaDB (by its pid file) and mail fake when the calling script exits, unless
+# the keep flag given as $1 is 1 (then they stay up for a quick rerun).
+evenload_stop_services_on_exit() {
+  if [ "${1:-0}" != "1" ]; then
+    trap 'evenload_mail_fake_stop; bash scripts/db.sh stop >/dev/null 2>&1 || true' EXIT
+  fi
+}

@@ -15,9 +15,7 @@ export SMTP_PORT="${EVENLOAD_TEST_SMTP_PORT:-${SMTP_PORT:-2526}}"
 evenload_setup
 # Stop the test database and the mail fake when the tests end (set EVENLOAD_KEEP_TEST_SERVICES=1 to
 # keep them for a quick rerun), so the test ports are free for the next run or another checkout.
-if [ "${EVENLOAD_KEEP_TEST_SERVICES:-0}" != "1" ]; then
-  trap 'evenload_mail_fake_stop; bash scripts/db.sh stop >/dev/null 2>&1 || true' EXIT
-fi
+evenload_stop_services_on_exit "${EVENLOAD_KEEP_TEST_SERVICES:-0}"
 # The test database holds the same invented demo scenario; tests add and remove their own rows.
 npx tsx scripts/migrate.ts seed >&2
 

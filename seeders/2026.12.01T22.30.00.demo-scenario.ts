@@ -45,7 +45,7 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
           gasket_type, target_load_n, band_percent, notes, created_at, updated_at) VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
         [joint.name, joint.nominalSize, joint.pressureClass, joint.studCount, 'inch', joint.thread.diameter, joint.thread.threadsPerInch,
           joint.studGrade, joint.nutGrade, joint.gasketType, joint.targetLoadN, 10,
-          `${scenario.notice} Target: 50 % of the B7 minimum yield on the tensile stress area.`, now, now]);
+          'Target: 50 % of the B7 minimum yield on the tensile stress area.', now, now]);
       jointId.set(joint.key, { id: Number(id), bandPercent: 10 });
       for (const [index, factor] of joint.calibrationFactors.entries()) {
         await q('INSERT INTO joint_positions (joint_id, position, calibration_factor) VALUES (?,?,?)', [Number(id), index + 1, factor]);
@@ -80,7 +80,7 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
           setAsideReason: demo.setAsideReason,
           setAsideById: demo.status === 'set_aside' ? researcherOrAdmin : null,
           recordedAt: new Date(demo.recordedAt),
-          notes: `Attempt ${demo.attempt || 'demonstration'}. Invented demo run.`,
+          notes: demo.attempt ? `Attempt ${demo.attempt}.` : 'Demonstration run.',
         },
         demo.run,
         transaction,

@@ -3,10 +3,13 @@ import { NavLinks } from '@/components/shell/nav-links';
 import { navItemsFor, ROLE_LABELS } from '@/components/shell/navigation';
 import { SignOutButton, SignOutEverywhereButton } from '@/components/shell/sign-out-button';
 import { Wordmark } from '@/components/shell/wordmark';
+import { demoDataLoaded } from '@/lib/data/demo-data';
 import { requirePageUser } from '@/lib/session';
+import { DEMO_NOTICE } from '@/lib/sim/demo-scenario';
 
 export default async function LabLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser();
+  const demo = await demoDataLoaded();
   return (
     <div className="min-h-screen">
       <header className="no-print border-b border-rule bg-panel">
@@ -26,6 +29,11 @@ export default async function LabLayout({ children }: { children: React.ReactNod
         </nav>
       </header>
       <main className="mx-auto max-w-7xl px-4 py-6">{children}</main>
+      {demo ? (
+        <footer className="mx-auto max-w-7xl px-4 pb-6 text-xs text-muted">
+          <p>{DEMO_NOTICE}</p>
+        </footer>
+      ) : null}
     </div>
   );
 }

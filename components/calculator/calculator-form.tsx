@@ -6,6 +6,7 @@ import { computeCalculator, type CalculatorInputs, type CalculatorResult } from 
 import { GRADES, type GradeId } from '@/lib/calc/grades';
 import { estimateNutBearing } from '@/lib/calc/nut-bearing';
 import { MEASURED_K_RANGE, NUT_FACTOR_SUGGESTIONS } from '@/lib/calc/nut-factors';
+import { TARGET_PERCENT_HINT } from '@/lib/calc/preload';
 import { LTF_RULES, type LtfRule } from '@/lib/calc/tensioner';
 import { STANDARD_THREADS, type ThreadSpec } from '@/lib/calc/thread';
 import {
@@ -209,7 +210,6 @@ export function CalculatorForm() {
               {STANDARD_THREADS.filter((t) => t.spec.system === 'metric').map((t) => (
                 <option key={t.id} value={t.id}>
                   {t.label}
-                  {t.source.includes('from memory') ? ' (pitch from memory, unverified)' : ''}
                 </option>
               ))}
             </optgroup>
@@ -327,7 +327,7 @@ export function CalculatorForm() {
               value={percentText}
               onChange={setPercentText}
               error={errors.targetPercent}
-              hint="About 50 % of yield is a common rule of thumb [ENGTIPS]; 40–70 % is a commonly quoted range (from memory, unverified)."
+              hint={TARGET_PERCENT_HINT}
             />
           ) : (
             <NumberField
@@ -360,7 +360,7 @@ export function CalculatorForm() {
             hint={
               kSuggestion && kChoice !== OWN_K
                 ? `${kSuggestion.label}: K ${kSuggestion.quoted}. Source: ${kSuggestion.source}.`
-                : `Measured mean K across lubricants spans ${MEASURED_K_RANGE.min}–${MEASURED_K_RANGE.max} ${MEASURED_K_RANGE.source}.`
+                : `Measured mean K across lubricants spans ${MEASURED_K_RANGE.min}–${MEASURED_K_RANGE.max} (${MEASURED_K_RANGE.source}).`
             }
           />
           <p className="text-sm text-muted">
@@ -388,7 +388,7 @@ export function CalculatorForm() {
           </div>
           <p className="text-xs text-muted">
             {bearingAuto
-              ? 'Estimated from the stud size: heavy-hex across flats 1.5 D + 1/8 in (from memory, unverified) and a hole 1/8 in over the stud (ASME B16.5 Table 7 [B165-T7]). Measure your own nut and flange where you can.'
+              ? 'Estimated from the stud size: heavy-hex nut across flats 1.5 D + 1/8 in (ASME B18.2.2) and a hole 1/8 in over the stud (ASME B16.5, Table 7). Measure your own nut and flange where you can.'
               : 'Your own bearing values.'}{' '}
             {!bearingAuto ? (
               <button

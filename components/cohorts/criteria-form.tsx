@@ -26,8 +26,8 @@ export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number;
     <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
       <input type="hidden" name="version" value={criteria.version} />
       {numberField('bandPercent', 'Band: every final load within ± % of target', 'Default ±10 % (common practice).')}
-      {numberField('maxCvPercent', 'Largest CV of the final loads', 'Default 5 % (our classroom default, from memory).')}
-      {numberField('maxYieldPercent', 'Largest stud load, % of minimum yield load', 'Default 70 % (top of the commonly quoted 40–70 % range, from memory).')}
+      {numberField('maxCvPercent', 'Largest CV of the final loads', 'Default 5 % (training default: set your own).')}
+      {numberField('maxYieldPercent', 'Largest stud load, % of minimum yield load', 'Default 70 % (top of the 40–70 % training range: set your own).')}
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="requirePattern" defaultChecked={criteria.requirePattern} />
         The prescribed pattern must be followed (check passes circular)

@@ -180,7 +180,6 @@ export function CompareView({ options }: { options: RunFilterOptions }) {
               <p className="mt-2 text-xs text-muted">K from T = K·D·F (short form, common practice), fitted through the origin over first-pass steps, where each stud is pulled up from snug so its load right after its own step is the load the torque produced.</p>
             </section>
           ) : null}
-          <p className="text-xs text-muted">{data.computedIn}</p>
         </>
       ) : null}
     </div>

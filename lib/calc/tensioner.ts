@@ -3,20 +3,21 @@ import { AppError } from '@/lib/errors';
 /**
  * Hydraulic bolt tensioning: the load the tool must apply so that, after the nut takes the load and
  * some stretch is lost (thread deflection, nut dilation, embedding ✓ [TENS1]), the stud keeps the
- * residual preload wanted. Applied load = residual load × LTF ✓ [FE-LTF] (REFERENCE §4).
+ * residual preload wanted. Applied load = residual load × LTF ✓ [FE-LTF] (docs/REFERENCE.md §4).
  */
 
 /**
  * Load transfer factor rules:
  * - `tens1`: LTF = 1.01 + D/L_clamp, not less than 1.15 ✓ [TENS1].
- * - `tens2`: the same expression with a floor of 1.1. REFERENCE §4 records only that [TENS2] uses a
+ * - `tens2`: the same expression with a floor of 1.1. docs/REFERENCE.md §4 records only that [TENS2] uses a
  *   floor of 1.1; applying that floor to the 1.01 + D/L expression is our reading.
  */
 export type LtfRule = 'tens1' | 'tens2';
 
 export const LTF_RULES: readonly { id: LtfRule; label: string; floor: number; source: string }[] = [
-  { id: 'tens1', label: '1.01 + D/L, at least 1.15', floor: 1.15, source: '✓ [TENS1] (REFERENCE §4)' },
-  { id: 'tens2', label: '1.01 + D/L, at least 1.10', floor: 1.1, source: 'floor ✓ [TENS2] (REFERENCE §4); the 1.01 + D/L part is our reading' },
+  // tens1 ✓ [TENS1]; tens2: floor ✓ [TENS2], the 1.01 + D/L part is our reading (docs/REFERENCE.md §4).
+  { id: 'tens1', label: '1.01 + D/L, at least 1.15', floor: 1.15, source: "a tensioner maker's load transfer rule; check your tool maker's instructions" },
+  { id: 'tens2', label: '1.01 + D/L, at least 1.10', floor: 1.1, source: "a lower floor some tool makers use; check your tool maker's instructions" },
 ];
 
 /**

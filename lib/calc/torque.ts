@@ -3,7 +3,7 @@ import { AppError } from '@/lib/errors';
 /**
  * Torque–tension relations for a stud and nut.
  *
- * Short form: T = K·D·F ✓ [SPR] (REFERENCE §3), K the nut factor — an empirical lumped factor,
+ * Short form: T = K·D·F ✓ [SPR] (docs/REFERENCE.md §3), K the nut factor — an empirical lumped factor,
  * not a friction coefficient ✓ [ZIP]. In SI, T [N·m] = K · D [m] · F [N]. In US units,
  * T [ft-lb] = K · D [in] · F [lbf] / 12 (common practice).
  *
@@ -11,7 +11,7 @@ import { AppError } from '@/lib/errors';
  * pitch (stretch) term, thread friction at the pitch diameter d2 and nut-face friction at the mean
  * bearing diameter Db ≈ (bearing OD + hole)/2. VDI 2230 eq. R13/1 writes it as
  * MA = FM(0.16P + 0.58·d2·µG + µK·DKm/2) ✓ [VDI-CODE]; the Db estimate is ✓ [TRIB2]; the ISO 16047
- * wording is from memory, unverified (REFERENCE §3). 30° is the flank half-angle of a 60° thread.
+ * wording is from memory, unverified (docs/REFERENCE.md §3). 30° is the flank half-angle of a 60° thread.
  */
 
 function requirePositive(value: number, what: string, field: string): void {
@@ -38,7 +38,7 @@ export function shortFormTorqueNm(nutFactor: number, diameterMm: number, forceN:
 
 /**
  * Short-form torque in ft-lb from US inputs: T = K·D[in]·F[lbf]/12 (common practice).
- * @example shortFormTorqueFtLb(0.2, 0.75, 17_535) // 219.2 ft-lb (REFERENCE §3 worked check ≈219)
+ * @example shortFormTorqueFtLb(0.2, 0.75, 17_535) // 219.2 ft-lb (docs/REFERENCE.md §3 worked check ≈219)
  */
 export function shortFormTorqueFtLb(nutFactor: number, diameterIn: number, forceLbf: number): number {
   requirePositive(nutFactor, 'Nut factor (K)', 'nutFactor');
@@ -78,8 +78,8 @@ export interface LongFormArm {
 }
 
 /**
- * Mean bearing diameter Db ≈ (bearing OD + hole diameter)/2 ✓ [TRIB2] (REFERENCE §3). For a hex
- * nut the bearing OD is often taken as the width across flats (as in REFERENCE §3's worked check).
+ * Mean bearing diameter Db ≈ (bearing OD + hole diameter)/2 ✓ [TRIB2] (docs/REFERENCE.md §3). For a hex
+ * nut the bearing OD is often taken as the width across flats (as in docs/REFERENCE.md §3's worked check).
  * @throws AppError `invalid_input` when the hole is not smaller than the bearing OD.
  */
 export function meanBearingDiameter(bearingOd: number, holeDiameter: number): number {
@@ -121,7 +121,7 @@ export function preloadFromLongFormTorque(torqueNm: number, i: LongFormInputs): 
 
 /**
  * The nut factor K that makes the short form give the long form's torque: K = arm / D
- * = [P/2π + 0.577µt·d2 + 0.5µb·Db]/D (computed, REFERENCE §3).
+ * = [P/2π + 0.577µt·d2 + 0.5µb·Db]/D (computed, docs/REFERENCE.md §3).
  * @example equivalentNutFactor(19.05, { pitchMm: 2.54, pitchDiameterMm: 17.4, muThread: 0.15, muBearing: 0.15, bearingDiameterMm: 26.99 }) // ≈ 0.21
  */
 export function equivalentNutFactor(diameterMm: number, i: LongFormInputs): number {

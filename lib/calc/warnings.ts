@@ -11,6 +11,6 @@ export interface CalcWarning {
   severity: WarningSeverity;
   /** One sentence in plain words. */
   message: string;
-  /** Where the threshold comes from, marked as REFERENCE.md marks it. */
+  /** Where a practitioner can look the threshold up (standard and table), or "training default: set your own"; shown on screen. */
   source: string;
 }

@@ -111,7 +111,7 @@ type LubricantWanted = 'dry' | 'paste';
  * Nut factor scatter for a library lubricant, which stores only its nominal K. Invented teaching
  * values (the same as the demo lubricants in lib/sim/demo-scenario.ts): K ≥ 0.18 is treated as dry
  * (CV 0.10 stud to stud, 0.08 run to run), below as a paste (0.05, 0.04). A dry K of 0.20 is
- * Shigley's "unknown condition" (REFERENCE.md §3 ✓ [SHIG]).
+ * Shigley's "unknown condition" (docs/REFERENCE.md §3 ✓ [SHIG]).
  */
 export function lubricantForSim(lubricant: Pick<LibraryLubricant, 'nominalNutFactor'>): SimLubricant {
   const dry = lubricant.nominalNutFactor >= 0.18;
@@ -262,7 +262,7 @@ export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, j
   return { scene, joint, sides, missing };
 }
 
-/** Load transfer factor the tensioner side uses: the simulator's default, floor of ✓ [TENS1] (REFERENCE.md §4). */
+/** Load transfer factor the tensioner side uses: the simulator's default, floor of ✓ [TENS1] (docs/REFERENCE.md §4). */
 export const DEFAULT_LTF = 1.15;
 
 /** A side of the "real run" scene that simulates the real run's own joint, method and lubricant. */

@@ -50,7 +50,6 @@ export interface CompareResponse extends ComparisonResult {
   totalRuns: number;
   nutFactors: NutFactorByLubricant[];
   /** What was computed where, for the curious (and for the note). */
-  computedIn: string;
 }
 
 const GROUP_COLUMN: Record<CompareBy, string> = { method: 'r.method_id', lubricant: 'r.lubricant_id', cohort: 'r.cohort_id', trainee: 'r.operator_id', runs: 'r.id' };
@@ -155,7 +154,6 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     by: query.by,
     totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0),
     nutFactors,
-    computedIn: 'Group membership and filters in SQL on the runs table; per-run final loads and drift are stored on each run when it is saved; the tests run in Node on those profiles, and the result is kept in a shared cache until the runs change.',
   };
 }
 

@@ -7,7 +7,7 @@
  *   the international pound of 1959 and standard gravity of the 3rd CGPM, 1901; product computed).
  * - 1 ft = 0.3048 m exactly (from memory, same 1959 agreement), so 1 ft-lb (ft·lbf) =
  *   0.3048 × 4.4482216152605 = 1.3558179483314004 N·m (computed).
- * - Strain-gauged studs: load = E·ε·A at the gauged section (REFERENCE.md §2, common practice),
+ * - Strain-gauged studs: load = E·ε·A at the gauged section (docs/REFERENCE.md §2, common practice),
  *   times a per-position calibration factor from the joint's calibration (common practice).
  */
 import { AppError } from '@/lib/errors';
@@ -69,7 +69,7 @@ function checkStrain(strain: StrainConversion | undefined): Required<StrainConve
 
 /**
  * Stud load in N from a gauge reading in microstrain: F = E · (µε × 10⁻⁶) · A · calibration
- * (REFERENCE.md §2; common practice). 1000 µε at 200 GPa on 245 mm² gives 200 MPa × 245 mm² = 49 kN.
+ * (docs/REFERENCE.md §2; common practice). 1000 µε at 200 GPa on 245 mm² gives 200 MPa × 245 mm² = 49 kN.
  *
  * @throws AppError('invalid_input') when E, area or the factor is not a positive number.
  * @example microstrainToN(1000, { youngsModulusPa: 200e9, stressAreaM2: 245e-6 }) // 49000

@@ -12,7 +12,7 @@ import type { CalcWarning } from '@/lib/calc/warnings';
  * action (which recomputes everything and never trusts the browser's target).
  *
  * Form values arrive as text keyed by field name (FormData). Positions are `position-<n>-factor`
- * and `position-<n>-note`, n = 1..studCount, numbered clockwise from 1 (REFERENCE §6 ✓ [KNM]).
+ * and `position-<n>-note`, n = 1..studCount, numbered clockwise from 1 (docs/REFERENCE.md §6 ✓ [KNM]).
  */
 
 export const CUSTOM_THREAD = 'custom';
@@ -149,7 +149,7 @@ export function jointTarget(input: JointTargetInput): JointTargetResult {
 
 /**
  * A note when an inch stud of 1 in or more is not 8 threads per inch: flange studs of 1 in and
- * larger use the 8UN series ✓ [CFR46], [TME] (REFERENCE §1).
+ * larger use the 8UN series ✓ [CFR46], [TME] (docs/REFERENCE.md §1).
  */
 export function threadSeriesNote(thread: ThreadSpec): CalcWarning | null {
   if (thread.system !== 'inch' || !(thread.diameterIn >= 1) || thread.threadsPerInch === 8) return null;
@@ -158,7 +158,7 @@ export function threadSeriesNote(thread: ThreadSpec): CalcWarning | null {
     code: 'not-8un',
     severity: 'caution',
     message: `Flange studs of 1 in and larger use the 8-thread series (8UN); this stud has ${thread.threadsPerInch} threads per inch.`,
-    source: '✓ [CFR46], [TME] (REFERENCE §1)',
+    source: 'ASME B1.1, 8-thread series (8UN)', // ✓ [CFR46], [TME] (docs/REFERENCE.md §1)
   };
 }
 
@@ -317,7 +317,7 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
 
 /**
  * Where position p of n sits on a flange drawing: numbered clockwise from 1 at the top
- * (REFERENCE §6 ✓ [KNM]). Screen coordinates (y grows downwards) around (cx, cy).
+ * (docs/REFERENCE.md §6 ✓ [KNM]). Screen coordinates (y grows downwards) around (cx, cy).
  */
 export function positionPoint(p: number, n: number, radius: number, cx = 0, cy = 0): { x: number; y: number } {
   const angle = (2 * Math.PI * (p - 1)) / n; // clockwise from 12 o'clock

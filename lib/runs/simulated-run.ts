@@ -17,7 +17,7 @@ export const simulatedRunSchema = z.object({
 
 /**
  * The stud-to-stud scatter of K the simulator draws for a lubricant, from its nominal K: drier,
- * higher-K conditions scatter more. Invented model values in the spirit of REFERENCE.md §5
+ * higher-K conditions scatter more. Invented model values in the spirit of docs/REFERENCE.md §5
  * (torque dry ±35 %, lubricated ±25 % ✓ [SPRING]); not measurements.
  */
 export function kScatterFor(nominalK: number): number {
@@ -65,7 +65,7 @@ export async function saveSimulatedRun(user: SessionUser, input: unknown): Promi
     gasketStiffness: gasket,
     seed,
   });
-  const header = { ...resolved.header, notes: [resolved.header.notes, `Simulated on the record page: seed ${seed}, ${gasket} gasket (invented model, lib/sim).`].filter(Boolean).join(' ') };
+  const header = { ...resolved.header, notes: [resolved.header.notes, `Simulated on the record page: seed ${seed}, ${gasket} gasket (Evenload training simulator).`].filter(Boolean).join(' ') };
   const runId = await sequelize.transaction((transaction) => storeRun(header, run, transaction));
   return { runId, stepCount: run.steps.length };
 }

@@ -62,9 +62,9 @@ export interface DemoJoint {
   studGrade: 'ASTM A193 B7';
   nutGrade: 'ASTM A194 2H';
   gasketType: 'spiral-wound, graphite filled';
-  /** Tensile stress area As in in², from As = 0.7854 (D − 0.9743/n)² (REFERENCE.md §1 ✓ [EE-B1.1]). */
+  /** Tensile stress area As in in², from As = 0.7854 (D − 0.9743/n)² (docs/REFERENCE.md §1 ✓ [EE-B1.1]). */
   tensileStressAreaIn2: number;
-  /** Target stress on As in psi: 50 % of the 105 ksi B7 minimum yield (REFERENCE.md §2 ✓ [NANL]; 50 % per §4 ✓ [RODERY], [ENGTIPS]). */
+  /** Target stress on As in psi: 50 % of the 105 ksi B7 minimum yield (docs/REFERENCE.md §2 ✓ [NANL]; 50 % per §4 ✓ [RODERY], [ENGTIPS]). */
   targetStressPsi: number;
   /** Target stud load in N (target stress × As, converted; rounded to 1 N). */
   targetLoadN: number;
@@ -144,7 +144,7 @@ const METRES_PER_INCH = 0.0254;
 /**
  * Tensile stress area of a Unified inch thread, As = 0.7854 (D − 0.9743/n)² in in², from lib/calc
  * (guarded here so the demo scenario fails loudly on an impossible thread)
- * (REFERENCE.md §1, ASME B1.1 ✓ [EE-B1.1]).
+ * (docs/REFERENCE.md §1, ASME B1.1 ✓ [EE-B1.1]).
  *
  * @throws {SimInputError} when D or n is not positive, or the thread is impossible (D ≤ 0.9743/n).
  * @example tensileStressAreaIn2(0.75, 10) // ≈ 0.3345 (table value 0.334 ✓ [EE-AREA])
@@ -169,8 +169,8 @@ export function methodForStudCount(method: DemoMethod, studCount: number): SimMe
   };
 }
 
-const B7_MIN_YIELD_PSI = 105_000; // REFERENCE.md §2 ✓ [NANL], [BACO], ≤ 2-1/2 in
-const TARGET_FRACTION_OF_YIELD = 0.5; // REFERENCE.md §4: "typically 50 %" ✓ [RODERY]; rule of thumb ✓ [ENGTIPS]
+const B7_MIN_YIELD_PSI = 105_000; // docs/REFERENCE.md §2 ✓ [NANL], [BACO], ≤ 2-1/2 in
+const TARGET_FRACTION_OF_YIELD = 0.5; // docs/REFERENCE.md §4: "typically 50 %" ✓ [RODERY]; rule of thumb ✓ [ENGTIPS]
 
 function buildJoint(
   rng: Rng,
@@ -222,7 +222,8 @@ function buildMethods(studCounts: readonly number[]): DemoMethod[] {
       tool: 'manual_torque_wrench',
       passes: [pass(100, 'cross')],
       checkPasses: 0,
-      basis: 'Teaching case: a single full-torque pass leaves early studs low (REFERENCE.md §4 ✓ [BSCI], [MDPI]).',
+      // docs/REFERENCE.md §4 ✓ [BSCI], [MDPI].
+      basis: 'Teaching case: a single full-torque pass leaves the studs tightened first low (elastic interaction).',
     },
     {
       key: 'three-pass-cross-check',
@@ -230,7 +231,8 @@ function buildMethods(studCounts: readonly number[]): DemoMethod[] {
       tool: 'manual_torque_wrench',
       passes: [pass(30, 'cross'), pass(60, 'cross'), pass(100, 'cross')],
       checkPasses: 1,
-      basis: 'Widely published simplified practice: 30/60/100 % in cross pattern plus a circular pass at 100 % (REFERENCE.md §4 ✓ [HENNIG], [HSW]).',
+      // docs/REFERENCE.md §4 ✓ [HENNIG], [HSW].
+      basis: 'Widely published simplified practice: 30/60/100 % in cross pattern plus a circular pass at 100 % (compare the legacy procedure of ASME PCC-1).',
     },
     {
       key: 'one-pass-circular-100',
@@ -246,7 +248,8 @@ function buildMethods(studCounts: readonly number[]): DemoMethod[] {
       tool: 'hydraulic_tensioner',
       passes: [pass(100, 'cross'), pass(100, 'cross')],
       checkPasses: 0,
-      basis: 'One tool moved stud by stud, cross order, second pass to recover elastic interaction losses (common practice); applied load = residual × LTF ✓ [FE-LTF], LTF 1.15 ✓ [TENS1].',
+      // docs/REFERENCE.md §4: applied load = residual × LTF ✓ [FE-LTF], LTF 1.15 ✓ [TENS1].
+      basis: "One tool moved stud by stud, cross order, second pass to recover elastic interaction losses (common practice); applied load = residual × LTF, LTF 1.15 (training default: set your own from the tool maker's data).",
     },
     {
       key: 'hydraulic-wrench-three-pass',
@@ -267,7 +270,8 @@ function buildLubricants(): DemoLubricant[] {
       nominalK: 0.2,
       kScatterCv: 0.1,
       runToRunCv: 0.08,
-      basis: 'K 0.20: Shigley "unknown condition" ✓ [SHIG]; dry steel 0.18–0.27 ✓ [ZIP] (REFERENCE.md §3). Scatter CVs invented.',
+      // docs/REFERENCE.md §3: 0.20 ✓ [SHIG]; dry steel 0.18–0.27 ✓ [ZIP]. The scatter CVs are invented.
+      basis: 'K 0.20, the "condition unknown" value of Shigley & Mischke, §8-8. Scatter of K: training default, set your own.',
     },
     {
       key: 'copper-paste',
@@ -275,7 +279,8 @@ function buildLubricants(): DemoLubricant[] {
       nominalK: 0.15,
       kScatterCv: 0.06,
       runToRunCv: 0.04,
-      basis: 'K ≈ 0.13–0.18 for copper-based anti-seize on B7 (REFERENCE.md §3, from memory, unverified); generic anti-seize 0.12 ✓ [SHIG]. Scatter CVs invented.',
+      // docs/REFERENCE.md §3: 0.13–0.18 from memory, unverified; generic anti-seize 0.12 ✓ [SHIG]. The scatter CVs are invented.
+      basis: "K ≈ 0.13–0.18: training default, set your own from the paste maker's data. Scatter of K: training default, set your own.",
     },
     {
       key: 'moly-paste',
@@ -283,15 +288,17 @@ function buildLubricants(): DemoLubricant[] {
       nominalK: 0.12,
       kScatterCv: 0.05,
       runToRunCv: 0.04,
-      basis: 'K ≈ 0.10–0.14 for MoS₂ paste (REFERENCE.md §3, from memory, unverified). Scatter CVs invented.',
+      // docs/REFERENCE.md §3: 0.10–0.14 from memory, unverified. The scatter CVs are invented.
+      basis: "K ≈ 0.10–0.14: training default, set your own from the paste maker's data. Scatter of K: training default, set your own.",
     },
   ];
 }
 
-const DOMAIN = 'demo.evenload.test';
+/** Every demo account's e-mail domain (a reserved .test domain, so never a real mailbox). */
+export const DEMO_EMAIL_DOMAIN = 'demo.evenload.test';
 
 function user(name: string, role: DemoRole, preferredUnits: 'si' | 'us'): DemoUser {
-  const email = `${name.toLowerCase().replace(/[^a-z -]/g, '').trim().split(/\s+/).join('.')}@${DOMAIN}`;
+  const email = `${name.toLowerCase().replace(/[^a-z -]/g, '').trim().split(/\s+/).join('.')}@${DEMO_EMAIL_DOMAIN}`;
   return { email, name, role, preferredUnits };
 }
 

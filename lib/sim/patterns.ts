@@ -1,7 +1,7 @@
 import { SimInputError } from './errors';
 
 /**
- * Tightening orders for a flange with studs numbered 1..N clockwise from 1 (REFERENCE.md §6,
+ * Tightening orders for a flange with studs numbered 1..N clockwise from 1 (docs/REFERENCE.md §6,
  * numbering ✓ [KNM]).
  */
 
@@ -13,7 +13,7 @@ function requireStudCount(fn: string, studCount: number): void {
 
 /**
  * The circular order 1, 2, …, N: the order of a circular (clockwise) pass, as used for the
- * final 100 % check passes (REFERENCE.md §4, ✓ [HENNIG], [HSW]).
+ * final 100 % check passes (docs/REFERENCE.md §4, ✓ [HENNIG], [HSW]).
  *
  * @throws {SimInputError} when studCount is not a positive integer.
  * @example circularOrder(4) // [1, 2, 3, 4]
@@ -26,12 +26,12 @@ export function circularOrder(studCount: number): number[] {
 /**
  * The usual "legacy" cross (star) order for N studs, N a multiple of 4.
  *
- * Structure (REFERENCE.md §6, computed): the order is made of groups of four studs 90° apart,
+ * Structure (docs/REFERENCE.md §6, computed): the order is made of groups of four studs 90° apart,
  * `i, i + N/2, i + N/4, i + 3N/4`, for group starts i = 1..N/4. The group starts are ordered
  * greedily: after start 1, each next start is the remaining one farthest (on the 90° arc a group
  * covers, circularly) from the previous start, ties going to the lower number.
  *
- * That rule reproduces every table in REFERENCE.md §6:
+ * That rule reproduces every table in docs/REFERENCE.md §6:
  * - 4 → 1-3-2-4, 8 → 1-5-3-7-2-6-4-8, 16 → 1-9-5-13-3-11-7-15-2-10-6-14-4-12-8-16 — those tables
  *   are **from memory, unverified** in the reference sheet;
  * - 12 → 1-7-4-10-2-8-5-11-3-9-6-12, which matches a public example ✓ [ROVER].
@@ -94,7 +94,7 @@ export interface PassOrderCheck {
 
 /**
  * Checks that a pass tightens every stud exactly once (common practice: each pass of a multi-pass
- * procedure covers all studs, REFERENCE.md §4).
+ * procedure covers all studs, docs/REFERENCE.md §4).
  *
  * @throws {SimInputError} when studCount is not a positive integer.
  * @example

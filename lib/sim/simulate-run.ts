@@ -30,7 +30,7 @@ export interface SimMethod {
 }
 
 export interface SimLubricant {
-  /** Nominal nut factor K (T = K·D·F, REFERENCE.md §3 ✓ [SPR]). Used by the operator to set the torque. */
+  /** Nominal nut factor K (T = K·D·F, docs/REFERENCE.md §3 ✓ [SPR]). Used by the operator to set the torque. */
   nominalK: number;
   /** Stud-to-stud coefficient of variation of K within one run (e.g. 0.10 dry, 0.05 good paste). */
   kScatterCv: number;
@@ -54,7 +54,7 @@ export interface SimulateRunInput {
   seed: number;
   /** Ratio c(k+1)/c(k) of the interaction coefficients. Default 0.5 (invented model constant). */
   interactionDecay?: number;
-  /** Tensioner load transfer factor used to set the applied load. Default 1.15 (REFERENCE.md §4, floor of ✓ [TENS1]). */
+  /** Tensioner load transfer factor used to set the applied load. Default 1.15 (docs/REFERENCE.md §4, floor of ✓ [TENS1]). */
   loadTransferFactor?: number;
   /** Stud-to-stud CV of the actual load transfer factor. Default 0.05 (invented model constant: hand run-down of the nut varies). */
   loadTransferFactorCv?: number;
@@ -66,7 +66,7 @@ export interface SimulateRunInput {
   operatorNoiseCv?: number;
   /**
    * The K the operator uses to compute the torque; defaults to `lubricant.nominalK`. Set it apart
-   * from the lubricant's K to show the over-stress caution of REFERENCE.md §8 (a lower K than
+   * from the lubricant's K to show the over-stress caution of docs/REFERENCE.md §8 (a lower K than
    * assumed over-tensions studs ✓ [HBJ]).
    */
   torqueCalculationK?: number;

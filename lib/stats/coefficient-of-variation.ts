@@ -10,7 +10,7 @@ import { sampleStandardDeviation } from './sample-standard-deviation';
  * Algorithm: corrected two-pass s (see `sampleStandardDeviation`) over the refined mean. Not
  * simple-statistics' `coefficientOfVariation`, which uses the uncorrected SD.
  *
- * References: REFERENCE.md §9 (CV = σ/µ, for a sample s/x̄); NIST/SEMATECH e-Handbook §1.3.5.6.
+ * References: docs/REFERENCE.md §9 (CV = σ/µ, for a sample s/x̄); NIST/SEMATECH e-Handbook §1.3.5.6.
  *
  * @throws {StatsError} fewer than two values, non-finite input, or
  *   `coefficientOfVariation requires a non-zero mean`.

@@ -22,7 +22,7 @@ export interface StudDrift {
  *
  * Algorithm: one scan for each stud's last tightening step; difference to the final snapshot.
  *
- * References: REFERENCE.md §4 ("Elastic interaction": bolts tightened earlier lose preload);
+ * References: docs/REFERENCE.md §4 ("Elastic interaction": bolts tightened earlier lose preload);
  * lib/run-types.ts.
  *
  * @throws {StatsError} any malformed run (see assertRun).

@@ -36,7 +36,7 @@ export interface InteractionCoefficientsResult {
  * first step has no earlier snapshot unless `initialLoadsN` (loads before the run, for example the
  * zeroed gauges) is given.
  *
- * References: REFERENCE.md §4 ("Elastic interaction", [BSCI], [MDPI] elastic-interaction-coefficient
+ * References: docs/REFERENCE.md §4 ("Elastic interaction", [BSCI], [MDPI] elastic-interaction-coefficient
  * methods); least squares through the origin as in NIST StRD NoInt1/NoInt2.
  *
  * @throws {StatsError} any malformed run (see assertRun), `interactionCoefficients requires initialLoadsN with 4 values (got 3)`,

@@ -8,7 +8,7 @@ import { mean } from './mean';
  *
  * Algorithm: refined mean (see `mean`), then one scan.
  *
- * References: REFERENCE.md §9 ("± % of the mean", common practice).
+ * References: docs/REFERENCE.md §9 ("± % of the mean", common practice).
  *
  * @throws {StatsError} no values, non-finite input, or `largestDeviationFromMean requires a non-zero mean`.
  * @example

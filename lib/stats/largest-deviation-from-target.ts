@@ -8,7 +8,7 @@ import { StatsError } from './stats-error';
  *
  * Algorithm: one scan.
  *
- * References: REFERENCE.md §9 (report per-stud load as % of target, common practice).
+ * References: docs/REFERENCE.md §9 (report per-stud load as % of target, common practice).
  *
  * @throws {StatsError} no values, non-finite input, non-finite target, or
  *   `largestDeviationFromTarget requires a non-zero target`.

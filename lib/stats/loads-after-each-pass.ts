@@ -15,7 +15,7 @@ export interface PassSnapshot {
  *
  * Algorithm: one scan of the steps (passes are non-decreasing, validated).
  *
- * References: lib/run-types.ts; REFERENCE.md §4 (multi-pass practice) and §9 (CV and
+ * References: lib/run-types.ts; docs/REFERENCE.md §4 (multi-pass practice) and §9 (CV and
  * (max − min)/mean per pass, common practice).
  *
  * @throws {StatsError} any malformed run (see assertRun).

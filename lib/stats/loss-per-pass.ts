@@ -20,7 +20,7 @@ export interface PassLoss {
  * Algorithm: per pass, find each stud's last tightening step in the pass and compare with the
  * pass's last snapshot; compensated means.
  *
- * References: REFERENCE.md §4 (elastic interaction; multi-pass practice); lib/run-types.ts.
+ * References: docs/REFERENCE.md §4 (elastic interaction; multi-pass practice); lib/run-types.ts.
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example

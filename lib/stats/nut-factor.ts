@@ -26,12 +26,12 @@ export interface NutFactorResult {
  * origin, with a t-based confidence interval (df = n − 1).
  *
  * Units: 'SI' takes T in N·m, D in m, F in N. 'US' takes T in ft-lb, D in in, F in lbf, with
- * T = K·D·F/12 (REFERENCE.md §3, common practice). K is dimensionless and the same in both.
+ * T = K·D·F/12 (docs/REFERENCE.md §3, common practice). K is dimensionless and the same in both.
  *
  * Algorithm: `regressionThroughOrigin` (Householder QR) on x = D·F (SI) or D·F/12 (US);
  * interval K ± t₁₋α/₂,n−1·SE with `studentTQuantile`.
  *
- * References: REFERENCE.md §3 (T = K·D·F; US form; worked check 3/4 in, 17,535 lb, K = 0.20 → ≈ 219 ft-lb);
+ * References: docs/REFERENCE.md §3 (T = K·D·F; US form; worked check 3/4 in, 17,535 lb, K = 0.20 → ≈ 219 ft-lb);
  * Shigley & Mischke, Mechanical Engineering Design §8-8 (torque–tension short form).
  *
  * @throws {StatsError} `nutFactor requires at least two values of torque (got 1)`, mismatched lengths,

@@ -8,7 +8,7 @@ import { valueExtent } from './value-extent';
  *
  * Algorithm: `valueExtent` and the refined `mean`.
  *
- * References: REFERENCE.md §9 ("(max − min)/mean", common practice).
+ * References: docs/REFERENCE.md §9 ("(max − min)/mean", common practice).
  *
  * @throws {StatsError} no values, non-finite input, or `rangeOverMean requires a non-zero mean`.
  * @example

@@ -9,7 +9,7 @@ import { StatsError } from './stats-error';
  * 1e-12 on the limits keeps values that sit on the boundary but were rounded (for example 110.00000000000001
  * for 100 + 10 %) inside.
  *
- * References: REFERENCE.md §9 (per-stud load as % of target, common practice).
+ * References: docs/REFERENCE.md §9 (per-stud load as % of target, common practice).
  *
  * @throws {StatsError} no values, non-finite input, `shareWithinBand requires a positive target`,
  *   `shareWithinBand requires a positive bandPercent (got 0)`.

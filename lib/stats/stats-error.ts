@@ -5,7 +5,7 @@
  * `oneWayAnova requires at least two groups` or
  * `mean requires finite values (got NaN at index 3)`.
  *
- * References: house style, /work/shared/STYLE.md "The statistics layer".
+ * References: house style, DEVELOPERS.md "Statistics".
  *
  * @example
  * try { mean([]); } catch (e) { (e as StatsError).message; } // 'mean requires at least one value'

@@ -38,7 +38,7 @@ export interface RunSummary {
  *
  * Algorithm: the layer's own functions on `finalLoads(run)` (refined mean, corrected two-pass SD).
  *
- * References: REFERENCE.md §9 (CV, (max − min)/mean, % of target per stud, common practice);
+ * References: docs/REFERENCE.md §9 (CV, (max − min)/mean, % of target per stud, common practice);
  * NIST/SEMATECH e-Handbook §6.1.6 (Cp, Cpk).
  *
  * @throws {StatsError} any malformed run (see assertRun), `summariseRun requires a positive bandPercent (got 0)`,

@@ -9,7 +9,7 @@ import { sampleStandardDeviation } from './sample-standard-deviation';
  *
  * Algorithm: corrected two-pass s over the refined mean.
  *
- * References: REFERENCE.md §9 ("3σ/mean; ±3σ covers 99.73 % of a normal distribution", common practice).
+ * References: docs/REFERENCE.md §9 ("3σ/mean; ±3σ covers 99.73 % of a normal distribution", common practice).
  *
  * @throws {StatsError} fewer than two values, non-finite input, or `threeSigmaOverMean requires a non-zero mean`.
  * @example

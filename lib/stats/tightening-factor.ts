@@ -8,7 +8,7 @@ import { valueExtent } from './value-extent';
  *
  * Algorithm: `valueExtent`, then the two ratios.
  *
- * References: REFERENCE.md §5 (αA = FM,max/FM,min, VDI 2230; ± = (αA − 1)/(αA + 1) computed there;
+ * References: docs/REFERENCE.md §5 (αA = FM,max/FM,min, VDI 2230; ± = (αA − 1)/(αA + 1) computed there;
  * worked check αA = 1.6 gives ±23 %).
  *
  * @throws {StatsError} no values, non-finite input, or `tighteningFactor requires positive values (got -1 at index 2)`.

@@ -16,16 +16,16 @@ const base = (): CalculatorInputs => ({
 });
 
 describe('computeCalculator', () => {
-  it('reproduces the REFERENCE §3 checks for 3/4-10 B7 at 50 % of yield', () => {
+  it('reproduces the docs/REFERENCE.md §3 checks for 3/4-10 B7 at 50 % of yield', () => {
     const r = computeCalculator(base());
     expect(r.errors).toEqual({});
-    // As by formula 0.3345 in² (REFERENCE §1, computed); F = 0.5 × 105 ksi × 0.33446 in² = 17,559 lbf.
+    // As by formula 0.3345 in² (docs/REFERENCE.md §1, computed); F = 0.5 × 105 ksi × 0.33446 in² = 17,559 lbf.
     expect(mm2ToIn2(r.thread!.tensileStressAreaMm2)).toBeCloseTo(0.3345, 4);
     expect(rel(nToLbf(r.preload!.forceN), 0.5 * 105_000 * 0.33446071)).toBeLessThan(1e-7);
     expect(r.preload!.percentOfYield).toBeCloseTo(50, 10);
     // With the table area 0.334 the check gives 219 ft-lb; with 0.3345 it is 219.5 ft-lb (by hand).
     expect(nmToFtLb(r.shortForm!.torqueNm)).toBeCloseTo(0.2 * 0.75 * 0.5 * 105_000 * 0.33446071 / 12, 3);
-    // Long form with d2 = 0.75 − 0.6495/10 = 0.68505 in → K ≈ 0.21 (REFERENCE §3).
+    // Long form with d2 = 0.75 − 0.6495/10 = 0.68505 in → K ≈ 0.21 (docs/REFERENCE.md §3).
     expect(Number(r.longForm!.equivalentNutFactor.toFixed(2))).toBe(0.21);
     expect(r.warnings).toEqual([]);
   });
@@ -92,7 +92,7 @@ describe('computeCalculator', () => {
 });
 
 describe('starting values', () => {
-  it('estimates the 3/4 in heavy-hex bearing as 1.25 in across flats and a 0.875 in hole (REFERENCE §3, §6)', () => {
+  it('estimates the 3/4 in heavy-hex bearing as 1.25 in across flats and a 0.875 in hole (docs/REFERENCE.md §3, §6)', () => {
     const b = estimateNutBearing(inToMm(0.75));
     expect(mmToIn(b.bearingOdMm)).toBeCloseTo(1.25, 12);
     expect(mmToIn(b.holeDiameterMm)).toBeCloseTo(0.875, 12);

@@ -25,17 +25,18 @@ describe('preload F = σ·As', () => {
 });
 
 describe('preloadWarnings thresholds', () => {
-  it('says nothing inside the commonly quoted 40–70 % (REFERENCE §4, from memory)', () => {
+  it('says nothing inside the commonly quoted 40–70 % (docs/REFERENCE.md §4, from memory)', () => {
     expect(codes(40)).toEqual([]);
     expect(codes(50)).toEqual([]);
     expect(codes(70)).toEqual([]);
   });
 
-  it('cautions above 70 % with the REFERENCE wording and below 40 %', () => {
+  it('cautions above 70 % as outside the training default and below 40 %', () => {
     expect(codes(70.1)).toEqual(['above-usual-range']);
     const [w] = preloadWarnings({ residualPercentOfYield: 75 });
     expect(w?.severity).toBe('caution');
-    expect(w?.message).toContain('above the commonly quoted 40–70 % range (from memory, unverified)');
+    expect(w?.message).toContain('above the 40–70 % range this calculator uses as its training default');
+    expect(w?.source).toMatch(/^training default: set your own/);
     expect(codes(39.9)).toEqual(['below-usual-range']);
   });
 
@@ -51,7 +52,7 @@ describe('preloadWarnings thresholds', () => {
     expect(codes(50, 95)).toEqual(['applied-above-75']);
     const w = preloadWarnings({ residualPercentOfYield: 60, appliedPercentOfYield: 95.5 });
     expect(w.map((x) => [x.code, x.severity])).toEqual([['applied-above-95', 'danger']]);
-    expect(w[0]?.source).toContain('[TENS1]');
+    expect(w[0]?.source).toBe("the tensioner maker's instructions");
     expect(codes(60, 100)).toEqual(['applied-over-stress']);
   });
 });

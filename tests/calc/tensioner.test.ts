@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { appliedTensionerLoad, loadTransferFactor, tensionerPressureMpa } from '@/lib/calc/tensioner';
 
-describe('load transfer factor (REFERENCE §4)', () => {
+describe('load transfer factor (docs/REFERENCE.md §4)', () => {
   it('TENS1: 1.01 + D/L above the floor ([TENS1])', () => {
     // 1.01 + 25.4/100 = 1.264 (by hand)
     expect(loadTransferFactor('tens1', 25.4, 100)).toBeCloseTo(1.264, 12);

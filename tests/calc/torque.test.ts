@@ -15,9 +15,9 @@ import { inToMm, ksiToMpa, lbfToN, nmToFtLb, in2ToMm2 } from '@/lib/calc/units';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
-describe('short form T = K·D·F ([SPR], REFERENCE §3)', () => {
-  it('US worked check: 3/4-10 B7 at 50 % of yield, K = 0.20 → ≈219 ft-lb (REFERENCE §3)', () => {
-    // F = 0.5 × 105 ksi × 0.334 in² = 17,535 lbf (REFERENCE §3, table area [EE-AREA]).
+describe('short form T = K·D·F ([SPR], docs/REFERENCE.md §3)', () => {
+  it('US worked check: 3/4-10 B7 at 50 % of yield, K = 0.20 → ≈219 ft-lb (docs/REFERENCE.md §3)', () => {
+    // F = 0.5 × 105 ksi × 0.334 in² = 17,535 lbf (docs/REFERENCE.md §3, table area [EE-AREA]).
     const F = 0.5 * 105_000 * 0.334;
     expect(F).toBeCloseTo(17_535, 6);
     // T = 0.20 × 0.75 in × 17,535 lbf / 12 = 219.19 ft-lb.
@@ -52,14 +52,14 @@ describe('short form T = K·D·F ([SPR], REFERENCE §3)', () => {
   });
 });
 
-describe('long form (VDI 2230 R13/1 [VDI-CODE], REFERENCE §3)', () => {
-  // REFERENCE §3 worked check: 3/4-10, µ = 0.15 both, P 0.1 in, d2 0.685 in, heavy hex 1.25 in
+describe('long form (VDI 2230 R13/1 [VDI-CODE], docs/REFERENCE.md §3)', () => {
+  // docs/REFERENCE.md §3 worked check: 3/4-10, µ = 0.15 both, P 0.1 in, d2 0.685 in, heavy hex 1.25 in
   // across flats, 0.875 in hole → K ≈ 0.21, pitch term ≈ 10 % of torque.
   const D = 0.75;
   const Db = meanBearingDiameter(1.25, 0.875); // (1.25 + 0.875)/2 = 1.0625 in [TRIB2]
   const inputs = { pitchMm: 0.1, pitchDiameterMm: 0.685, muThread: 0.15, muBearing: 0.15, bearingDiameterMm: Db };
 
-  it('reduces to K ≈ 0.21 for the stated friction values (REFERENCE §3)', () => {
+  it('reduces to K ≈ 0.21 for the stated friction values (docs/REFERENCE.md §3)', () => {
     expect(Db).toBe(1.0625);
     // By hand: [0.1/2π + 0.15×0.685/(2 cos 30°) + 0.15×1.0625/2]/0.75
     //        = [0.015915 + 0.059323 + 0.079688]/0.75 = 0.20657.
@@ -68,12 +68,12 @@ describe('long form (VDI 2230 R13/1 [VDI-CODE], REFERENCE §3)', () => {
     expect(Number(K.toFixed(2))).toBe(0.21);
   });
 
-  it('puts about 10 % of the torque into the pitch term (REFERENCE §3)', () => {
+  it('puts about 10 % of the torque into the pitch term (docs/REFERENCE.md §3)', () => {
     const arm = longFormArm(inputs);
     expect(arm.pitchMm / arm.totalMm).toBeCloseTo(0.103, 3);
   });
 
-  it('uses the constants 1/(2π) = 0.159 and 1/(2 cos 30°) = 0.577 (REFERENCE §3) — VDI 2230 rounds them to 0.16 and 0.58', () => {
+  it('uses the constants 1/(2π) = 0.159 and 1/(2 cos 30°) = 0.577 (docs/REFERENCE.md §3) — VDI 2230 rounds them to 0.16 and 0.58', () => {
     const arm = longFormArm({ pitchMm: 1, pitchDiameterMm: 1, muThread: 1, muBearing: 0, bearingDiameterMm: 1 });
     expect(arm.pitchMm).toBeCloseTo(0.159, 3);
     expect(arm.threadMm).toBeCloseTo(0.577, 3);

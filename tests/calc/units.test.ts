@@ -120,7 +120,7 @@ describe('format helpers', () => {
     expect(formatTorque(ftLbToNm(219.2), 'us')).toBe(`219${SP}ft-lb`);
     expect(formatTorque(352.5, 'si')).toBe(`353${SP}N·m`);
     expect(formatStress(ksiToMpa(105), 'us')).toBe(`105${SP}ksi`);
-    expect(formatStress(ksiToMpa(105), 'si')).toBe(`724${SP}MPa`); // REFERENCE §2: 105 ksi (724 MPa)
+    expect(formatStress(ksiToMpa(105), 'si')).toBe(`724${SP}MPa`); // docs/REFERENCE.md §2: 105 ksi (724 MPa)
     expect(formatPressure(100, 'si')).toBe(`1,000${SP}bar`);
     expect(formatPressure(100, 'us')).toBe(`14,504${SP}psi`);
     expect(formatArea(in2ToMm2(0.3345), 'us')).toBe(`0.3345${SP}in²`);

@@ -21,7 +21,7 @@ const row = (page: Page, label: string) => page.locator('dt', { hasText: label }
 const numberIn = (text: string | null) => Number((text ?? '').replace(/[^0-9.]/g, ''));
 
 // The page opens on a 3/4-10 UNC ASTM A193 B7 stud at 50 % of yield with K = 0.20, the worked check
-// in REFERENCE.md §3: F = 0.5 × 105 ksi × As and T = K·D·F/12 ≈ 219 ft-lb (short form, common practice).
+// in docs/REFERENCE.md §3: F = 0.5 × 105 ksi × As and T = K·D·F/12 ≈ 219 ft-lb (short form, common practice).
 // With As from the ASME B1.1 formula (0.3345 in², the table gives 0.334 ✓ [EE-AREA]) the force is
 // 0.5 × 105,000 × 0.33446 = 17,559 lbf = 78.1 kN, and the torque 0.2 × 0.75 × 17,559 / 12 = 219.5 ft-lb
 // = 297.6 N·m (computed).

@@ -35,7 +35,7 @@ async function waitForMail(to: string, subjectPart: string): Promise<string> {
 function figures(loads: number[], target: number) {
   const n = loads.length;
   const mean = loads.reduce((a, b) => a + b, 0) / n;
-  const sd = Math.sqrt(loads.reduce((a, b) => a + (b - mean) ** 2, 0) / (n - 1)); // REFERENCE.md §9 ✓ [CV]: s/x̄
+  const sd = Math.sqrt(loads.reduce((a, b) => a + (b - mean) ** 2, 0) / (n - 1)); // docs/REFERENCE.md §9 ✓ [CV]: s/x̄
   const inBand = loads.filter((l) => Math.abs(l - target) <= 0.1 * target * (1 + 1e-12)).length;
   return { cvPercent: (sd / mean) * 100, sharePercent: (inBand / n) * 100, inBand };
 }

@@ -78,7 +78,7 @@ describe('Record page', () => {
   });
 
   it('saves a run typed into the grid with the keyboard and a pasted block', async () => {
-    const [demo] = await sequelize.query<{ name: string; stud_count: number }>("SELECT name, stud_count FROM joints WHERE stud_count = 8 AND notes LIKE 'Invented demo%' ORDER BY id LIMIT 1", { type: QueryTypes.SELECT });
+    const [demo] = await sequelize.query<{ name: string; stud_count: number }>("SELECT name, stud_count FROM joints WHERE stud_count = 8 AND notes = 'Target: 50 % of the B7 minimum yield on the tensile stress area.' ORDER BY id LIMIT 1", { type: QueryTypes.SELECT });
     await openRecord(`${demo!.name} (8 studs)`);
     await page.getByRole('tab', { name: 'Enter by hand' }).click();
     await page.locator('#grid-0-0').click();

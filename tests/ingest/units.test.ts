@@ -19,7 +19,7 @@ describe('units', () => {
     expect(torqueToNm(42, 'N·m')).toBe(42);
   });
 
-  it('microstrain: 1000 µε at 200 GPa on 245 mm² is 49 kN (REFERENCE.md §2: 200 MPa), times the calibration', () => {
+  it('microstrain: 1000 µε at 200 GPa on 245 mm² is 49 kN (docs/REFERENCE.md §2: 200 MPa), times the calibration', () => {
     expect(microstrainToN(1000, { youngsModulusPa: 200e9, stressAreaM2: 245e-6 })).toBeCloseTo(49_000, 6);
     expect(loadToN(1000, 'microstrain', strain)).toBeCloseTo(49_000 * 1.03, 6);
   });

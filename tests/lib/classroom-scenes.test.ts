@@ -3,7 +3,7 @@ import { placeAmongSimulated, sceneFigures } from '@/lib/classroom/figures';
 import { findMethod, lubricantForSim, moveScene, parseSceneOrder, sceneSetup, seedFamily, simulateSide, toggleScene, type Library } from '@/lib/classroom/scenes';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 
-// A 5/8-11 B7 joint at 50 % of 105 ksi on As = 0.226 in² (REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL]), computed.
+// A 5/8-11 B7 joint at 50 % of 105 ksi on As = 0.226 in² (docs/REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL]), computed.
 const TARGET_N = 52_780;
 const orders = (pattern: 'cross' | 'circular') => ({ '8': pattern === 'cross' ? crossPatternOrder(8) : circularOrder(8) });
 const library: Library = {
@@ -51,7 +51,7 @@ describe('scene setup from the library', () => {
     expect(simulateSide(setup.sides[1]!, setup.joint, 1).steps.map((s) => s.position)).toEqual(circularOrder(8));
     expect(findMethod(library.methods, { tool: 'hydraulic_torque_wrench', passes: [{ percentOfTarget: 100, pattern: 'cross' }], checkPasses: 0 }, 8)).toBeNull();
   });
-  it('treats a K of 0.20 as dry (Shigley "unknown condition", REFERENCE.md §3 ✓ [SHIG]) and scatters it more than a paste', () => {
+  it('treats a K of 0.20 as dry (Shigley "unknown condition", docs/REFERENCE.md §3 ✓ [SHIG]) and scatters it more than a paste', () => {
     expect(lubricantForSim({ nominalNutFactor: 0.2 }).kScatterCv).toBeGreaterThan(lubricantForSim({ nominalNutFactor: 0.12 }).kScatterCv);
   });
   it('uses the same seed family on both sides', () => {
@@ -64,7 +64,7 @@ describe('scene end figures (over 30 simulated runs each)', () => {
     const setup = sceneSetup(scene, library, 7)!;
     return sceneFigures(setup.sides.map((side) => ({ key: side.key, label: side.label, runs: seedFamily(1).map((seed) => simulateSide(side, setup.joint, seed)) })), 10, 'these methods');
   };
-  it('shows several passes more even than one pass, with a reading that finds the difference (REFERENCE.md §4 ✓ [HENNIG], [HSW], [BSCI])', () => {
+  it('shows several passes more even than one pass, with a reading that finds the difference (docs/REFERENCE.md §4 ✓ [HENNIG], [HSW], [BSCI])', () => {
     const f = figuresOf('passes');
     expect(f.basis).toBe('over 30 simulated runs each');
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
@@ -76,7 +76,7 @@ describe('scene end figures (over 30 simulated runs each)', () => {
     const f = figuresOf('pattern');
     expect(f.sides[0]!.cv).toBeLessThan(f.sides[1]!.cv);
   });
-  it('shows lubricated more even than dry under torque control (REFERENCE.md §5: torque dry ±35 %, lubricated ±25 % ✓ [SPRING])', () => {
+  it('shows lubricated more even than dry under torque control (docs/REFERENCE.md §5: torque dry ±35 %, lubricated ±25 % ✓ [SPRING])', () => {
     const f = figuresOf('lube');
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
   });

@@ -16,9 +16,9 @@ function jointForm(overrides: Record<string, string> = {}): Record<string, strin
 }
 
 describe('jointTarget', () => {
-  it('gives 11,865 lbf for a 5/8-11 B7 stud at 50 % of yield (REFERENCE §1 As 0.226 in², §2 B7 yield 105 ksi)', () => {
+  it('gives 11,865 lbf for a 5/8-11 B7 stud at 50 % of yield (docs/REFERENCE.md §1 As 0.226 in², §2 B7 yield 105 ksi)', () => {
     const r = jointTarget({ thread: { system: 'inch', diameterIn: 0.625, threadsPerInch: 11 }, grade: 'A193-B7', mode: 'percentOfYield', percent: 50, loadN: NaN, stressMpa: NaN });
-    // 0.5 × 105,000 psi × 0.226 in² = 11,865 lbf (computed from the REFERENCE table values)
+    // 0.5 × 105,000 psi × 0.226 in² = 11,865 lbf (computed from the docs/REFERENCE.md §1 table values)
     expect(rel(r.target!.loadN, lbfToN(11_865))).toBeLessThan(1e-3);
     expect(rel(r.target!.loadN, 52_780)).toBeLessThan(1e-3);
     expect(rel(r.thread!.tensileStressAreaMm2, in2ToMm2(0.226))).toBeLessThan(1e-3);
@@ -26,27 +26,27 @@ describe('jointTarget', () => {
     expect(r.warnings).toEqual([]);
   });
 
-  it('gives 17,535 lbf for a 3/4-10 stud at a target stress of 52.5 ksi (REFERENCE §3 worked check)', () => {
+  it('gives 17,535 lbf for a 3/4-10 stud at a target stress of 52.5 ksi (docs/REFERENCE.md §3 worked check)', () => {
     const r = jointTarget({ thread: { system: 'inch', diameterIn: 0.75, threadsPerInch: 10 }, grade: 'A193-B7', mode: 'stress', stressMpa: ksiToMpa(52.5), percent: NaN, loadN: NaN });
-    // REFERENCE uses the table area 0.334 in²; the formula gives 0.3345 in², hence 2e-3.
+    // docs/REFERENCE.md §3 uses the table area 0.334 in²; the formula gives 0.3345 in², hence 2e-3.
     expect(rel(r.target!.loadN, lbfToN(17_535))).toBeLessThan(2e-3);
   });
 
-  it('warns above the commonly quoted 40–70 % range and past yield (REFERENCE §4, from memory, unverified; yield by definition)', () => {
+  it('warns above the commonly quoted 40–70 % range and past yield (docs/REFERENCE.md §4, from memory, unverified; yield by definition)', () => {
     const base = { thread: { system: 'inch' as const, diameterIn: 0.75, threadsPerInch: 10 }, grade: 'A193-B7' as const, mode: 'percentOfYield' as const, loadN: NaN, stressMpa: NaN };
     expect(jointTarget({ ...base, percent: 80 }).warnings.map((w) => w.code)).toEqual(['above-usual-range']);
     expect(jointTarget({ ...base, percent: 105 }).warnings.map((w) => w.code)).toEqual(['over-stress']);
     expect(jointTarget({ ...base, percent: 30 }).warnings.map((w) => w.code)).toEqual(['below-usual-range']);
   });
 
-  it('reports a direct load as % of yield: 17,535 lbf on 3/4-10 B7 is 50 % (REFERENCE §3)', () => {
+  it('reports a direct load as % of yield: 17,535 lbf on 3/4-10 B7 is 50 % (docs/REFERENCE.md §3)', () => {
     const r = jointTarget({ thread: { system: 'inch', diameterIn: 0.75, threadsPerInch: 10 }, grade: 'A193-B7', mode: 'load', loadN: lbfToN(17_535), percent: NaN, stressMpa: NaN });
     // 17,535 / (0.3345 × 105,000) = 49.93 % with the formula area (computed)
     expect(r.target!.percentOfYield).toBeGreaterThan(49.8);
     expect(r.target!.percentOfYield).toBeLessThan(50.1);
   });
 
-  it('names the field when the grade is not tabulated for the size (B8 Class 2 only to 3/4 in, REFERENCE §2)', () => {
+  it('names the field when the grade is not tabulated for the size (B8 Class 2 only to 3/4 in, docs/REFERENCE.md §2)', () => {
     const r = jointTarget({ thread: { system: 'inch', diameterIn: 1, threadsPerInch: 8 }, grade: 'A193-B8-CL2', mode: 'percentOfYield', percent: 50, loadN: NaN, stressMpa: NaN });
     expect(r.errors.studGrade?.[0]).toMatch(/3\/4|0\.75/);
     expect(r.target).toBeUndefined();
@@ -54,7 +54,7 @@ describe('jointTarget', () => {
 });
 
 describe('thread helpers', () => {
-  it('notes a 1 in or larger inch stud that is not 8UN (REFERENCE §1 ✓ [CFR46], [TME])', () => {
+  it('notes a 1 in or larger inch stud that is not 8UN (docs/REFERENCE.md §1 ✓ [CFR46], [TME])', () => {
     expect(threadSeriesNote({ system: 'inch', diameterIn: 1.25, threadsPerInch: 7 })?.code).toBe('not-8un');
     expect(threadSeriesNote({ system: 'inch', diameterIn: 1.25, threadsPerInch: 8 })).toBeNull();
     expect(threadSeriesNote({ system: 'inch', diameterIn: 0.75, threadsPerInch: 10 })).toBeNull();
@@ -73,7 +73,7 @@ describe('thread helpers', () => {
   });
 });
 
-describe('positionPoint (numbered clockwise from 1 at the top, REFERENCE §6 ✓ [KNM])', () => {
+describe('positionPoint (numbered clockwise from 1 at the top, docs/REFERENCE.md §6 ✓ [KNM])', () => {
   it('puts 1 at 12 o’clock, 3 at 3 o’clock and 5 at 6 o’clock on an 8-stud flange (screen y down)', () => {
     const one = positionPoint(1, 8, 10);
     const three = positionPoint(3, 8, 10);
@@ -93,7 +93,7 @@ describe('parseJointForm', () => {
     if (!r.ok) return;
     expect(r.value.positions).toHaveLength(8);
     expect(r.value.positions[2]).toEqual({ position: 3, calibrationFactor: 1.02, note: 'gauge replaced' });
-    expect(rel(r.value.targetLoadN, lbfToN(11_865))).toBeLessThan(1e-3); // REFERENCE §1/§2 as above
+    expect(rel(r.value.targetLoadN, lbfToN(11_865))).toBeLessThan(1e-3); // docs/REFERENCE.md §1/§2 as above
     expect(r.value.washer).toBeNull();
   });
 

@@ -3,7 +3,7 @@ import { criteriaSchema, DEFAULT_CRITERIA, type AssessmentCriteria } from '@/lib
 import { gradeIdFromLabel, judgeRun, type JudgeRunInput, type JudgeRunStep } from '@/lib/assessment/judge-run';
 import type { MethodPass } from '@/models/method';
 
-// Cross order for 8 studs 1-5-3-7-2-6-4-8 (REFERENCE.md §6, from memory, unverified; the same as
+// Cross order for 8 studs 1-5-3-7-2-6-4-8 (docs/REFERENCE.md §6, from memory, unverified; the same as
 // lib/sim crossPatternOrder(8)) — written out here, not taken from the code under test.
 const CROSS_8 = [1, 5, 3, 7, 2, 6, 4, 8];
 const CIRCLE_8 = [1, 2, 3, 4, 5, 6, 7, 8];
@@ -11,7 +11,7 @@ const threeCrossPlusCheck = {
   passes: [30, 60, 100].map((percentOfTarget): MethodPass => ({ percentOfTarget, pattern: 'cross', orderByStudCount: { '8': CROSS_8 } })),
   checkPasses: 1,
 };
-// 3/4-10 UNC, ASTM A193 B7 (REFERENCE.md §1 and §2).
+// 3/4-10 UNC, ASTM A193 B7 (docs/REFERENCE.md §1 and §2).
 const joint = { studCount: 8, thread: { system: 'inch' as const, diameterIn: 0.75, threadsPerInch: 10 }, studGrade: 'ASTM A193 B7' };
 
 function stepsFor(orders: number[][]): JudgeRunStep[] {
@@ -67,7 +67,7 @@ describe('judgeRun: band', () => {
 
 describe('judgeRun: CV', () => {
   // Hand-worked: mean 100 kN, squared deviations 25+25+0+0+4+4+1+1 = 60 kN², s² = 60/7,
-  // s = 2.92770 kN, CV = 2.92770 % (sample CV s/x̄, REFERENCE.md §9 ✓ [CV]).
+  // s = 2.92770 kN, CV = 2.92770 % (sample CV s/x̄, docs/REFERENCE.md §9 ✓ [CV]).
   const expectedCv = Math.sqrt(60 / 7);
 
   it('measures the sample CV of the final loads and meets a 5 % limit', () => {
@@ -141,12 +141,12 @@ describe('judgeRun: pattern', () => {
 
 describe('judgeRun: yield', () => {
   // Yield load of a 3/4-10 B7 stud, computed here from the reference sheet, not from lib/calc:
-  // As = 0.7854 (0.75 − 0.9743/10)² in² (ASME B1.1, REFERENCE.md §1 ✓ [EE-B1.1]) = 0.33446 in²;
-  // minimum yield 105 ksi (REFERENCE.md §2 ✓ [NANL], [BACO]); 1 lbf = 4.4482216152605 N (exact).
+  // As = 0.7854 (0.75 − 0.9743/10)² in² (ASME B1.1, docs/REFERENCE.md §1 ✓ [EE-B1.1]) = 0.33446 in²;
+  // minimum yield 105 ksi (docs/REFERENCE.md §2 ✓ [NANL], [BACO]); 1 lbf = 4.4482216152605 N (exact).
   const yieldLoadN = 105_000 * 0.7854 * (0.75 - 0.9743 / 10) ** 2 * 4.4482216152605;
 
   it('measures the highest final load as % of the minimum yield load (105 kN → 67.2 %)', () => {
-    expect(yieldLoadN).toBeCloseTo(156_213, -1); // 35,118 lbf; cf. 17,535 lb at 50 % in REFERENCE.md §3 (computed)
+    expect(yieldLoadN).toBeCloseTo(156_213, -1); // 35,118 lbf; cf. 17,535 lb at 50 % in docs/REFERENCE.md §3 (computed)
     const y = result(judgeRun(input()), 'yield');
     expect(y.measured).toBeCloseTo((105_000 / yieldLoadN) * 100, 6);
     expect(y.met).toBe(true);

@@ -1,25 +1,25 @@
 import { describe, expect, it } from 'vitest';
 import { generatedOrder, parseLubricantForm, parseMethodForm, parseOrderText, passOrderMessage, patternOf } from '@/lib/joints/method-input';
 
-// Legacy cross orders, REFERENCE §6 (8: from memory, unverified; 12: ✓ [ROVER]).
+// Legacy cross orders, docs/REFERENCE.md §6 (8: from memory, unverified; 12: ✓ [ROVER]).
 const CROSS_8 = [1, 5, 3, 7, 2, 6, 4, 8];
 const CROSS_12 = [1, 7, 4, 10, 2, 8, 5, 11, 3, 9, 6, 12];
 
 describe('stud orders', () => {
-  it('reads orders written with hyphens, commas or spaces, as the trade writes them (REFERENCE §6 "1-5-3-7-2-6-4-8")', () => {
+  it('reads orders written with hyphens, commas or spaces, as the trade writes them (docs/REFERENCE.md §6 "1-5-3-7-2-6-4-8")', () => {
     expect(parseOrderText('1-5-3-7-2-6-4-8')).toEqual(CROSS_8);
     expect(parseOrderText(' 1, 5 3;7 ')).toEqual([1, 5, 3, 7]);
     expect(parseOrderText('1 x 3')[1]).toBeNaN();
   });
 
-  it('generates the REFERENCE §6 cross orders and refuses a cross order for 6 studs', () => {
+  it('generates the docs/REFERENCE.md §6 cross orders and refuses a cross order for 6 studs', () => {
     expect(generatedOrder('cross', 8)).toEqual(CROSS_8);
     expect(generatedOrder('cross', 12)).toEqual(CROSS_12);
     expect(generatedOrder('cross', 6)).toBeNull();
     expect(generatedOrder('circular', 6)).toEqual([1, 2, 3, 4, 5, 6]);
   });
 
-  it('names a repeated stud (every stud once per pass, common practice, REFERENCE §4)', () => {
+  it('names a repeated stud (every stud once per pass, common practice, docs/REFERENCE.md §4)', () => {
     expect(passOrderMessage([1, 5, 3, 7, 2, 6, 4, 4], 8)).toBe('Pass order misses position 8; repeats position 4.');
     expect(passOrderMessage(CROSS_8, 8)).toBeNull();
     expect(passOrderMessage([], 8)).toMatch(/Enter the order of the 8 studs/);

@@ -8,8 +8,8 @@ import { mean, sampleCv } from './support';
 const scenario = buildDemoScenario();
 const N_PER_LBF = 4.4482216152605;
 
-describe('tensileStressAreaIn2 (As = 0.7854 (D − 0.9743/n)², REFERENCE §1 ✓ [EE-B1.1])', () => {
-  it('matches the published table areas for 5/8-11, 3/4-10 and 1-8 UNC (REFERENCE §1 ✓ [EE-AREA])', () => {
+describe('tensileStressAreaIn2 (As = 0.7854 (D − 0.9743/n)², docs/REFERENCE.md §1 ✓ [EE-B1.1])', () => {
+  it('matches the published table areas for 5/8-11, 3/4-10 and 1-8 UNC (docs/REFERENCE.md §1 ✓ [EE-AREA])', () => {
     for (const [d, n, table] of [[0.625, 11, 0.226], [0.75, 10, 0.334], [1, 8, 0.606]] as const) {
       // Table values have three significant figures, hence the 0.2 % tolerance.
       expect(Math.abs(tensileStressAreaIn2(d, n) - table) / table).toBeLessThan(0.002);
@@ -73,7 +73,7 @@ describe('buildDemoScenario: people, school and cohorts', () => {
 });
 
 describe('buildDemoScenario: joints, methods, lubricants', () => {
-  it('has the 8 × 5/8 in and 12 × 3/4 in training joints (REFERENCE §6: NPS 4 Cl 150 ✓ [B165-T7]; NPS 6 Cl 300 from memory)', () => {
+  it('has the 8 × 5/8 in and 12 × 3/4 in training joints (docs/REFERENCE.md §6: NPS 4 Cl 150 ✓ [B165-T7]; NPS 6 Cl 300 from memory)', () => {
     const [a, b] = scenario.joints;
     expect(a?.studCount).toBe(8);
     expect(a?.thread).toMatchObject({ system: 'inch', diameter: 0.625, threadsPerInch: 11 });
@@ -90,7 +90,7 @@ describe('buildDemoScenario: joints, methods, lubricants', () => {
     }
   });
 
-  it('sets the target load at 50 % of the 105 ksi B7 yield on the table stress area (REFERENCE §1 ✓ [EE-AREA], §2 ✓ [NANL], §4)', () => {
+  it('sets the target load at 50 % of the 105 ksi B7 yield on the table stress area (docs/REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL], §4)', () => {
     const expected = { 8: 0.5 * 105_000 * 0.226 * N_PER_LBF, 12: 0.5 * 105_000 * 0.334 * N_PER_LBF };
     for (const j of scenario.joints) {
       const want = expected[j.studCount as 8 | 12];
@@ -113,7 +113,7 @@ describe('buildDemoScenario: joints, methods, lubricants', () => {
     expect(threePass?.checkPasses).toBe(1);
   });
 
-  it('orders the lubricants by nominal K as REFERENCE §3 does: dry 0.20 ✓ [SHIG] > copper paste > MoS₂ (from memory)', () => {
+  it('orders the lubricants by nominal K as docs/REFERENCE.md §3 does: dry 0.20 ✓ [SHIG] > copper paste > MoS₂ (from memory)', () => {
     const k = Object.fromEntries(scenario.lubricants.map((l) => [l.key, l.nominalK]));
     expect(k).toEqual({ dry: 0.2, 'copper-paste': 0.15, 'moly-paste': 0.12 });
   });

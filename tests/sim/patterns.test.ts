@@ -2,28 +2,28 @@ import { describe, expect, it } from 'vitest';
 import { circularOrder, crossPatternOrder, validatePassOrder } from '@/lib/sim/patterns';
 import { SimInputError } from '@/lib/sim/errors';
 
-// Expected orders are the legacy cross-pattern tables of REFERENCE.md §6. Those for 4, 8 and 16
+// Expected orders are the legacy cross-pattern tables of docs/REFERENCE.md §6. Those for 4, 8 and 16
 // bolts are marked there "from memory, unverified"; the 12-bolt order matches a public example ✓ [ROVER].
 const parse = (s: string): number[] => s.split('-').map(Number);
 
 describe('crossPatternOrder', () => {
-  it('matches the 4-bolt legacy table 1-3-2-4 (REFERENCE §6, from memory, unverified)', () => {
+  it('matches the 4-bolt legacy table 1-3-2-4 (docs/REFERENCE.md §6, from memory, unverified)', () => {
     expect(crossPatternOrder(4)).toEqual(parse('1-3-2-4'));
   });
 
-  it('matches the 8-bolt legacy table 1-5-3-7-2-6-4-8 (REFERENCE §6, from memory, unverified)', () => {
+  it('matches the 8-bolt legacy table 1-5-3-7-2-6-4-8 (docs/REFERENCE.md §6, from memory, unverified)', () => {
     expect(crossPatternOrder(8)).toEqual(parse('1-5-3-7-2-6-4-8'));
   });
 
-  it('matches the 12-bolt order 1-7-4-10-2-8-5-11-3-9-6-12 (REFERENCE §6 ✓ [ROVER])', () => {
+  it('matches the 12-bolt order 1-7-4-10-2-8-5-11-3-9-6-12 (docs/REFERENCE.md §6 ✓ [ROVER])', () => {
     expect(crossPatternOrder(12)).toEqual(parse('1-7-4-10-2-8-5-11-3-9-6-12'));
   });
 
-  it('matches the 16-bolt legacy table (REFERENCE §6, from memory, unverified)', () => {
+  it('matches the 16-bolt legacy table (docs/REFERENCE.md §6, from memory, unverified)', () => {
     expect(crossPatternOrder(16)).toEqual(parse('1-9-5-13-3-11-7-15-2-10-6-14-4-12-8-16'));
   });
 
-  it('is built of groups of four studs 90° apart for every multiple of 4 up to 64 (REFERENCE §6 structure)', () => {
+  it('is built of groups of four studs 90° apart for every multiple of 4 up to 64 (docs/REFERENCE.md §6 structure)', () => {
     for (let n = 4; n <= 64; n += 4) {
       const order = crossPatternOrder(n);
       expect(validatePassOrder(order, n).valid).toBe(true);
@@ -42,7 +42,7 @@ describe('crossPatternOrder', () => {
 });
 
 describe('circularOrder', () => {
-  it('is 1..N clockwise (REFERENCE §6 numbering ✓ [KNM])', () => {
+  it('is 1..N clockwise (docs/REFERENCE.md §6 numbering ✓ [KNM])', () => {
     expect(circularOrder(8)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     expect(() => circularOrder(0)).toThrow('circularOrder requires a positive integer studCount');
   });

@@ -4,7 +4,7 @@ import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 import { SimInputError } from '@/lib/sim/errors';
 import { mean, plusMinus, sampleCv, seeds } from './support';
 
-// A 5/8-11 B7 stud at 50 % of 105 ksi yield on As = 0.226 in² (REFERENCE §1 ✓ [EE-AREA], §2 ✓ [NANL]):
+// A 5/8-11 B7 stud at 50 % of 105 ksi yield on As = 0.226 in² (docs/REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL]):
 // 0.5 × 105 000 psi × 0.226 in² × 4.4482 N/lbf ≈ 52 780 N (computed).
 const TARGET_N = 0.5 * 105_000 * 0.226 * 4.4482216152605;
 const D_5_8_M = 0.625 * 0.0254;
@@ -80,8 +80,8 @@ describe('simulateRun: reproducibility and shape', () => {
   });
 });
 
-describe('simulateRun: torque control (T = K·D·F, REFERENCE §3 ✓ [SPR])', () => {
-  it('applies 219 ft-lb to a 3/4-10 stud at 17 535 lb with K = 0.20 (REFERENCE §3 worked check, computed)', () => {
+describe('simulateRun: torque control (T = K·D·F, docs/REFERENCE.md §3 ✓ [SPR])', () => {
+  it('applies 219 ft-lb to a 3/4-10 stud at 17 535 lb with K = 0.20 (docs/REFERENCE.md §3 worked check, computed)', () => {
     const targetN = 17_535 * 4.4482216152605;
     const { run } = simulateRun({
       ...input({}),
@@ -108,7 +108,7 @@ describe('simulateRun: torque control (T = K·D·F, REFERENCE §3 ✓ [SPR])', (
     for (const step of run.steps.slice(8)) expect(step.loadsN).toEqual(afterFirstPass);
   });
 
-  it('over-tensions the studs when the real K is lower than the K used for the torque (REFERENCE §8 ✓ [HBJ])', () => {
+  it('over-tensions the studs when the real K is lower than the K used for the torque (docs/REFERENCE.md §8 ✓ [HBJ])', () => {
     const { run } = simulateRun(
       input({ lubricant: { nominalK: 0.12, kScatterCv: 0 }, torqueCalculationK: 0.2, operatorNoiseCv: 0, gasketStiffness: 0, method: torqueMethod([100], 0) }),
     );
@@ -122,7 +122,7 @@ describe('simulateRun: torque control (T = K·D·F, REFERENCE §3 ✓ [SPR])', (
     a.forEach((load, i) => expect(Math.abs(load - (b[i] as number)) / load).toBeLessThan(1e-9));
   });
 
-  it('scatters less with a lower, steadier nut factor (paste) than dry (REFERENCE §3 K table; CVs per MODEL.md)', () => {
+  it('scatters less with a lower, steadier nut factor (paste) than dry (docs/REFERENCE.md §3 K table; CVs per MODEL.md)', () => {
     const method = torqueMethod([30, 60, 100], 1);
     const cvDry = meanOverSeeds((seed) => input({ seed, method, lubricant: dry }), sampleCv);
     const cvPaste = meanOverSeeds((seed) => input({ seed, method, lubricant: paste }), sampleCv);
@@ -132,7 +132,7 @@ describe('simulateRun: torque control (T = K·D·F, REFERENCE §3 ✓ [SPR])', (
   });
 });
 
-describe('simulateRun: elastic interaction (REFERENCE §4 ✓ [BSCI], [MDPI])', () => {
+describe('simulateRun: elastic interaction (docs/REFERENCE.md §4 ✓ [BSCI], [MDPI])', () => {
   it('takes c(k)·ΔF from a stud at circular distance k when another stud is tightened', () => {
     const { run, meta } = simulateRun(
       input({ lubricant: exact, operatorNoiseCv: 0, gasketStiffness: 0.1, snugMaxFraction: 0, method: torqueMethod([100], 0) }),
@@ -172,7 +172,7 @@ describe('simulateRun: elastic interaction (REFERENCE §4 ✓ [BSCI], [MDPI])', 
     for (const step of run.steps) for (const load of step.loadsN) expect(load).toBeGreaterThanOrEqual(0);
   });
 
-  it('shrinks the CV with more passes and with circular check passes (REFERENCE §4 ✓ [HENNIG], [HSW])', () => {
+  it('shrinks the CV with more passes and with circular check passes (docs/REFERENCE.md §4 ✓ [HENNIG], [HSW])', () => {
     const cvOf = (percents: number[], checks: number): number =>
       meanOverSeeds((seed) => input({ seed, method: torqueMethod(percents, checks) }), sampleCv);
     const onePass = cvOf([100], 0);
@@ -197,8 +197,8 @@ describe('simulateRun: flange rotation while the loads are lopsided (MODEL.md "F
     expect(easing[5]).toBe(0);
   });
 
-  it('makes a single cross pass more even than a single circular pass, as the trade teaches (REFERENCE §4 cross pattern ✓ [HENNIG], [HSW])', () => {
-    // Trade practice tightens in a cross pattern so the flanges come down evenly (REFERENCE §4
+  it('makes a single cross pass more even than a single circular pass, as the trade teaches (docs/REFERENCE.md §4 cross pattern ✓ [HENNIG], [HSW])', () => {
+    // Trade practice tightens in a cross pattern so the flanges come down evenly (docs/REFERENCE.md §4
     // legacy procedure: cross-pattern rounds with a gap check, from memory, unverified; cross
     // pattern in simplified practice ✓ [HENNIG], [HSW]). A circular first pass pulls one side down
     // first. With the rotation term on (default) the circular pass must scatter more, for 8 and
@@ -231,7 +231,7 @@ describe('simulateRun: flange rotation while the loads are lopsided (MODEL.md "F
   });
 });
 
-describe('simulateRun: scatter against published ranges (REFERENCE §5)', () => {
+describe('simulateRun: scatter against published ranges (docs/REFERENCE.md §5)', () => {
   it('puts one-pass torque-wrench scatter broadly within the VDI 2230 ±17–28 % torque-wrench ranges', () => {
     // VDI 2230:1986 gives ±17–23 % (torque found by test) and ±23–28 % (estimated friction) for
     // single bolts tightened by torque wrench ✓ [VDI-86]. Our figure is different in kind: the
@@ -259,7 +259,7 @@ describe('simulateRun: scatter against published ranges (REFERENCE §5)', () => 
   });
 });
 
-describe('simulateRun: hydraulic tensioner (REFERENCE §4 load transfer)', () => {
+describe('simulateRun: hydraulic tensioner (docs/REFERENCE.md §4 load transfer)', () => {
   const tensioner: SimMethod = {
     tool: 'hydraulic_tensioner',
     passes: [100, 100].map((percentOfTarget) => ({ percentOfTarget, order: crossPatternOrder(8) })),

@@ -1,7 +1,7 @@
 /**
  * Small statistics helpers for the simulator tests, written out here (two-pass variance) so the
- * tests do not lean on the code under test. CV = s/x̄ (REFERENCE.md §9 ✓ [CV]);
- * ± = (max − min)/(max + min), i.e. (αA − 1)/(αA + 1) with αA = max/min (REFERENCE.md §5, computed).
+ * tests do not lean on the code under test. CV = s/x̄ (docs/REFERENCE.md §9 ✓ [CV]);
+ * ± = (max − min)/(max + min), i.e. (αA − 1)/(αA + 1) with αA = max/min (docs/REFERENCE.md §5, computed).
  */
 export function mean(xs: readonly number[]): number {
   if (xs.length === 0) throw new Error('mean requires at least one value');

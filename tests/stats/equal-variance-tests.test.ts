@@ -11,7 +11,7 @@ const gear = readGear();
 describe('brownForsytheTest', () => {
   it('brownForsytheTest on NIST GEAR.DAT gives the e-Handbook Levene example W ≈ 1.705910, p ≈ 0.0991, df (9, 90)', () => {
     // Source: NIST/SEMATECH e-Handbook §1.3.5.10 as quoted in JuliaStats HypothesisTests.jl test/var_equality.jl
-    // (see shared/reference/README.md): W ≈ 1.705910 (atol 1e-5), p ≈ 0.0991 (atol 1e-4). The handbook's
+    // (see tests/fixtures/reference/README.md): W ≈ 1.705910 (atol 1e-5), p ≈ 0.0991 (atol 1e-4). The handbook's
     // example is median-centred, i.e. Brown–Forsythe.
     const r = brownForsytheTest(gear);
     expect(Math.abs(r.statistic - 1.70591)).toBeLessThan(1e-5);
@@ -48,7 +48,7 @@ describe('leveneTest', () => {
 });
 
 describe('bartlettTest', () => {
-  it('bartlettTest on GEAR.DAT gives T = 20.785873428064864 (scipy.stats.bartlett; recomputed in shared/reference/README.md)', () => {
+  it('bartlettTest on GEAR.DAT gives T = 20.785873428064864 (scipy.stats.bartlett; recomputed in tests/fixtures/reference/README.md)', () => {
     const r = bartlettTest(gear);
     expect(relativeError(r.statistic, 20.785873428064864)).toBeLessThan(1e-9);
     expect(relativeError(r.pValue, gearFx.bartlett.pValue)).toBeLessThan(1e-9);

@@ -5,7 +5,7 @@ import { lre, printLreTable } from './support/lre';
 import { referencePath } from './support/reference-path';
 
 // Source of every expected value: NIST StRD Analysis of Variance, certified block on lines 41-47
-// (AtmWtAg: lines 42-48) of each file in shared/reference/nist-strd/anova.
+// (AtmWtAg: lines 42-48) of each file in tests/fixtures/reference/nist-strd/anova.
 // Required F bars (brief): >= 12 on SiRstv and SmLs01-03, >= 8 on AtmWtAg and SmLs04-06,
 // >= 2.5 on SmLs07-09. The other quantities are held to the same bar as F.
 const SETS: { name: string; bar: number }[] = [

@@ -5,7 +5,7 @@ import { lre, printLreTable } from './support/lre';
 import { referencePath } from './support/reference-path';
 
 // Source of every expected value: NIST StRD Linear Regression, "Certified Regression Statistics"
-// in each file of shared/reference/nist-strd/regression (models as stated in each header).
+// in each file of tests/fixtures/reference/nist-strd/regression (models as stated in each header).
 // Required coefficient bars (brief): >= 9 on Norris, NoInt1, NoInt2, Pontius; >= 7 on Longley.
 // Filip and Wampler1-5 are not required; they are run and reported with the bars below, chosen
 // from the achieved values minus a margin (Filip is a degree-10 polynomial, condition ~1e15;

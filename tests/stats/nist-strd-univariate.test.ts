@@ -1,4 +1,3 @@
-import fs from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { lagOneAutocorrelation, mean, sampleStandardDeviation } from '@/lib/stats';
 import { readUnivariate } from './support/nist-strd';
@@ -6,7 +5,7 @@ import { lre, printLreTable } from './support/lre';
 import { referencePath } from './support/reference-path';
 
 // Source of every expected value here: NIST StRD Univariate Summary Statistics, certified values
-// on lines 41-43 of each file in shared/reference/nist-strd/univariate (see its README).
+// on lines 41-43 of each file in tests/fixtures/reference/nist-strd/univariate (see its README).
 // Required LRE bars (brief): mean >= 14 everywhere; s >= 13 except NumAcc3 (>= 9) and NumAcc4 (>= 8).
 // r(1) has no required bar; we hold it at >= 12 on the well-conditioned sets and report all.
 const SETS: { name: string; sdBar: number; r1Bar: number }[] = [
@@ -26,16 +25,9 @@ afterAll(() => printLreTable('NIST StRD univariate', ['mean', 's', 'r(1)'], rows
 
 describe('NIST StRD univariate summary statistics', () => {
   for (const set of SETS) {
-    const file = referencePath('nist-strd', 'univariate', `${set.name}.dat`);
-    const present = fs.existsSync(file);
-    if (!present) {
-      // Visible skip, not a silent pass: the data file is absent from shared/reference.
-      it.skip(`${set.name}: data file missing from shared/reference/nist-strd/univariate, set skipped`, () => {});
-      rows.push({ name: `${set.name}*`, values: [null, null, null] });
-      continue;
-    }
     it(`mean, s and r(1) match NIST StRD ${set.name} certified values (LRE mean >= 14, s >= ${set.sdBar})`, () => {
-      const data = readUnivariate(file);
+      // A missing file fails here (readFileSync throws): the data live in the repository.
+      const data = readUnivariate(referencePath('nist-strd', 'univariate', `${set.name}.dat`));
       expect(data.values).toHaveLength(data.n);
       const lm = lre(mean(data.values), data.mean);
       const ls = lre(sampleStandardDeviation(data.values), data.sd);

@@ -2,9 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { nutFactor } from '@/lib/stats';
 import { relativeError } from './support/lre';
 
-// Worked check: REFERENCE.md §3 — 3/4-10 B7 stud at 50 % of yield, F = 0.5 × 105 ksi × 0.334 in² = 17,535 lbf;
+// Worked check: docs/REFERENCE.md §3 — 3/4-10 B7 stud at 50 % of yield, F = 0.5 × 105 ksi × 0.334 in² = 17,535 lbf;
 // with K = 0.20 the short-form relation (common practice) T = K·D·F/12 gives
-// T = 0.20 × 0.75 × 17,535 / 12 = 219.1875 ft-lb (≈ 219.2 ft-lb; REFERENCE.md rounds to 219).
+// T = 0.20 × 0.75 × 17,535 / 12 = 219.1875 ft-lb (≈ 219.2 ft-lb; docs/REFERENCE.md §3 rounds to 219).
 const T_FTLB = (0.2 * 0.75 * 17_535) / 12;
 // Unit conversions (exact by definition): 1 in = 0.0254 m; 1 lbf = 4.4482216152605 N;
 // 1 ft-lb = 0.3048 m × 4.4482216152605 N = 1.3558179483314004 N·m.
@@ -14,7 +14,7 @@ const FTLB = 0.3048 * LBF;
 
 describe('nutFactor', () => {
   it('nutFactor recovers K = 0.20 from the 3/4 in, 17,535 lbf, 219.19 ft-lb worked check in US units (short-form relation, common practice)', () => {
-    expect(Math.abs(T_FTLB - 219.2)).toBeLessThan(0.05); // REFERENCE.md §3 worked check, rounded
+    expect(Math.abs(T_FTLB - 219.2)).toBeLessThan(0.05); // docs/REFERENCE.md §3 worked check, rounded
     const r = nutFactor({ torque: [T_FTLB, 2 * T_FTLB], diameter: [0.75, 0.75], force: [17_535, 35_070] }, { units: 'US' });
     expect(relativeError(r.perReading[0]!, 0.2)).toBeLessThan(1e-14);
     expect(relativeError(r.fitted, 0.2)).toBeLessThan(1e-14);

@@ -70,7 +70,7 @@ describe('shareWithinBand', () => {
 });
 
 describe('tighteningFactor', () => {
-  it('tighteningFactor αA = 1.6 implies ±23 % (REFERENCE.md §5 worked check, computed there)', () => {
+  it('tighteningFactor αA = 1.6 implies ±23 % (docs/REFERENCE.md §5 worked check, computed there)', () => {
     const r = tighteningFactor([80, 100, 128]);
     expect(relativeError(r.alphaA, 1.6)).toBeLessThan(1e-15);
     expect(Math.round(r.plusMinusScatter * 100)).toBe(23);

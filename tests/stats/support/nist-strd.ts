@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 
-/** Parsers for the NIST StRD file formats (see /shared/reference/README.md). Accept CRLF and LF. */
+/** Parsers for the NIST StRD file formats (see tests/fixtures/reference/README.md). Accept CRLF and LF. */
 
 const NUM = '([-+]?\\d*\\.?\\d+(?:[eE][-+]?\\d+)?)';
 
