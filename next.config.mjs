@@ -1,6 +1,6 @@
 /**
  * Pages get their Content-Security-Policy, with a per-request nonce, from proxy.ts
- * (lib/content-security-policy.ts). Route handlers answer data, never a document to run: nothing
+ * (lib/http/content-security-policy.ts). Route handlers answer data, never a document to run: nothing
  * at all may load in their name.
  */
 const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";

@@ -1,7 +1,7 @@
 import { getToken } from 'next-auth/jwt';
 import { NextResponse, type NextRequest } from 'next/server';
-import { pageContentSecurityPolicy } from './lib/content-security-policy';
-import { authSecret, env } from './lib/env';
+import { pageContentSecurityPolicy } from './lib/http/content-security-policy';
+import { authSecret, env } from './lib/platform/env';
 
 /** Server actions carry form fields only; next.config.mjs sets the same limit for Next itself. */
 export const SERVER_ACTION_BODY_LIMIT_BYTES = 1024 * 1024;

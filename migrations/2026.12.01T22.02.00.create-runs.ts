@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 export const up: Migration = async ({ context: qi }) => {
   const fk = (model: string, allowNull = false, onDelete = 'RESTRICT') => ({

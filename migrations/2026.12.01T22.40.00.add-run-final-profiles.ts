@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 // Per-run profiles stored when a run is saved (recomputed when it changes), so a comparison across
 // thousands of runs reads one row per run instead of every reading.

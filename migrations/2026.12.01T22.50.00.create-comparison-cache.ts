@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 // Computed comparisons, kept in MariaDB (not in a server process) so every app instance shares them.
 // A row is valid while the fingerprint of the runs it was computed from is unchanged.

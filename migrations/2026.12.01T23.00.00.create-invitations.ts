@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /**
  * One-time tokens for invitation and password-reset links. Only the SHA-256 of the token is

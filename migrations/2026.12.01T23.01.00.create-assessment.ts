@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /** A cohort's acceptance criteria, and the signed verdict on each judged run. */
 export const up: Migration = async ({ context: qi }) => {

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /**
  * Mail captured by the local SMTP fake (scripts/mail-fake.ts), for development, the demo outbox

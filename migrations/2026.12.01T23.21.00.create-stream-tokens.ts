@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /**
  * Live stream: per-joint bridge tokens (only their sha256 is kept) and the raw samples a bridge

@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /**
  * Demo notes fit for a projector: databases seeded before this change carry engineer notes in the

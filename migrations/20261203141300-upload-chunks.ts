@@ -1,5 +1,5 @@
 import { DataTypes, QueryTypes } from 'sequelize';
-import type { Migration } from '../lib/migrator';
+import type { Migration } from '../lib/platform/migrator';
 
 /**
  * Uploaded files in 1 MB chunks (`upload_chunks`), so a file up to the 20 MB limit is stored

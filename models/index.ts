@@ -1,4 +1,4 @@
-import { sequelize } from '../lib/db';
+import { sequelize } from '../lib/platform/db';
 import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
 import { CohortCriteria } from './cohort-criteria';

@@ -7,8 +7,8 @@
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '../lib/db';
-import { env } from '../lib/env';
+import { sequelize } from '../lib/platform/db';
+import { env } from '../lib/platform/env';
 
 const MAX_BYTES = 5 * 1024 * 1024;
 

@@ -4,8 +4,8 @@
  *   tsx scripts/migrate.ts down      revert the last migration (down --to 0: all)
  *   tsx scripts/migrate.ts seed      apply pending seeders (demo data; idempotent)
  */
-import { sequelize } from '../lib/db';
-import { createMigrator, createSeeder } from '../lib/migrator';
+import { sequelize } from '../lib/platform/db';
+import { createMigrator, createSeeder } from '../lib/platform/migrator';
 
 async function main() {
   const [command, flag, value] = process.argv.slice(2);

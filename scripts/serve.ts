@@ -1,6 +1,6 @@
 /**
  * Serves the built app (what `next start` does) behind one step of our own: the client's address is
- * worked out from the socket and EVENLOAD_TRUSTED_PROXIES (lib/client-address.ts) and handed to the
+ * worked out from the socket and EVENLOAD_TRUSTED_PROXIES (lib/http/client-address.ts) and handed to the
  * app in the x-evenload-client-address header, replacing any such header the client sent; the
  * X-Forwarded-For header is replaced by that one address, so nothing downstream believes a forged one.
  *
@@ -9,7 +9,7 @@
 import { createServer } from 'node:http';
 import path from 'node:path';
 import next from 'next';
-import { CLIENT_ADDRESS_HEADER, parseTrustedProxies, resolveClientAddress } from '../lib/client-address';
+import { CLIENT_ADDRESS_HEADER, parseTrustedProxies, resolveClientAddress } from '../lib/http/client-address';
 
 function option(flag: string, fallback: string): string {
   const index = process.argv.indexOf(flag);

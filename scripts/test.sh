@@ -30,7 +30,7 @@ if [ "${EVENLOAD_SKIP_BUILD:-0}" != "1" ]; then
   evenload_log "building the app for the end-to-end tests (next build also type-checks the whole project)"
   npx next build >&2
 fi
-# The upload parse worker is a plain JS file beside the build (lib/runs/parse-upload-worker.ts).
+# The upload parse worker is a plain JS file beside the build (lib/data/runs/parse-upload-worker.ts).
 node scripts/build-workers.mjs >&2
 
 mkdir -p test-results

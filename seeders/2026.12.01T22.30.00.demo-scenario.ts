@@ -4,9 +4,9 @@
  * admin account already exists. All demo accounts share the password in DEMO_PASSWORD.
  */
 import { QueryTypes } from 'sequelize';
-import type { Seeder } from '../lib/migrator';
-import { hashPassword } from '../lib/passwords';
-import { storeRun } from '../lib/runs/store-run';
+import type { Seeder } from '../lib/platform/migrator';
+import { hashPassword } from '../lib/auth/passwords';
+import { storeRun } from '../lib/data/runs/store-run';
 import { buildDemoScenario } from '../lib/sim/demo-scenario';
 
 export const DEMO_PASSWORD = 'even-load-demo';

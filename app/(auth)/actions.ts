@@ -1,6 +1,6 @@
 'use server';
 
-import { failureState, type ActionState } from '@/lib/action-state';
+import { failureState, type ActionState } from '@/lib/http/form-state';
 import { RESET_REQUESTED_MESSAGE, requestPasswordReset, setPasswordWithToken } from '@/lib/data/invitations';
 import type { TokenPurpose } from '@/models/one-time-token';
 

@@ -1,8 +1,8 @@
 'use server';
 
-import { failureState, type ActionState } from '@/lib/action-state';
+import { failureState, type ActionState } from '@/lib/http/form-state';
 import { endOwnSessions } from '@/lib/data/people';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 
 /** "Sign out everywhere" from the user menu: every session of the signed-in person ends (the browser then signs out). */
 export async function signOutEverywhereAction(_previous: ActionState, _form: FormData): Promise<ActionState> {

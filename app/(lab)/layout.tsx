@@ -4,7 +4,7 @@ import { navItemsFor, ROLE_LABELS } from '@/components/shell/navigation';
 import { SignOutButton, SignOutEverywhereButton } from '@/components/shell/sign-out-button';
 import { Wordmark } from '@/components/shell/wordmark';
 import { demoDataLoaded } from '@/lib/data/demo-data';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { DEMO_NOTICE } from '@/lib/sim/demo-scenario';
 
 export default async function LabLayout({ children }: { children: React.ReactNode }) {

@@ -4,7 +4,7 @@ import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useActionState, useEffect, useRef, useState } from 'react';
 import { setPasswordAction } from '@/app/(auth)/actions';
-import { IDLE_STATE } from '@/lib/action-state';
+import { IDLE_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError, FormMessage } from '../ui/field-error';
 

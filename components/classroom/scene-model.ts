@@ -2,7 +2,7 @@ import { analyseRun } from '@/lib/analysis/analyse-run';
 import type { RunAnalysis } from '@/lib/analysis/types';
 import { placeAmongSimulated, runFigures, sceneFigures, sideFigures, type SceneFigures } from '@/lib/classroom/figures';
 import { SCENES, sceneSetup, seedFamily, sideForRealRun, simulateSide, type Library, type SceneKey } from '@/lib/classroom/scenes';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 
 /** What the stage draws for one scene: each side's shown run and the end figures. */
 export interface BuiltScene {

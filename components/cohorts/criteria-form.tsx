@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { saveCriteriaAction } from '@/app/(lab)/cohorts/actions';
-import { IDLE_STATE } from '@/lib/action-state';
+import { IDLE_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import type { AssessmentCriteria } from '@/lib/assessment/criteria';
 import { FieldError, FormMessage } from '../ui/field-error';

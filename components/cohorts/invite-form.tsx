@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { inviteAction } from '@/app/(lab)/cohorts/actions';
-import { IDLE_STATE } from '@/lib/action-state';
+import { IDLE_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError, FormMessage } from '../ui/field-error';
 

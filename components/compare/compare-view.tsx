@@ -4,7 +4,7 @@ import useSWR from 'swr';
 import { formatNumber, formatPercent } from '@/lib/calc/units';
 import type { CompareResponse } from '@/lib/data/compare';
 import type { RunFilterOptions } from '@/lib/data/runs';
-import { fetchJson } from '@/lib/fetch-json';
+import { fetchJson } from '@/lib/http/fetch-json';
 import { groupColour } from '@/lib/charts/palette';
 import { useUrlState } from '../ui/use-url-state';
 import { CompareCharts } from './compare-charts';

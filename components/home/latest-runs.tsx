@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RunRow } from '@/lib/data/runs';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@/lib/format/format-date';
 import { EmptyState } from '../ui/empty-state';
 
 export function LatestRuns({ runs, units, title = 'Latest runs' }: { runs: RunRow[]; units: 'si' | 'us'; title?: string }) {

@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { changeRoleAction, endSessionsAction, setActiveAction } from '@/app/(lab)/people/actions';
-import { IDLE_STATE } from '@/lib/action-state';
+import { IDLE_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import type { Role } from '@/models/user';
 import { FormMessage } from '../ui/field-error';

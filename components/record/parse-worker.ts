@@ -4,7 +4,7 @@
  * server runs (lib/ingest parseLoggerText, papaparse inside), so a large file never freezes the
  * page. The server parses the raw file again on upload; this result is a preview.
  */
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { assertTextFile, inspectText } from '@/lib/ingest/detect';
 import { parseLoggerText, PREVIEW_ROWS, SAMPLE_ROWS, streamTableRows } from '@/lib/ingest/parse-text';
 import { proposeMappingWithNotes } from '@/lib/ingest/shapes';

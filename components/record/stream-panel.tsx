@@ -7,10 +7,10 @@ import { createStreamTokenAction, finishRecordingAction, revokeStreamTokenAction
 import { formatForce } from '@/lib/calc/units';
 import type { RecordJoint } from '@/lib/data/record';
 import type { StreamTokenRow } from '@/lib/data/stream-tokens';
-import { fetchJson } from '@/lib/fetch-json';
-import { formatDateTime } from '@/lib/format-date';
+import { fetchJson } from '@/lib/http/fetch-json';
+import { formatDateTime } from '@/lib/format/format-date';
 import { initialRecordState } from '@/lib/record/action-state';
-import type { StreamStatus } from '@/lib/runs/live-stream';
+import type { StreamStatus } from '@/lib/data/runs/live-stream';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 
 const BUTTON = 'rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50';

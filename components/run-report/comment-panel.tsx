@@ -3,7 +3,7 @@
 import { useActionState } from 'react';
 import type { CommentFormState } from '@/app/(lab)/runs/[id]/actions';
 import type { RunCommentDto } from '@/lib/data/run-report';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@/lib/format/format-date';
 
 type CommentAction = (state: CommentFormState, formData: FormData) => Promise<CommentFormState>;
 

@@ -5,7 +5,7 @@ import type { CommentFormState } from '@/app/(lab)/runs/[id]/actions';
 import type { RunAnalysis } from '@/lib/analysis/types';
 import { formatForce, formatPercent, formatNumber } from '@/lib/calc/units';
 import type { RunCommentDto, RunHeaderDto } from '@/lib/data/run-report';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@/lib/format/format-date';
 import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';

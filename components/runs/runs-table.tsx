@@ -4,8 +4,8 @@ import Link from 'next/link';
 import useSWR from 'swr';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RunFilterOptions, RunPage } from '@/lib/data/runs';
-import { fetchJson } from '@/lib/fetch-json';
-import { formatDateTime } from '@/lib/format-date';
+import { fetchJson } from '@/lib/http/fetch-json';
+import { formatDateTime } from '@/lib/format/format-date';
 import { useUrlState } from '../ui/use-url-state';
 
 const FILTERS = [

@@ -3,7 +3,7 @@
 import { signOut } from 'next-auth/react';
 import { useState, useTransition } from 'react';
 import { signOutEverywhereAction } from '@/app/(lab)/actions';
-import { IDLE_STATE } from '@/lib/action-state';
+import { IDLE_STATE } from '@/lib/http/form-state';
 
 const BUTTON = 'rounded-md border border-rule px-3 py-1.5 text-sm hover:bg-rule/60';
 

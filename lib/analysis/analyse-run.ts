@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { coefficientOfVariation } from '../stats/coefficient-of-variation';
 import { elasticInteractionDrift } from '../stats/elastic-interaction-drift';
 import { interactionCoefficients } from '../stats/interaction-coefficients';

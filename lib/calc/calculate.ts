@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { gradeProperties, type GradeId, type GradeProperties } from './grades';
 import { MEASURED_K_RANGE } from './nut-factors';
 import { percentOfYield, preloadFromPercentOfYield, preloadFromStress, preloadWarnings } from './preload';

@@ -1,4 +1,4 @@
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import type { CalcWarning } from './warnings';
 
 /**

@@ -1,4 +1,4 @@
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /**
  * Hydraulic bolt tensioning: the load the tool must apply so that, after the nut takes the load and

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { in2ToMm2, inToMm, MM_PER_IN } from './units';
 
 /**

@@ -1,4 +1,4 @@
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /**
  * Torque–tension relations for a stud and nut.

@@ -1,7 +1,7 @@
 import * as Plot from '@observablehq/plot';
 import type { UnitSystem } from '@/lib/calc/units';
 import type { RunAnalysis } from '@/lib/analysis/types';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import type { ChartSpec } from './chart-spec';
 import { chartForceText, forceUnit, numberText, passLabel, percentText, toChartForce } from './chart-format';
 import { THEME } from './palette';

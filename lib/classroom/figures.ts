@@ -1,5 +1,5 @@
 import { compareGroups } from '@/lib/analysis/compare-groups';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { elasticInteractionDrift } from '@/lib/stats/elastic-interaction-drift';
 import { mean } from '@/lib/stats/mean';
 import { summariseRun } from '@/lib/stats/summarise-run';

@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 import { simulateRun, type SimLubricant, type SimMethod, type SimTool } from '@/lib/sim/simulate-run';
 

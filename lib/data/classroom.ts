@@ -1,9 +1,9 @@
 import 'server-only';
 import { Op } from 'sequelize';
-import { AppError } from '../errors';
+import { AppError } from '../http/errors';
 import { sceneSetup, seedFamily, simulateSide, SCENES, type Library, type SceneKey } from '../classroom/scenes';
-import { storeRun as storeRunInDb } from '../runs/store-run';
-import { assertRole, type SessionUser } from '../session';
+import { storeRun as storeRunInDb } from './runs/store-run';
+import { assertRole, type SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
 import { operatorLabel, runScope } from './scope';
 

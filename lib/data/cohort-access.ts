@@ -1,7 +1,7 @@
 import 'server-only';
 import { Cohort } from '@/models';
-import { AppError } from '../errors';
-import { assertRole, type SessionUser } from '../session';
+import { AppError } from '../http/errors';
+import { assertRole, type SessionUser } from '../auth/session';
 
 export const COHORT_ROLES = ['instructor', 'admin'] as const;
 

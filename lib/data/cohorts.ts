@@ -2,10 +2,10 @@ import 'server-only';
 import { z } from 'zod';
 import { Cohort, CohortMember, Joint, Method, OneTimeToken, Run, RunVerdict, User } from '@/models';
 import type { CriterionResult } from '../assessment/judge-run';
-import { AppError } from '../errors';
+import { AppError } from '../http/errors';
 import { isoDateSchema } from '../validation/iso-date';
 import { nameSchema } from '../validation/display-name';
-import { assertRole, type SessionUser } from '../session';
+import { assertRole, type SessionUser } from '../auth/session';
 import { criteriaForCohort, judgeRuns, type CohortCriteriaDto } from './assessment';
 import { COHORT_ROLES, manageableCohort } from './cohort-access';
 

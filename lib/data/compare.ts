@@ -4,7 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { compareGroups, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
 import { nutFactor } from '../stats/nut-factor';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 import { sequelize } from '@/models';
 import { operatorKey, operatorLabel, refuseOperatorIdsForResearcher, runScopeSql } from './scope';

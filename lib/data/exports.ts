@@ -3,8 +3,8 @@ import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, sequelize } from '@/models';
 import { csvLine } from '../export/csv-cell';
-import { pseudonymFor } from '../pseudonym';
-import { assertRole, type SessionUser } from '../session';
+import { pseudonymFor } from '../export/pseudonym';
+import { assertRole, type SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 
 const id = z.coerce.number().int().positive();

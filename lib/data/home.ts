@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, fn, col } from 'sequelize';
 import { Cohort, CohortMember, Method, Run, User } from '@/models';
 import type { Role } from '@/models/user';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 import { listRuns, type RunRow } from './runs';
 import { runScope, taughtCohortIds } from './scope';
 

@@ -1,16 +1,16 @@
 import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { gradeIdOf, gradeStoredName, threadSpecOf, type JointInput } from '@/lib/joints/joint-input';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
 import type { GradeId } from '@/lib/calc/grades';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { Joint, JointPosition, Lubricant, Method, Run } from '@/models';
 import type { MethodPass, ToolKind } from '@/models/method';
 import type { Role } from '@/models/user';
-import { assertRole, type SessionUser } from '../session';
+import { assertRole, type SessionUser } from '../auth/session';
 
 /**
  * The joint library: joints (with positions and calibration), methods (orders per pass) and

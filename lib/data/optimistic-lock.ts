@@ -1,6 +1,6 @@
 import 'server-only';
 import { z } from 'zod';
-import { AppError } from '../errors';
+import { AppError } from '../http/errors';
 
 /** The answer to a save made from a form that was opened before someone else's save. */
 export const STALE_EDIT_MESSAGE = 'This was changed by someone else since you opened it; reload the page to see the current values. Nothing was saved.';

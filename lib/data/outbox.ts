@@ -1,8 +1,8 @@
 import 'server-only';
 import { Op } from 'sequelize';
 import { CapturedMail, sequelize } from '@/models';
-import { AppError } from '../errors';
-import type { SessionUser } from '../session';
+import { AppError } from '../http/errors';
+import type { SessionUser } from '../auth/session';
 
 export interface CapturedMailRow {
   id: number;

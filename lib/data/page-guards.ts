@@ -1,6 +1,6 @@
 import 'server-only';
 import { notFound } from 'next/navigation';
-import { isAppError } from '../errors';
+import { isAppError } from '../http/errors';
 
 /** Runs a page's read; a not-found or not-yours AppError shows the segment's not-found page. */
 export async function orNotFound<T>(read: () => Promise<T>): Promise<T> {

@@ -2,8 +2,8 @@ import 'server-only';
 import { z } from 'zod';
 import { User, sequelize } from '@/models';
 import { ROLES, type Role } from '@/models/user';
-import { AppError } from '../errors';
-import { assertRole, type SessionUser } from '../session';
+import { AppError } from '../http/errors';
+import { assertRole, type SessionUser } from '../auth/session';
 import { endAllSessions } from './session-store';
 
 export interface PersonRow {

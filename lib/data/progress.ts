@@ -2,7 +2,7 @@ import 'server-only';
 import { Cohort, Joint, Method, Run, RunComment, RunVerdict, User } from '@/models';
 import type { CriterionResult } from '../assessment/judge-run';
 import { largestDeviationFromTarget } from '../stats/largest-deviation-from-target';
-import { assertRole, type SessionUser } from '../session';
+import { assertRole, type SessionUser } from '../auth/session';
 import { criteriaForCohort, judgeInputs, judgeRuns } from './assessment';
 
 export interface ProgressRun {

@@ -1,19 +1,19 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { gradeProperties, type GradeId } from '@/lib/calc/grades';
 import { threadGeometry } from '@/lib/calc/thread';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import { columnMappingSchema, type ColumnMapping } from '@/lib/ingest/shapes';
 import { runHeaderSchema, recordedAtDate, type RunHeaderFields } from '@/lib/record/run-header-schema';
-import type { RunHeader } from '@/lib/runs/store-run';
+import type { RunHeader } from '@/lib/data/runs/store-run';
 import { jointForImport } from '@/lib/record/joint-import';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { MethodPass } from '@/models/method';
 import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User } from '@/models';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
 
 /** Who may record runs, and as whom: see {@link allowedOperatorIds}. */

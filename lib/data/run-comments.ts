@@ -1,7 +1,7 @@
 import 'server-only';
 import { z } from 'zod';
 import { RunComment } from '@/models';
-import { assertRole, type SessionUser } from '../session';
+import { assertRole, type SessionUser } from '../auth/session';
 import { loadRun } from './run-report';
 
 export const commentSchema = z.object({

@@ -1,10 +1,10 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { neutraliseCsvCell } from '@/lib/ingest/export-csv';
 import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 import { operatorLabel } from './scope';
 import { runListFilterSql, runListQuerySchema, selectRunRows } from './runs';
 

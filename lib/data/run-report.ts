@@ -1,8 +1,8 @@
 import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
-import { AppError } from '../errors';
-import type { NormalisedRun } from '../run-types';
-import type { SessionUser } from '../session';
+import { AppError } from '../http/errors';
+import type { NormalisedRun } from '../record/run-types';
+import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';

@@ -3,7 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
 import { RUN_SOURCES, RUN_STATUSES } from '@/models/run';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 import { operatorLabel, refuseOperatorIdsForResearcher, runScope, runScopeSql } from './scope';
 

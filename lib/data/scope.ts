@@ -1,9 +1,9 @@
 import 'server-only';
 import { Op, type WhereOptions } from 'sequelize';
 import { Cohort } from '@/models';
-import { AppError } from '../errors';
-import type { SessionUser } from '../session';
-import { pseudonymFor } from '../pseudonym';
+import { AppError } from '../http/errors';
+import type { SessionUser } from '../auth/session';
+import { pseudonymFor } from '../export/pseudonym';
 
 /** The cohorts an instructor teaches. */
 export async function taughtCohortIds(user: SessionUser): Promise<number[]> {

@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { User, UserSession } from '@/models';
 import type { Role, UnitSystem } from '@/models/user';
-import { env } from '../env';
+import { env } from '../platform/env';
 
 /**
  * Server-side session state. The session token (next-auth's signed, encrypted JWT) carries only

@@ -1,10 +1,10 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { Joint } from '@/models';
-import type { SessionUser } from '../session';
+import type { SessionUser } from '../auth/session';
 
 export interface StreamTokenRow {
   id: number;

@@ -21,7 +21,7 @@
  *
  * Memory is O(studCount) whatever the number of rows, so it runs inside a streaming import.
  */
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /** One scan of every stud (loads in N) as the deriver sees it. */
 export interface Snapshot {

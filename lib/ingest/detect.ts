@@ -5,7 +5,7 @@
  *
  * The rules are our own heuristics (common practice for CSV sniffing), documented on each export.
  */
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { isNumericText } from './numbers';
 import { clipInput } from './text-limits';
 

@@ -8,7 +8,7 @@
  * cells that are plain numbers (e.g. `-0.5`, `1e-3`) stay numeric, since a number cannot run as a
  * formula and quoting it would break the round trip and spreadsheet arithmetic.
  */
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { NEWTONS_PER_LBF, nmToTorque } from './units';
 
 /** Unit system of an export. */

@@ -20,8 +20,8 @@
  * - Pass numbers come from the pass column; without one, a new pass starts when a stud already
  *   tightened in the current pass is tightened again.
  */
-import { AppError } from '@/lib/errors';
-import type { NormalisedRun, NormalisedStep } from '@/lib/run-types';
+import { AppError } from '@/lib/http/errors';
+import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
 import { readNumberCell } from './numbers';
 import { clipInput, quoteInput } from './text-limits';
 import type { ColumnMapping } from './shapes';

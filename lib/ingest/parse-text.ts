@@ -8,8 +8,8 @@
  */
 import Papa from 'papaparse';
 import { z } from 'zod';
-import { AppError } from '@/lib/errors';
-import type { NormalisedRun } from '@/lib/run-types';
+import { AppError } from '@/lib/http/errors';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { inspectText, type DetectionReport } from './detect';
 import type { DerivedStep } from './derive-steps';
 import { createRowNormaliser, type JointForImport, type NormaliseOptions, type RowNormaliser, type StepLines } from './normalise';

@@ -10,7 +10,7 @@
  *   optionally applied torque or pressure, tightened position and time (our CSV export is one).
  */
 import { z } from 'zod';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { LOAD_UNITS, TORQUE_UNITS, type LoadUnit, type TorqueUnit } from './units';
 import { isNumericText } from './numbers';
 import { quoteInput } from './text-limits';

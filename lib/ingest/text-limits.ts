@@ -7,7 +7,7 @@
  * The limits are our own choice, far above what a logger writes (common practice: a logger row
  * holds a time stamp and a few dozen numbers, well under a thousand characters).
  */
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /** Longest physical line accepted, in characters. */
 export const MAX_LINE_CHARS = 16_384;

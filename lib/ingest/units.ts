@@ -10,7 +10,7 @@
  * - Strain-gauged studs: load = E·ε·A at the gauged section (docs/REFERENCE.md §2, common practice),
  *   times a per-position calibration factor from the joint's calibration (common practice).
  */
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /** Load units a logger file may use. `microstrain` needs E, stress area and calibration. */
 import { N_PER_LBF, NM_PER_FTLB } from '../calc/units';

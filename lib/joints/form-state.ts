@@ -1,4 +1,4 @@
-import type { AppErrorCode } from '@/lib/errors';
+import type { AppErrorCode } from '@/lib/http/errors';
 import type { FieldErrors } from './joint-input';
 
 /** What a joint-library server action returns to its form (useActionState). */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { nameSchema } from '@/lib/validation/display-name';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { GRADES, gradeProperties, type GradeId, type GradeProperties } from '@/lib/calc/grades';
 import { percentOfYield, preloadFromPercentOfYield, preloadFromStress, preloadWarnings } from '@/lib/calc/preload';
 import { STANDARD_THREADS, threadGeometry, threadSpecSchema, type ThreadGeometry, type ThreadSpec } from '@/lib/calc/thread';

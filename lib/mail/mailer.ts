@@ -1,7 +1,7 @@
 import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
-import { env } from '../env';
-import { AppError } from '../errors';
+import { env } from '../platform/env';
+import { AppError } from '../http/errors';
 
 export interface OutgoingMail {
   to: string;

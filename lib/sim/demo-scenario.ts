@@ -1,6 +1,6 @@
 import { inchTensileStressAreaIn2 } from '@/lib/calc/thread';
 import { N_PER_LBF } from '@/lib/calc/units';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { SimInputError } from './errors';
 import { circularOrder, crossPatternOrder } from './patterns';
 import { createRng, type Rng } from './random';

@@ -1,4 +1,4 @@
-import type { NormalisedRun, NormalisedStep } from '@/lib/run-types';
+import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
 import { SimInputError } from './errors';
 import { circularOrder, validatePassOrder } from './patterns';
 import { createRng } from './random';

@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { assertRun } from './internal/assert-run';
 
 /** Drift of one stud in {@link elasticInteractionDrift}. */
@@ -23,7 +23,7 @@ export interface StudDrift {
  * Algorithm: one scan for each stud's last tightening step; difference to the final snapshot.
  *
  * References: docs/REFERENCE.md §4 ("Elastic interaction": bolts tightened earlier lose preload);
- * lib/run-types.ts.
+ * lib/record/run-types.ts.
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example

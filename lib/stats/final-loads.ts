@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { assertRun } from './internal/assert-run';
 
 /**
@@ -6,7 +6,7 @@ import { assertRun } from './internal/assert-run';
  *
  * Algorithm: a copy of the last step's snapshot.
  *
- * References: lib/run-types.ts (normalised run); docs/REFERENCE.md §9 (per-stud load reporting, common practice).
+ * References: lib/record/run-types.ts (normalised run); docs/REFERENCE.md §9 (per-stud load reporting, common practice).
  *
  * @throws {StatsError} `finalLoads requires a run with at least one step`, or any malformed run (see assertRun).
  * @example

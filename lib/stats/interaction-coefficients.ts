@@ -1,5 +1,5 @@
 import { sum } from 'simple-statistics';
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { StatsError } from './stats-error';
 import { assertRun } from './internal/assert-run';
 import { assertValues } from './internal/assert-values';

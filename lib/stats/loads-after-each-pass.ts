@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { assertRun } from './internal/assert-run';
 
 /** One pass snapshot in {@link loadsAfterEachPass}. */
@@ -15,7 +15,7 @@ export interface PassSnapshot {
  *
  * Algorithm: one scan of the steps (passes are non-decreasing, validated).
  *
- * References: lib/run-types.ts; docs/REFERENCE.md §4 (multi-pass practice) and §9 (CV and
+ * References: lib/record/run-types.ts; docs/REFERENCE.md §4 (multi-pass practice) and §9 (CV and
  * (max − min)/mean per pass, common practice).
  *
  * @throws {StatsError} any malformed run (see assertRun).

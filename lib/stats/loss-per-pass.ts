@@ -1,5 +1,5 @@
 import { sum } from 'simple-statistics';
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { assertRun } from './internal/assert-run';
 
 /** One pass in {@link lossPerPass}. */
@@ -20,7 +20,7 @@ export interface PassLoss {
  * Algorithm: per pass, find each stud's last tightening step in the pass and compare with the
  * pass's last snapshot; compensated means.
  *
- * References: docs/REFERENCE.md §4 (elastic interaction; multi-pass practice); lib/run-types.ts.
+ * References: docs/REFERENCE.md §4 (elastic interaction; multi-pass practice); lib/record/run-types.ts.
  *
  * @throws {StatsError} any malformed run (see assertRun).
  * @example

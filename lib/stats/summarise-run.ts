@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from '../record/run-types';
 import { assertNumber } from './internal/assert-number';
 import { assertRun } from './internal/assert-run';
 import { StatsError } from './stats-error';

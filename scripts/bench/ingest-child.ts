@@ -1,13 +1,13 @@
 /**
- * Bench child: parses a wide logger CSV with lib/ingest and stores it with lib/runs/store-run in one
+ * Bench child: parses a wide logger CSV with lib/ingest and stores it with lib/data/runs/store-run in one
  * transaction, the same path the upload route takes, then prints one JSON line with its timings
  * and peak memory (maxRSS of this process). Run by scripts/bench/run-all.ts.
  *   tsx scripts/bench/ingest-child.ts FILE JOINT_ID METHOD_ID LUBRICANT_ID OPERATOR_ID
  */
 import { readFileSync } from 'node:fs';
-import { sequelize } from '../../lib/db';
+import { sequelize } from '../../lib/platform/db';
 import { parseLoggerText } from '../../lib/ingest/parse-text';
-import { storeRun } from '../../lib/runs/store-run';
+import { storeRun } from '../../lib/data/runs/store-run';
 
 async function main() {
   const [file, jointId, methodId, lubricantId, operatorId] = process.argv.slice(2);

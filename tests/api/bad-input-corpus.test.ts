@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { BAD_INPUTS, type Caller } from './bad-inputs';

@@ -7,7 +7,7 @@
  */
 import { request as httpRequest } from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { SERVER_ACTION_BODY_LIMIT_BYTES } from '@/proxy';
 import { FOUR_STUD_JOINT } from '../ingest/joints';
 import { startAppServer, type AppServer } from '../support/app-server';

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import type { CompareResponse } from '@/lib/data/compare';
 import type { LoadedRun } from '@/lib/data/run-report';
 import type { RunFilterOptions } from '@/lib/data/runs';

@@ -2,7 +2,7 @@ import { readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { EXEMPT_ROUTES, ROUTE_MATRIX, type Caller } from './route-matrix';

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import type { RunPage } from '@/lib/data/runs';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';

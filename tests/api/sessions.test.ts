@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { hashPassword } from '@/lib/passwords';
+import { sequelize } from '@/lib/platform/db';
+import { hashPassword } from '@/lib/auth/passwords';
 import type { Role } from '@/models/user';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { anonymous, sessionWithCookie, signInAs, signOut, type HttpSession } from '../support/http-session';

@@ -9,8 +9,8 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { readUploadBytes } from '@/lib/runs/upload-file';
+import { sequelize } from '@/lib/platform/db';
+import { readUploadBytes } from '@/lib/data/runs/upload-file';
 import type { AppServer } from '../support/app-server';
 import type { HttpSession } from '../support/http-session';
 import { pathologicalFiles } from '../support/pathological-files';

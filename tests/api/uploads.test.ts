@@ -5,9 +5,9 @@
  * stored run re-imports as a step table with the same readings.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { NM_PER_FT_LB } from '@/lib/ingest/units';
-import { readUploadBytes } from '@/lib/runs/upload-file';
+import { readUploadBytes } from '@/lib/data/runs/upload-file';
 import type { AppServer } from '../support/app-server';
 import type { HttpSession } from '../support/http-session';
 import { goodFile, header, kN, mappingFor, postUpload, startUploadTestbed, storedSteps } from '../support/record-fixtures';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import {
   inchRootAreaIn2,
   inchTensileStressAreaIn2,

@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { storeFixtureRun } from '../integration/run-fixture';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';

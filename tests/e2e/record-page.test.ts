@@ -9,7 +9,7 @@ import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';

@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';

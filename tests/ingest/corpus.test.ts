@@ -5,7 +5,7 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { assertTextFile } from '@/lib/ingest/detect';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { ColumnMapping } from '@/lib/ingest/shapes';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { assertTextFile, inspectText, splitLine } from '@/lib/ingest/detect';
 
 describe('inspectText', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { neutraliseCsvCell, runToCsv } from '@/lib/ingest/export-csv';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { FOUR_STUD_JOINT } from './joints';
 
 /** An invented 4-stud run: two passes, torque on pass 1 only, pressure on one step, odd decimals. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { inspectText } from '@/lib/ingest/detect';
 import { createRowNormaliser, normaliseRows } from '@/lib/ingest/normalise';
 import { parseLoggerText } from '@/lib/ingest/parse-text';

@@ -3,7 +3,7 @@
  * by hand from each invented text's construction; the limits are our own (see the module).
  */
 import { describe, expect, it } from 'vitest';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { assertTextWithinLimits, MAX_BLANK_LINES_IN_A_ROW, MAX_LINE_CHARS, MAX_QUOTED_CELL_CHARS, quoteInput } from '@/lib/ingest/text-limits';
 
 function refusal(text: string): AppError {

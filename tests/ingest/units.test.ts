@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { LOAD_UNITS, loadToN, microstrainToN, nToLoad, nmToTorque, NEWTONS_PER_KIP, NEWTONS_PER_LBF, NM_PER_FT_LB, torqueToNm } from '@/lib/ingest/units';
 
 const strain = { youngsModulusPa: 200e9, stressAreaM2: 245e-6, calibrationFactor: 1.03 };

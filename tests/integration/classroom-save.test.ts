@@ -1,9 +1,9 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { handleSaveScene } from '@/lib/classroom/handle-save-scene';
-import { storeRun } from '@/lib/runs/store-run';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import { handleSaveScene } from '@/lib/data/classroom-save-scene';
+import { storeRun } from '@/lib/data/runs/store-run';
+import type { SessionUser } from '@/lib/auth/session';
 import { RUNS_PER_SIDE } from '@/lib/classroom/scenes';
 
 /**

@@ -1,13 +1,13 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { sequelize } from '@/lib/db';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { sessionUserFor, tableCounts } from './support';
 
 // The real server actions, with the signed-in person supplied here instead of a next-auth cookie.
 const signedIn = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock('@/lib/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/session')>()), getSessionUser: async () => signedIn.user }));
+vi.mock('@/lib/auth/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/auth/session')>()), getSessionUser: async () => signedIn.user }));
 vi.mock('next/cache', () => ({ revalidatePath: vi.fn() }));
 
 const { inviteAction, saveCriteriaAction, signOffAction, createCohortAction } = await import('@/app/(lab)/cohorts/actions');

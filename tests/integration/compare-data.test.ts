@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { compareQuerySchema, compareRunsJson, type CompareResponse } from '@/lib/data/compare';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 afterAll(() => sequelize.close());

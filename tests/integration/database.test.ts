@@ -1,8 +1,8 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createSequelize, sequelize } from '@/lib/db';
-import { env } from '@/lib/env';
-import { createMigrator } from '@/lib/migrator';
+import { createSequelize, sequelize } from '@/lib/platform/db';
+import { env } from '@/lib/platform/env';
+import { createMigrator } from '@/lib/platform/migrator';
 
 const scratchName = `${env.DB_NAME}_scratch`;
 let scratch: Sequelize;
@@ -24,7 +24,7 @@ const tablesOf = async (db: Sequelize) =>
 
 describe('MariaDB through Sequelize', () => {
   // Guards the Sequelize 6 + mariadb 3.x bug (sequelize issue 15701, SETUP-NOTES): without the
-  // driver wrapper in lib/mariadb-driver.ts, a raw query throws "Cannot delete property 'meta'".
+  // driver wrapper in lib/platform/mariadb-driver.ts, a raw query throws "Cannot delete property 'meta'".
   it('runs a raw query and returns its rows with the metadata separate', async () => {
     const [rows, meta] = await sequelize.query('SELECT 1 + 1 AS two, ? AS word', { replacements: ['stud'] });
     expect(rows).toEqual([{ two: 2, word: 'stud' }]);

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 
 afterAll(() => sequelize.close());
 

@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { createCohort } from '@/lib/data/cohorts';
 import { INVITATION_LIMITS, inviteToCohort } from '@/lib/data/invitations';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import { count, sessionUserFor, tableCounts } from './support';
 
 // Issue 13 (low): 20 re-invites gave 20 tokens. The limits are counted in MariaDB (one_time_tokens).

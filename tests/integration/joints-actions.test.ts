@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { handleJointSave, handleLubricantSave, handleMethodSave } from '@/lib/joints/handle-library-forms';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import { handleJointSave, handleLubricantSave, handleMethodSave } from '@/lib/data/library-forms';
+import type { SessionUser } from '@/lib/auth/session';
 
 /**
  * The work of the server actions in app/(lab)/joints/actions.ts (they add only the session,

@@ -1,10 +1,10 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { getJoint, listJointLibrary, saveJoint, saveLubricant, saveMethod } from '@/lib/data/joints';
 import { lbfToN } from '@/lib/calc/units';
 import type { JointInput } from '@/lib/joints/joint-input';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 
 const TAG = `itest-joints-${Date.now()}`;
 const instructor: SessionUser = { id: 1, name: 'Test instructor', email: 'test@demo.evenload.test', role: 'instructor', units: 'si' };

@@ -1,10 +1,10 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { getLubricant, getMethod } from '@/lib/data/joints';
 import { STALE_EDIT_MESSAGE } from '@/lib/data/optimistic-lock';
-import { handleLubricantSave, handleMethodSave } from '@/lib/joints/handle-library-forms';
-import type { SessionUser } from '@/lib/session';
+import { handleLubricantSave, handleMethodSave } from '@/lib/data/library-forms';
+import type { SessionUser } from '@/lib/auth/session';
 
 // Issue 13 (low): six simultaneous edits of one lubricant all reported "saved"; the last writer won silently.
 const TAG = `itest-versions-${Date.now()}`;

@@ -5,11 +5,11 @@
  */
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { planSteps } from '@/lib/record/step-plan';
-import { saveManualRun } from '@/lib/runs/manual-run';
-import type { SessionUser } from '@/lib/session';
+import { saveManualRun } from '@/lib/data/runs/manual-run';
+import type { SessionUser } from '@/lib/auth/session';
 import { Method } from '@/models';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { firstIds, header, storedSteps, tableCounts } from '../support/record-fixtures';

@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { addRunComment } from '@/lib/data/run-comments';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import type { Role } from '@/models/user';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 

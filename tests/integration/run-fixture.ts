@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '@/lib/db';
-import type { NormalisedRun } from '@/lib/run-types';
-import { storeRun } from '@/lib/runs/store-run';
+import { sequelize } from '@/lib/platform/db';
+import type { NormalisedRun } from '@/lib/record/run-types';
+import { storeRun } from '@/lib/data/runs/store-run';
 
 /**
  * Stores a complete 8-stud run in a cohort, tightened exactly as the demo's three-pass method

@@ -2,8 +2,8 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { sequelize } from '@/lib/db';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import type { SessionUser } from '@/lib/auth/session';
 import type { Role } from '@/models/user';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { sessionUserFor } from './support';
@@ -13,7 +13,7 @@ import { sessionUserFor } from './support';
 // and change no row anywhere; allowed callers must get past the role check (they may still be
 // told a field is wrong). The test fails when an action exists without an entry.
 const signedIn = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock('@/lib/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/session')>()), getSessionUser: async () => signedIn.user }));
+vi.mock('@/lib/auth/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/auth/session')>()), getSessionUser: async () => signedIn.user }));
 vi.mock('next/cache', () => ({ revalidatePath: vi.fn() }));
 vi.mock('next/navigation', async (importOriginal) => ({
   ...(await importOriginal<typeof import('next/navigation')>()),

@@ -1,9 +1,9 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { signOffRun } from '@/lib/data/assessment';
 import { createCohort } from '@/lib/data/cohorts';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { jointTarget, storeFixtureRun } from './run-fixture';
 import { count, sessionUserFor } from './support';

@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sequelize } from '@/lib/db';
-import { saveSimulatedRun } from '@/lib/runs/simulated-run';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import { saveSimulatedRun } from '@/lib/data/runs/simulated-run';
+import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { count, sessionUserFor } from './support';
 

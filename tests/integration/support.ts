@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '@/lib/db';
-import type { SessionUser } from '@/lib/session';
+import { sequelize } from '@/lib/platform/db';
+import type { SessionUser } from '@/lib/auth/session';
 
 export const count = async (sql: string, replacements: unknown[] = []) =>
   Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT, replacements }))[0]!.n);

@@ -5,7 +5,7 @@
  * X-Forwarded-For "Selecting an IP address" and RFC 7239 §5.2 for the Forwarded header).
  */
 import { describe, expect, it } from 'vitest';
-import { normaliseAddress, parseTrustedProxies, resolveClientAddress } from '@/lib/client-address';
+import { normaliseAddress, parseTrustedProxies, resolveClientAddress } from '@/lib/http/client-address';
 
 const none = parseTrustedProxies('');
 const balancer = parseTrustedProxies('10.0.0.5, 10.1.0.0/16, fd00::/8');

@@ -3,8 +3,8 @@
  * encoder a browser-like client uses, so the expected parts come from outside our code.
  */
 import { describe, expect, it } from 'vitest';
-import { AppError } from '@/lib/errors';
-import { splitMultipart } from '@/lib/multipart';
+import { AppError } from '@/lib/http/errors';
+import { splitMultipart } from '@/lib/http/multipart';
 
 async function encoded(form: FormData): Promise<{ body: Uint8Array; contentType: string }> {
   const request = new Request('http://localhost/', { method: 'POST', body: form });

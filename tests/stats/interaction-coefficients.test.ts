@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { interactionCoefficients } from '@/lib/stats';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { twoPassFourStudRun } from './support/four-stud-runs';
 
 describe('interactionCoefficients', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { summariseRun } from '@/lib/stats';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 import { relativeError } from './support/lre';
 
 // Final loads 98.0, 101.5, 99.0, 100.2 kN against a 100 kN target, band ±5 %. Hand arithmetic:

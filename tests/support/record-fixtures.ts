@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { assertTextFile } from '@/lib/ingest/detect';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { JointForImport } from '@/lib/ingest/normalise';

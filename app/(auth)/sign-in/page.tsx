@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { AuthCard } from '@/components/auth/auth-card';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 import { SignInForm } from './sign-in-form';
 
 export const metadata: Metadata = { title: 'Sign in' };

@@ -5,8 +5,8 @@ import { ROLE_LABELS } from '@/components/shell/navigation';
 import { StatCard } from '@/components/ui/stat-card';
 import { formatPercent } from '@/lib/calc/units';
 import { homeSummary } from '@/lib/data/home';
-import { formatDate, formatDateTime } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDate, formatDateTime } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Home' };
 export const dynamic = 'force-dynamic';

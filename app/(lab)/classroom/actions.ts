@@ -1,9 +1,9 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
-import { handleSaveScene } from '@/lib/classroom/handle-save-scene';
+import { handleSaveScene } from '@/lib/data/classroom-save-scene';
 import type { SaveSceneState } from '@/lib/classroom/save-scene-input';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 
 /** Saves a classroom scene's simulated runs to one of the instructor's cohorts (one transaction). */
 export async function saveSceneAction(_previous: SaveSceneState, formData: FormData): Promise<SaveSceneState> {

@@ -3,8 +3,8 @@ import { ClassroomView, type RealRunData } from '@/components/classroom/classroo
 import { parseSceneOrder } from '@/lib/classroom/scenes';
 import { classroomCohorts, classroomLibrary, classroomRealRuns } from '@/lib/data/classroom';
 import { loadRun } from '@/lib/data/run-report';
-import { isAppError } from '@/lib/errors';
-import { requirePageUser } from '@/lib/session';
+import { isAppError } from '@/lib/http/errors';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Classroom' };
 export const dynamic = 'force-dynamic';

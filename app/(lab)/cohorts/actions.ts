@@ -2,11 +2,11 @@
 
 import { revalidatePath } from 'next/cache';
 import { redirect } from 'next/navigation';
-import { failureState, type ActionState } from '@/lib/action-state';
+import { failureState, type ActionState } from '@/lib/http/form-state';
 import { saveCohortCriteria, sendRunResults, signOffRun } from '@/lib/data/assessment';
 import { createCohort } from '@/lib/data/cohorts';
 import { inviteToCohort } from '@/lib/data/invitations';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 
 const text = (form: FormData, name: string) => String(form.get(name) ?? '');
 

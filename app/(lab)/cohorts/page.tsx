@@ -3,8 +3,8 @@ import Link from 'next/link';
 import { CreateCohortForm } from '@/components/cohorts/create-cohort-form';
 import { EmptyState } from '@/components/ui/empty-state';
 import { listCohorts } from '@/lib/data/cohorts';
-import { formatDate } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDate } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Cohorts' };
 export const dynamic = 'force-dynamic';

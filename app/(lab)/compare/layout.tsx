@@ -1,4 +1,4 @@
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 
 // The role check sits here, above the segment's loading boundary, so a wrong role is redirected
 // before anything streams.

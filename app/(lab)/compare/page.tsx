@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { CompareView } from '@/components/compare/compare-view';
 import { runFilterOptions } from '@/lib/data/runs';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Compare' };
 export const dynamic = 'force-dynamic';

@@ -3,8 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { redirect } from 'next/navigation';
 import type { LibraryFormState } from '@/lib/joints/form-state';
-import { handleJointSave, handleLubricantSave, handleMethodSave } from '@/lib/joints/handle-library-forms';
-import { getSessionUser } from '@/lib/session';
+import { handleJointSave, handleLubricantSave, handleMethodSave } from '@/lib/data/library-forms';
+import { getSessionUser } from '@/lib/auth/session';
 
 /**
  * Server actions of the joint library. Each checks the role (instructor, admin) through

@@ -5,7 +5,7 @@ import { formatForce, formatNumber } from '@/lib/calc/units';
 import { threadLabel } from '@/lib/calc/thread';
 import { JOINT_LIBRARY_ROLES, listJointLibrary } from '@/lib/data/joints';
 import { TOOL_LABELS } from '@/lib/joints/method-input';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Joint library' };
 export const dynamic = 'force-dynamic';

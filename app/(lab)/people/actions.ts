@@ -1,9 +1,9 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
-import { failureState, type ActionState } from '@/lib/action-state';
+import { failureState, type ActionState } from '@/lib/http/form-state';
 import { changeRole, endSessionsOf, setActive } from '@/lib/data/people';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 
 export async function changeRoleAction(userId: number, _previous: ActionState, form: FormData): Promise<ActionState> {
   try {

@@ -2,8 +2,8 @@ import type { Metadata } from 'next';
 import { PersonControls } from '@/components/people/person-controls';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { listPeople } from '@/lib/data/people';
-import { formatDate } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDate } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'People' };
 export const dynamic = 'force-dynamic';

@@ -6,8 +6,8 @@ import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { EmptyState } from '@/components/ui/empty-state';
 import { formatPercent } from '@/lib/calc/units';
 import { traineeProgress } from '@/lib/data/progress';
-import { formatDateTime } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDateTime } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Progress' };
 export const dynamic = 'force-dynamic';

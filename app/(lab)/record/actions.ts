@@ -4,12 +4,12 @@ import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { RECORD_ROLES } from '@/lib/data/record';
 import { createStreamToken, revokeStreamToken } from '@/lib/data/stream-tokens';
-import { isAppError } from '@/lib/errors';
-import { finishRecording, startRecording } from '@/lib/runs/live-stream';
-import { saveManualRun } from '@/lib/runs/manual-run';
-import { saveSimulatedRun } from '@/lib/runs/simulated-run';
+import { isAppError } from '@/lib/http/errors';
+import { finishRecording, startRecording } from '@/lib/data/runs/live-stream';
+import { saveManualRun } from '@/lib/data/runs/manual-run';
+import { saveSimulatedRun } from '@/lib/data/runs/simulated-run';
 import type { RecordActionState } from '@/lib/record/action-state';
-import { assertRole, getSessionUser } from '@/lib/session';
+import { assertRole, getSessionUser } from '@/lib/auth/session';
 
 
 function failure(error: unknown): RecordActionState {

@@ -2,8 +2,8 @@ import type { Metadata } from 'next';
 import { RecordTabs } from '@/components/record/record-tabs';
 import { RECORD_ROLES, recordOptions } from '@/lib/data/record';
 import { listStreamTokens } from '@/lib/data/stream-tokens';
-import { recordingRuns } from '@/lib/runs/live-stream';
-import { requirePageUser } from '@/lib/session';
+import { recordingRuns } from '@/lib/data/runs/live-stream';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Record · Evenload' };
 export const dynamic = 'force-dynamic';

@@ -1,5 +1,5 @@
 import { NextResponse } from 'next/server';
-import { searchParamsObject, withRole } from '@/lib/api';
+import { searchParamsObject, withRole } from '@/lib/http/api';
 import { compareQuerySchema, compareRunsJson } from '@/lib/data/compare';
 
 // GET /api/compare - groups of complete runs side by side: summaries, chart data, tests with readings, nut factors

@@ -1,7 +1,7 @@
 import { NextResponse } from 'next/server';
-import { searchParamsObject, withRole } from '@/lib/api';
+import { searchParamsObject, withRole } from '@/lib/http/api';
 import { listRuns, runListQuerySchema } from '@/lib/data/runs';
-import { ALL_ROLES } from '@/lib/session';
+import { ALL_ROLES } from '@/lib/auth/session';
 
 // GET /api/runs - the runs the signed-in person may see, filtered, sorted and paged
 export const GET = withRole(ALL_ROLES, async (request, user) => {

@@ -1,11 +1,11 @@
 import { NextResponse } from 'next/server';
-import { withRole } from '@/lib/api';
+import { withRole } from '@/lib/http/api';
 import { RECORD_ROLES } from '@/lib/data/record';
-import { AppError } from '@/lib/errors';
-import { splitMultipart, type FormPart } from '@/lib/multipart';
-import { readBodyWithin } from '@/lib/read-body';
+import { AppError } from '@/lib/http/errors';
+import { splitMultipart, type FormPart } from '@/lib/http/multipart';
+import { readBodyWithin } from '@/lib/http/read-body';
 import { UPLOAD_FORM_OVERHEAD_BYTES, UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import { storeUploadedRun, uploadTooLarge } from '@/lib/runs/upload-run';
+import { storeUploadedRun, uploadTooLarge } from '@/lib/data/runs/upload-run';
 
 export const runtime = 'nodejs';
 

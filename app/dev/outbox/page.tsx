@@ -2,9 +2,9 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { Wordmark } from '@/components/shell/wordmark';
 import { listCapturedMail } from '@/lib/data/outbox';
-import { outboxEnabled } from '@/lib/env';
-import { formatDateTime } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { outboxEnabled } from '@/lib/platform/env';
+import { formatDateTime } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Outbox (development)', robots: { index: false } };
 export const dynamic = 'force-dynamic';

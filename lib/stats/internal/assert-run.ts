@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../../run-types';
+import type { NormalisedRun } from '../../record/run-types';
 import { StatsError } from '../stats-error';
 import { describeNumber } from './describe-number';
 
@@ -7,7 +7,7 @@ import { describeNumber } from './describe-number';
  * least one step, steps in increasing order with non-decreasing pass numbers, each position in
  * 1..studCount, and loadsN of length studCount holding finite numbers.
  *
- * References: lib/run-types.ts (the normalised run shape); house style, STYLE.md.
+ * References: lib/record/run-types.ts (the normalised run shape); house style, STYLE.md.
  * @throws {StatsError} `<fn> requires a run with at least one step`,
  *   `<fn> requires finite loads (got NaN at step 3, position 2)`, and similar.
  * @example

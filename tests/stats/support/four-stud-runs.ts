@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 
 /**
  * Hand-worked 4-stud runs for the elastic-interaction tests. The joint obeys an exact model:

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { JointForm } from '@/components/joints/joint-form';
 import { getJoint, JOINT_LIBRARY_ROLES } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveJointAction } from '../actions';
 
 export const metadata: Metadata = { title: 'Edit joint' };

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { JointForm } from '@/components/joints/joint-form';
 import { JOINT_LIBRARY_ROLES } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveJointAction } from '../actions';
 
 export const metadata: Metadata = { title: 'New joint' };

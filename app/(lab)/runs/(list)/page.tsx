@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { ExportPanel } from '@/components/runs/export-panel';
 import { RunsTable } from '@/components/runs/runs-table';
 import { runFilterOptions } from '@/lib/data/runs';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Runs' };
 export const dynamic = 'force-dynamic';

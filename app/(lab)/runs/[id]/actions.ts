@@ -1,9 +1,9 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
-import { getSessionUser } from '@/lib/session';
+import { getSessionUser } from '@/lib/auth/session';
 
 export interface CommentFormState {
   message: string | null;

@@ -2,10 +2,10 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { RunReport } from '@/components/run-report/run-report';
 import { analyseRun } from '@/lib/analysis/analyse-run';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { addCommentAction } from './actions';
 
 export const metadata: Metadata = { title: 'Run report' };

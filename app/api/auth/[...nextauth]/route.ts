@@ -1,5 +1,5 @@
 import NextAuth from 'next-auth';
-import { authOptions } from '@/lib/auth';
+import { authOptions } from '@/lib/auth/auth-options';
 
 // GET|POST /api/auth/* - next-auth's sign-in, session and sign-out endpoints
 const handler = NextAuth(authOptions);

@@ -1,7 +1,7 @@
 import type { NextRequest } from 'next/server';
-import { withRole } from '@/lib/api';
+import { withRole } from '@/lib/http/api';
 import { exportRunsCsv, runExportQuerySchema } from '@/lib/data/exports';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /** The export's form is a few short fields; anything longer is not ours. */
 const MAX_BODY_BYTES = 16_384;

@@ -1,6 +1,6 @@
-import { searchParamsObject, withRole } from '@/lib/api';
+import { searchParamsObject, withRole } from '@/lib/http/api';
 import { exportSelectionCsv, exportSelectionJson, parseExportQuery } from '@/lib/data/run-export';
-import { ALL_ROLES } from '@/lib/session';
+import { ALL_ROLES } from '@/lib/auth/session';
 
 export const runtime = 'nodejs';
 

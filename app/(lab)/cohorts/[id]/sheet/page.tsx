@@ -4,8 +4,8 @@ import { PrintButton } from '@/components/ui/print-button';
 import { formatPercent } from '@/lib/calc/units';
 import { cohortDetail } from '@/lib/data/cohorts';
 import { orNotFound } from '@/lib/data/page-guards';
-import { formatDate, formatDateTime } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDate, formatDateTime } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Cohort summary sheet' };
 export const dynamic = 'force-dynamic';

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { LubricantForm } from '@/components/joints/lubricant-form';
 import { getLubricant, JOINT_LIBRARY_ROLES } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveLubricantAction } from '../../actions';
 
 export const metadata: Metadata = { title: 'Edit lubricant' };

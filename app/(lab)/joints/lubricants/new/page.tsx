@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { LubricantForm } from '@/components/joints/lubricant-form';
 import { JOINT_LIBRARY_ROLES } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveLubricantAction } from '../../actions';
 
 export const metadata: Metadata = { title: 'New lubricant' };

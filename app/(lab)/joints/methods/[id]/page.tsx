@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { MethodForm } from '@/components/joints/method-form';
 import { getMethod, JOINT_LIBRARY_ROLES, libraryStudCounts } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveMethodAction } from '../../actions';
 
 export const metadata: Metadata = { title: 'Edit method' };

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { MethodForm } from '@/components/joints/method-form';
 import { JOINT_LIBRARY_ROLES, libraryStudCounts } from '@/lib/data/joints';
-import { requirePageUser } from '@/lib/session';
+import { requirePageUser } from '@/lib/auth/session';
 import { saveMethodAction } from '../../actions';
 
 export const metadata: Metadata = { title: 'New method' };

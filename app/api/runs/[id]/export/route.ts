@@ -1,11 +1,11 @@
 import { NextResponse } from 'next/server';
 import { z } from 'zod';
-import { searchParamsObject, withRole } from '@/lib/api';
+import { searchParamsObject, withRole } from '@/lib/http/api';
 import { runParamsSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
 import { runToCsv } from '@/lib/ingest/export-csv';
 import { nToLbf } from '@/lib/calc/units';
-import { ALL_ROLES } from '@/lib/session';
+import { ALL_ROLES } from '@/lib/auth/session';
 
 const querySchema = z.object({ format: z.enum(['csv', 'json']).default('csv'), units: z.enum(['si', 'us']).optional() }).strict();
 

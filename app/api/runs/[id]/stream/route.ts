@@ -1,12 +1,12 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { z } from 'zod';
-import { errorResponse, withRole, type RouteContext } from '@/lib/api';
+import { errorResponse, withRole, type RouteContext } from '@/lib/http/api';
 import { authenticateStreamToken } from '@/lib/data/stream-tokens';
-import { AppError } from '@/lib/errors';
-import { readBodyWithin } from '@/lib/read-body';
+import { AppError } from '@/lib/http/errors';
+import { readBodyWithin } from '@/lib/http/read-body';
 import { STREAM_BODY_LIMIT_BYTES } from '@/lib/record/limits';
-import { appendStreamReadings, streamStatus } from '@/lib/runs/live-stream';
-import { ALL_ROLES } from '@/lib/session';
+import { appendStreamReadings, streamStatus } from '@/lib/data/runs/live-stream';
+import { ALL_ROLES } from '@/lib/auth/session';
 
 export const runtime = 'nodejs';
 

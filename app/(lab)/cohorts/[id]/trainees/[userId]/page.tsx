@@ -5,8 +5,8 @@ import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { PrintButton } from '@/components/ui/print-button';
 import { cohortDetail } from '@/lib/data/cohorts';
 import { orNotFound } from '@/lib/data/page-guards';
-import { formatDate, formatDateTime } from '@/lib/format-date';
-import { requirePageUser } from '@/lib/session';
+import { formatDate, formatDateTime } from '@/lib/format/format-date';
+import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Result sheet' };
 export const dynamic = 'force-dynamic';

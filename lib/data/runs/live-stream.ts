@@ -12,14 +12,14 @@ import 'server-only';
  */
 import { Op, QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { createStepDeriver } from '@/lib/ingest/derive-steps';
 import { resolveRunHeader, stabilityLimitOf } from '@/lib/data/record';
 import { runScope } from '@/lib/data/scope';
 import { STREAM_MAX_READINGS } from '@/lib/record/limits';
-import type { NormalisedRun } from '@/lib/run-types';
-import type { SessionUser } from '@/lib/session';
+import type { NormalisedRun } from '@/lib/record/run-types';
+import type { SessionUser } from '@/lib/auth/session';
 import { Joint, Run } from '@/models';
 import { appendSteps, refreshRunFigures, storeRun } from './store-run';
 

@@ -1,8 +1,8 @@
 import 'server-only';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { saveSceneRuns } from '@/lib/data/classroom';
-import { assertRole, type SessionUser } from '@/lib/session';
-import { saveSceneSchema, type SaveSceneState } from './save-scene-input';
+import { assertRole, type SessionUser } from '@/lib/auth/session';
+import { saveSceneSchema, type SaveSceneState } from '../classroom/save-scene-input';
 
 /**
  * The work of the classroom's save action apart from Next's own calls (session, revalidatePath),

@@ -2,10 +2,10 @@ import 'server-only';
 import { decode, type JWT } from 'next-auth/jwt';
 import { cookies } from 'next/headers';
 import { redirect } from 'next/navigation';
-import { authSecret } from './env';
-import { AppError } from './errors';
+import { authSecret } from '../platform/env';
+import { AppError } from '../http/errors';
 import type { Role } from '@/models/user';
-import { checkSession, type SessionAccount, type SessionClaims } from './data/session-store';
+import { checkSession, type SessionAccount, type SessionClaims } from '../data/session-store';
 
 /** The signed-in person as every data function receives it (name, role and units from the users row). */
 export type SessionUser = SessionAccount;

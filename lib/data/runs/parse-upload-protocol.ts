@@ -1,9 +1,9 @@
 /** Messages between the request thread and the upload parse worker (types only). */
-import type { AppErrorCode, AppErrorDetails } from '@/lib/errors';
+import type { AppErrorCode, AppErrorDetails } from '@/lib/http/errors';
 import type { DetectionReport } from '@/lib/ingest/detect';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
-import type { NormalisedRun } from '@/lib/run-types';
+import type { NormalisedRun } from '@/lib/record/run-types';
 
 export interface ParseJob {
   /** The file's bytes (transferred, not copied). */

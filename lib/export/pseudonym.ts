@@ -1,5 +1,5 @@
 import { createHmac } from 'node:crypto';
-import { authSecret } from './env';
+import { authSecret } from '../platform/env';
 
 /**
  * A stable pseudonym for a person: the same person gets the same label under the same key, and the

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { parseTrustedProxies } from './client-address';
+import { parseTrustedProxies } from '../http/client-address';
 
 /**
  * Environment settings, parsed once with zod. Local defaults let `npm start` run with nothing set;

@@ -2,12 +2,12 @@ import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
-import { CLIENT_ADDRESS_HEADER } from './client-address';
-import { authSecret, env } from './env';
+import { CLIENT_ADDRESS_HEADER } from '../http/client-address';
+import { authSecret, env } from '../platform/env';
 import { verifyPassword } from './passwords';
-import { clearSignInFailures, isSignInLocked, recordSignInFailure, signInKeys } from './rate-limit';
+import { clearSignInFailures, isSignInLocked, recordSignInFailure, signInKeys } from './sign-in-throttle';
 import { User } from '@/models';
-import { checkSession, openSession, revokeSession } from './data/session-store';
+import { checkSession, openSession, revokeSession } from '../data/session-store';
 import { sessionClaimsOf } from './session';
 import type { Role } from '@/models/user';
 
@@ -23,7 +23,7 @@ export const SIGN_IN_LOCKED = 'Too many failed attempts. Wait 15 minutes, then t
 let warnedNoClientAddress = false;
 
 /**
- * The address the server saw, from scripts/serve.ts (lib/client-address.ts): never the client's own
+ * The address the server saw, from scripts/serve.ts (lib/http/client-address.ts): never the client's own
  * X-Forwarded-For. Started another way (plain `next start`), production has no trustworthy address,
  * so every client shares one and the per-account limits still hold; `next dev` uses Next's header.
  */

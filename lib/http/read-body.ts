@@ -1,5 +1,5 @@
 import 'server-only';
-import type { AppError } from '@/lib/errors';
+import type { AppError } from '@/lib/http/errors';
 
 /**
  * Reads a request body while counting its bytes, chunked or not: a declared Content-Length over

@@ -12,7 +12,7 @@ import { SignInAttempt, sequelize } from '@/models';
  *   doubles with each failure (`accountBackoffBaseMs` up to `lockMs`). It holds back only addresses
  *   that have themselves failed for this account, so a stranger guessing from elsewhere cannot lock
  *   the owner out of an address that has not failed.
- * The address is the one the server saw (lib/client-address.ts), never the client's own header.
+ * The address is the one the server saw (lib/http/client-address.ts), never the client's own header.
  */
 export const SIGN_IN_LIMIT = {
   maxFailuresPerPair: 5,

@@ -1,7 +1,7 @@
 import 'server-only';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import type { ParsedUpload, ParseJob, ParseReply } from './parse-upload-protocol';

@@ -1,10 +1,10 @@
 import 'server-only';
-import { isAppError } from '@/lib/errors';
+import { isAppError } from '@/lib/http/errors';
 import { saveJoint, saveLubricant, saveMethod } from '@/lib/data/joints';
-import { assertRole, type SessionUser } from '@/lib/session';
-import { parseJointForm, type ParseResult } from './joint-input';
-import { parseLubricantForm, parseMethodForm } from './method-input';
-import type { LibraryFormState } from './form-state';
+import { assertRole, type SessionUser } from '@/lib/auth/session';
+import { parseJointForm, type ParseResult } from '../joints/joint-input';
+import { parseLubricantForm, parseMethodForm } from '../joints/method-input';
+import type { LibraryFormState } from '../joints/form-state';
 
 /**
  * The work of the joint-library server actions, apart from Next's own calls (session,

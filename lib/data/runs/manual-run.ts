@@ -1,12 +1,12 @@
 import 'server-only';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { loadToN } from '@/lib/ingest/units';
 import { resolveRunHeader } from '@/lib/data/record';
 import { manualEntrySchema } from '@/lib/record/manual-entry-schema';
 import { planSteps } from '@/lib/record/step-plan';
-import type { NormalisedRun } from '@/lib/run-types';
-import type { SessionUser } from '@/lib/session';
+import type { NormalisedRun } from '@/lib/record/run-types';
+import type { SessionUser } from '@/lib/auth/session';
 import { storeRun } from './store-run';
 
 const fmtKn = (n: number) => `${+(n / 1000).toFixed(2)} kN`;

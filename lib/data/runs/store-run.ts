@@ -1,8 +1,8 @@
 import { QueryTypes, type Transaction } from 'sequelize';
-import { AppError } from '../errors';
-import type { NormalisedRun } from '../run-types';
-import { sequelize } from '../db';
-import { storedRunFigures } from './run-figures';
+import { AppError } from '../../http/errors';
+import type { NormalisedRun } from '../../record/run-types';
+import { sequelize } from '../../platform/db';
+import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
 
 export interface RunHeader {

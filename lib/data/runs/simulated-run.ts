@@ -1,10 +1,10 @@
 import 'server-only';
 import { z } from 'zod';
 import { resolveRunHeader } from '@/lib/data/record';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { runHeaderSchema } from '@/lib/record/run-header-schema';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import { simulateRun, type SimTool } from '@/lib/sim/simulate-run';
 import { Joint, Lubricant, Method } from '@/models';
 import { storeRun } from './store-run';

@@ -3,7 +3,7 @@ import { NextResponse, type NextRequest } from 'next/server';
 import { ConnectionError, ConnectionAcquireTimeoutError } from 'sequelize';
 import { ZodError } from 'zod';
 import { AppError, httpStatusOf } from './errors';
-import { assertRole, getSessionUser, type SessionUser } from './session';
+import { assertRole, getSessionUser, type SessionUser } from '../auth/session';
 import type { Role } from '@/models/user';
 
 export interface RouteContext<P = Record<string, string>> {

@@ -7,7 +7,7 @@
  * Message in: {@link ParseJob}. Message out: {@link ParseReply} (the run and report, never the text).
  */
 import { parentPort } from 'node:worker_threads';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 import { assertTextFile } from '@/lib/ingest/detect';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { ParseJob, ParseReply } from './parse-upload-protocol';

@@ -1,4 +1,4 @@
-import type { NormalisedRun } from '../run-types';
+import type { NormalisedRun } from './run-types';
 import { mean } from '../stats/mean';
 import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
 import { elasticInteractionDrift } from '../stats/elastic-interaction-drift';

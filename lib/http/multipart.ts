@@ -1,5 +1,5 @@
 import 'server-only';
-import { AppError } from '@/lib/errors';
+import { AppError } from '@/lib/http/errors';
 
 /** One part of a multipart/form-data body; `data` is a view into the body (no copy). */
 export interface FormPart {

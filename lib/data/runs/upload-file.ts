@@ -1,6 +1,6 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '@/lib/db';
+import { sequelize } from '@/lib/platform/db';
 import { BYTES_PER_MB } from '@/lib/ingest/detect';
 
 /** Bytes per row of `upload_chunks`: well under MariaDB's default max_allowed_packet (16 MB). */

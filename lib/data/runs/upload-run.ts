@@ -1,14 +1,14 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
-import { sequelize } from '@/lib/db';
-import { AppError } from '@/lib/errors';
+import { sequelize } from '@/lib/platform/db';
+import { AppError } from '@/lib/http/errors';
 import { BYTES_PER_MB } from '@/lib/ingest/detect';
 import { parseColumnMapping } from '@/lib/ingest/parse-text';
 import { rememberMapping, resolveRunHeader } from '@/lib/data/record';
 import { runScope } from '@/lib/data/scope';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import type { SessionUser } from '@/lib/session';
+import type { SessionUser } from '@/lib/auth/session';
 import { Run } from '@/models';
 import { parseUploadInWorker } from './parse-in-worker';
 import { storeRun } from './store-run';
