@@ -175,6 +175,7 @@ async function benchUploads() {
     const result = await benchUploadPressure(server.baseUrl, researcher.cookie, server.pid, runHeader);
     results.uploads = { ...result, target: 'health p99 < 200 ms, peak RSS < 600 MB' };
     for (const u of result.uploads) rows.push([`upload: ${u.name}`, `${u.status} in ${u.seconds.toFixed(1)} s`, u.message.slice(0, 60), '']);
+    rows.push(['uploads: GET /api/health, no upload', `${result.idle.requests} requests, p50 ${result.idle.p50} ms, p99 ${result.idle.p99} ms`, `failures ${result.idle.failures}`, 'machine floor']);
     rows.push(['uploads: GET /api/health meanwhile', `${result.health.requests} requests, p50 ${result.health.p50} ms, p99 ${result.health.p99} ms, max ${result.health.max} ms`, `failures ${result.health.failures}`, `p99 ${result.health.p99 < 200 ? '<' : '>='} 200 ms`]);
     rows.push(['uploads: server peak memory', `${result.peakRssMb} MB VmHWM`, '', result.peakRssMb < 600 ? 'under 600 MB' : 'OVER 600 MB']);
   } finally {

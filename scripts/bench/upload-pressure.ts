@@ -50,13 +50,24 @@ function chunkedBody(total: number): ReadableStream<Uint8Array> {
   });
 }
 
+interface HealthFigures {
+  requests: number;
+  p50: number;
+  p99: number;
+  max: number;
+  failures: number;
+}
+
 export interface UploadPressureResult {
   uploads: Array<{ name: string; status: number; seconds: number; message: string }>;
-  health: { requests: number; p50: number; p99: number; max: number; failures: number };
+  /** /api/health with no upload running, for the machine's own load. */
+  idle: HealthFigures;
+  health: HealthFigures;
   peakRssMb: number;
 }
 
-export async function benchUploadPressure(baseUrl: string, cookie: string, serverPid: number, runHeader: unknown): Promise<UploadPressureResult> {
+/** /api/health polled back to back by four clients until `until` settles: latencies and failures. */
+async function pollHealth(baseUrl: string, until: Promise<unknown>) {
   let running = true;
   const latencies: number[] = [];
   let failures = 0;
@@ -74,6 +85,15 @@ export async function benchUploadPressure(baseUrl: string, cookie: string, serve
     }
   };
   const pollers = Array.from({ length: 4 }, poll);
+  await until.catch(() => undefined);
+  running = false;
+  await Promise.all(pollers);
+  return { requests: latencies.length, p50: Math.round(percentile(latencies, 50)), p99: Math.round(percentile(latencies, 99)), max: Math.round(Math.max(...latencies)), failures };
+}
+
+export async function benchUploadPressure(baseUrl: string, cookie: string, serverPid: number, runHeader: unknown): Promise<UploadPressureResult> {
+  // The same polling with no upload first: on a loaded machine this is the floor the figures sit on.
+  const idle = await pollHealth(baseUrl, new Promise((resolve) => setTimeout(resolve, 5000)));
   const uploads: UploadPressureResult['uploads'] = [];
   const post = async (name: string, init: RequestInit) => {
     const started = performance.now();
@@ -81,8 +101,9 @@ export async function benchUploadPressure(baseUrl: string, cookie: string, serve
     const body = (await response.json().catch(() => ({}))) as { error?: { message?: string } };
     uploads.push({ name, status: response.status, seconds: (performance.now() - started) / 1000, message: (body.error?.message ?? '').slice(0, 100) });
   };
-  try {
-    for (const file of pathologicalFiles()) {
+  const files = pathologicalFiles();
+  const sendAll = async () => {
+    for (const file of files) {
       const form = new FormData();
       form.append('file', new Blob([file.bytes as BlobPart], { type: 'text/csv' }), 'pathological.csv');
       form.append('mapping', 'null');
@@ -90,13 +111,7 @@ export async function benchUploadPressure(baseUrl: string, cookie: string, serve
       await post(file.name, { body: form });
     }
     await post('chunked 40 MB, no Content-Length', { body: chunkedBody(40 * MB), headers: { 'content-type': 'multipart/form-data; boundary=----evenload-bench' }, duplex: 'half' } as RequestInit);
-  } finally {
-    running = false;
-    await Promise.all(pollers);
-  }
-  return {
-    uploads,
-    health: { requests: latencies.length, p50: Math.round(percentile(latencies, 50)), p99: Math.round(percentile(latencies, 99)), max: Math.round(Math.max(...latencies)), failures },
-    peakRssMb: Math.round(peakRssMb(serverPid)),
   };
+  const health = await pollHealth(baseUrl, sendAll());
+  return { uploads, idle, health, peakRssMb: Math.round(peakRssMb(serverPid)) };
 }
