@@ -6,6 +6,7 @@ import { percentOfYield, preloadFromPercentOfYield, preloadFromStress, preloadWa
 import { STANDARD_THREADS, threadGeometry, threadSpecSchema, type ThreadGeometry, type ThreadSpec } from '@/lib/calc/thread';
 import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
+import { parseNumberText } from '@/lib/format/parse-number';
 
 /**
  * The joint form as pure functions, shared by the form (live target and messages) and the server
@@ -58,12 +59,8 @@ export function threadSpecOf(system: 'inch' | 'metric', diameter: number, pitch:
   return system === 'inch' ? { system, diameterIn: diameter, threadsPerInch: pitch } : { system, diameterMm: diameter, pitchMm: pitch };
 }
 
-/** Parses typed text: commas and spaces ignored; empty or unreadable text gives NaN. */
-export function numberFromText(text: string | undefined | null): number {
-  const cleaned = (text ?? '').replace(/[,\s\u00a0]/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(cleaned)) return Number.NaN;
-  return Number(cleaned);
-}
+/** Typed text read by the one number parser (lib/format/parse-number.ts); empty or unreadable text gives NaN. */
+export const numberFromText = parseNumberText;
 
 /** What the target section shows and the server stores. */
 export interface JointTargetInput {
