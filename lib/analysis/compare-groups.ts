@@ -10,6 +10,7 @@ import { tukeyHsd } from '../stats/tukey-hsd';
 import { welchAnova } from '../stats/welch-anova';
 import { boxStats } from '../charts/box-stats';
 import type { BoxSummary, ComparisonGroupData } from './types';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** One run as a comparison sees it: its stored per-run profile. */
 export interface ComparedRun {
@@ -189,7 +190,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
     });
     attempt("Welch's ANOVA", () => {
       const r = welchAnova(groupsOfCvs);
-      tests.push({ question: cvQuestion, name: "Welch's ANOVA of run CVs", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin.toFixed(1)}`, reading: reading(r, 'mean run CV') });
+      tests.push({ question: cvQuestion, name: "Welch's ANOVA of run CVs", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`, reading: reading(r, 'mean run CV') });
     });
     attempt('The Tukey–Kramer pairs', () => {
       const r = tukeyHsd(groupsOfCvs, { confidence: 0.95 });

@@ -1,6 +1,6 @@
 import { gradePropertiesForThread, type GradeId } from '../calc/grades';
 import { threadGeometry, type ThreadSpec } from '../calc/thread';
-import { formatPercent } from '../calc/units';
+import { formatInputValue, formatPercent } from '../calc/units';
 import { coefficientOfVariation } from '../stats/coefficient-of-variation';
 import { largestDeviationFromTarget } from '../stats/largest-deviation-from-target';
 import { shareWithinBand } from '../stats/share-within-band';
@@ -54,7 +54,7 @@ export interface Judgement {
 
 const pct = (value: number) => formatPercent(value, { sig: 3 });
 /** A limit as the instructor typed it: 70, 2.5, 10 (no padding zeros). */
-const plain = (value: number) => String(Number(value.toPrecision(6)));
+const plain = (value: number) => formatInputValue(value, 6);
 
 /** Maps a stored grade label ("ASTM A193 B7", "A193-B7", "A193M B7") to the calculator's grade id. */
 export function gradeIdFromLabel(label: string): GradeId | null {

@@ -15,6 +15,7 @@ import type { MethodPass } from '@/models/method';
 import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User } from '@/models';
 import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** Who may record runs, and as whom: see {@link allowedOperatorIds}. */
 export const RECORD_ROLES = ['instructor', 'researcher', 'trainee'] as const;
@@ -107,7 +108,7 @@ export function stabilityLimitOf(joint: Pick<Joint, 'threadSystem' | 'threadDiam
     const minTensileN = props.tensileMpa * geometry.tensileStressAreaMm2;
     return {
       maxStudLoadN: ABSURD_LOAD_MARGIN * minTensileN,
-      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${+(minTensileN / 1000).toFixed(1)} kN (${props.label})`,
+      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${formatDecimals(minTensileN / 1000, 1, 0)} kN (${props.label})`,
     };
   } catch {
     return { maxStudLoadN: 3 * joint.targetLoadN, source: `3 × the joint's target load (the stud grade "${joint.studGrade}" is not in our table)` };

@@ -8,8 +8,9 @@ import { planSteps } from '@/lib/record/step-plan';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { storeRun } from './store-run';
+import { formatDecimals } from '@/lib/calc/units';
 
-const fmtKn = (n: number) => `${+(n / 1000).toFixed(2)} kN`;
+const fmtKn = (n: number) => `${formatDecimals(n / 1000, 2, 0)} kN`;
 
 /**
  * Saves a run typed into the grid (source 'manual', status complete) in one transaction. The step
