@@ -29,9 +29,8 @@ export function readStud(position: number, loadN: number, targetN: number, units
   }
   const percentOfTarget = (loadN / targetN) * 100;
   const deviationPercent = percentOfTarget - 100;
-  const rounded = Number(deviationPercent.toFixed(1));
-  const deviationText =
-    rounded === 0 ? 'on target' : `${percentText(Math.abs(deviationPercent))} ${rounded < 0 ? 'below' : 'above'}`;
+  const deviation = percentText(Math.abs(deviationPercent));
+  const deviationText = deviation === percentText(0) ? 'on target' : `${deviation} ${deviationPercent < 0 ? 'below' : 'above'}`;
   const loadText = chartForceText(loadN, units);
   const percentOfTargetText = percentText(percentOfTarget);
   return {
