@@ -38,7 +38,7 @@ describe('signing in through the form in Chromium', () => {
     await page.getByLabel('E-mail').fill(DEMO_ACCOUNTS.researcher);
     await page.getByLabel('Password').fill('definitely-wrong');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect.poll(() => page.getByRole('status').textContent()).toContain('do not match an account');
+    await expect.poll(() => page.getByRole('status').textContent(), { timeout: 15_000 }).toContain('do not match an account');
     await page.close();
   });
 
