@@ -158,7 +158,8 @@ export function threadSeriesNote(thread: ThreadSpec): CalcWarning | null {
     code: 'not-8un',
     severity: 'caution',
     message: `Flange studs of 1 in and larger use the 8-thread series (8UN); this stud has ${thread.threadsPerInch} threads per inch.`,
-    source: 'ASME B1.1, 8-thread series (8UN)', // ✓ [CFR46], [TME] (docs/REFERENCE.md §1)
+    // ✓ [CFR46], [TME] (docs/REFERENCE.md §1)
+    source: 'ASME B1.1, 8-thread series (8UN)',
   };
 }
 
