@@ -27,7 +27,7 @@ export function ComparePlanner({ planner }: { planner: Planner | null }) {
           </label>
           <p className="mt-2 font-medium" data-testid="planner-sentence">
             {plan
-              ? `To tell a ${formatNumber(ratio, 2)}× difference in CV apart, plan about ${plan.perGroup} runs per group.`
+              ? `To tell a ${Number(ratio.toFixed(2))}× difference in CV apart, plan about ${plan.perGroup} runs per group.`
               : 'Choose a difference above 1× to see how many runs it needs.'}
           </p>
           <p className="mt-1 text-xs text-muted">
