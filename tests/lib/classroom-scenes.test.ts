@@ -69,8 +69,8 @@ describe('scene end figures (over 30 simulated runs each)', () => {
     expect(f.basis).toBe('over 30 simulated runs each');
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
     expect(f.sides[0]!.meanDriftPercent).toBeLessThan(f.sides[1]!.meanDriftPercent);
-    expect(f.cvReading).toMatch(/^Mean run CV differs between these methods at the 5 % level \(Welch's ANOVA/);
-    expect(f.scatterReading).toMatch(/^Scatter differs between these methods at the 5 % level \(Levene W/);
+    expect(f.cvReading).toMatch(/^Run CV differs between these methods at the 5 % level \(Welch's ANOVA on ln run CV/);
+    expect(f.scatterReading).toMatch(/^Within-run scatter differs between these methods at the 5 % level \(Welch's ANOVA on within-run SD/);
   });
   it('shows a cross pass more even than a circular one (the simulator’s flange rotation term, lib/sim/MODEL.md)', () => {
     const f = figuresOf('pattern');
