@@ -11,7 +11,7 @@ import type { UnitSystem } from '@/lib/calc/units';
 import { loadsThroughTimeChart } from '@/lib/charts';
 import { actionForKey, applyAction, endOf, KEY_BINDINGS, sideStep, type StagePosition } from '@/lib/classroom/keyboard';
 import type { SideFigures } from '@/lib/classroom/figures';
-import { INITIAL_SAVE_SCENE_STATE } from '@/lib/classroom/save-scene-input';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { moveScene, SCENE_KEYS, SCENES, sceneOrderParam, toggleScene, type Library, type SceneKey } from '@/lib/classroom/scenes';
 import type { ClassroomCohort, ClassroomRunOption } from '@/lib/data/classroom';
 import { buildScene, type BuiltScene, type RealRunInput } from './scene-model';
@@ -280,7 +280,7 @@ function SideRow({ side, sceneStep, totalSteps, rowHeight, units }: { side: Buil
 
 function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohorts: ClassroomCohort[]; seed: number }) {
   const figures = scene.figures;
-  const [state, formAction, pending] = useActionState(saveSceneAction, INITIAL_SAVE_SCENE_STATE);
+  const [state, formAction, pending] = useActionState(saveSceneAction, IDLE_FORM_STATE);
   if (!figures) return null;
   const rows: { label: string; value: (s: SideFigures) => string }[] = [
     { label: 'CV', value: (s) => pct(s.cv) },
@@ -336,9 +336,9 @@ function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohorts: Clas
             </button>
             <div id="save-scene-status" aria-live="polite" className="min-h-6">
               {state.status === 'error' ? <p className="text-danger">{state.message}</p> : null}
-              {state.status === 'saved' ? (
+              {state.status === 'ok' ? (
                 <p className="text-good">
-                  {state.message} <a className="underline" href={state.compareHref}>Compare them</a>
+                  {state.message} <a className="underline" href={state.data?.compareHref}>Compare them</a>
                 </p>
               ) : null}
             </div>
