@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { compareGroups, DEFAULT_PLANNED, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
 import { COMPARISON_TESTS } from '../analysis/compare-types';
 import { nutFactor } from '../stats/nut-factor';
+import { studDiameterM } from '../joints/joint-properties';
 import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 import { sequelize } from '@/models';
@@ -216,7 +217,7 @@ async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Pro
  * produced (K = T/(D·F), short form, common practice).
  */
 async function nutFactorsFor(where: string[], params: unknown[], lubricantIds: number[], labels: Map<number, string>): Promise<NutFactorByLubricant[]> {
-  const rows = await sequelize.query<{ lubricant_id: number; torque: number; load_n: number; thread_system: string; thread_diameter: number }>(
+  const rows = await sequelize.query<{ lubricant_id: number; torque: number; load_n: number; thread_system: 'inch' | 'metric'; thread_diameter: number }>(
     `SELECT r.lubricant_id, s.applied_torque_nm AS torque, g.load_n, j.thread_system, j.thread_diameter
      FROM runs r JOIN joints j ON j.id = r.joint_id
      JOIN tightening_steps s ON s.run_id = r.id AND s.pass_number = 1 AND s.applied_torque_nm > 0
@@ -231,7 +232,7 @@ async function nutFactorsFor(where: string[], params: unknown[], lubricantIds: n
     const fit = nutFactor(
       {
         torque: mine.map((r) => r.torque),
-        diameter: mine.map((r) => (r.thread_system === 'inch' ? r.thread_diameter * 0.0254 : r.thread_diameter / 1000)),
+        diameter: mine.map((r) => studDiameterM({ threadSystem: r.thread_system, threadDiameter: r.thread_diameter })),
         force: mine.map((r) => r.load_n),
       },
       { units: 'SI', confidence: 0.95 },

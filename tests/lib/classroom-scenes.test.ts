@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { placeAmongSimulated, sceneFigures } from '@/lib/classroom/figures';
-import { findMethod, lubricantForSim, moveScene, parseSceneOrder, sceneSetup, seedFamily, simulateSide, toggleScene, type Library } from '@/lib/classroom/scenes';
+import { findMethod, moveScene, parseSceneOrder, sceneSetup, seedFamily, simulateSide, toggleScene, type Library } from '@/lib/classroom/scenes';
+import { lubricantForSim } from '@/lib/sim/from-library';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 
 // A 5/8-11 B7 joint at 50 % of 105 ksi on As = 0.226 in² (docs/REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL]), computed.
