@@ -4,6 +4,8 @@ import { useId, type ReactNode } from 'react';
 import { CONTROL_CLASS, FieldLabel } from '../ui/form-fields';
 
 export { CONTROL_CLASS };
+/** What a user typed, read by the one number parser ("1,500" is 1500, "1,5" is 1.5); empty or unreadable text gives NaN. */
+export { parseNumberText } from '@/lib/format/parse-number';
 
 export interface NumberFieldProps {
   label: string;
@@ -65,11 +67,4 @@ export function NumberField({ label, value, onChange, unit, hint, error, optiona
       ) : null}
     </div>
   );
-}
-
-/** Parses what a user typed: commas and spaces ignored; empty or unreadable text gives NaN. */
-export function parseNumberText(text: string): number {
-  const cleaned = text.replace(/[,\s\u00a0]/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(cleaned)) return Number.NaN;
-  return Number(cleaned);
 }

@@ -7,7 +7,7 @@ import { CautionBlock } from '@/components/caution-block';
 import { DeviationLegend } from '@/components/charts/deviation-legend';
 import { FlangeView } from '@/components/charts/flange-view';
 import { PlotFigure } from '@/components/charts/plot-figure';
-import type { UnitSystem } from '@/lib/calc/units';
+import { formatPercentFixed, type UnitSystem } from '@/lib/calc/units';
 import { loadsThroughTimeChart } from '@/lib/charts';
 import { actionForKey, applyAction, endOf, KEY_BINDINGS, sideStep, type StagePosition } from '@/lib/classroom/keyboard';
 import type { SideFigures } from '@/lib/classroom/figures';
@@ -40,8 +40,8 @@ function useViewport() {
   return size;
 }
 
-const pct = (fraction: number) => `${(fraction * 100).toFixed(1)}\u00a0%`;
-const pctOf = (percent: number, signed = false) => `${percent < 0 ? '\u2212' : signed && percent > 0 ? '+' : ''}${Math.abs(percent).toFixed(1)}\u00a0%`;
+const pct = (fraction: number) => formatPercentFixed(fraction * 100);
+const pctOf = (percent: number, signed = false) => formatPercentFixed(percent, { signed });
 
 /** The classroom: scene picker, then a keyboard-driven stage for each chosen scene. */
 export function ClassroomView({ library, cohorts, realRuns, realRun, initialOrder, initialJointId, seed, units }: ClassroomViewProps) {

@@ -8,18 +8,12 @@ import type { RecordJoint, RecordMethod } from '@/lib/data/record';
 import { loadToN } from '@/lib/ingest/units';
 import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import type { RecordFormState } from '@/app/(lab)/record/actions';
+import { readNumber } from '@/lib/format/parse-number';
 import { MANUAL_UNITS, type ManualUnit } from '@/lib/record/manual-entry-schema';
 import { planSteps } from '@/lib/record/step-plan';
 import { coefficientOfVariation } from '@/lib/stats/coefficient-of-variation';
 import { mean } from '@/lib/stats/mean';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
-
-function parseCell(text: string): number | null {
-  const t = text.trim().replace(/\s/g, '');
-  if (t === '') return null;
-  const n = Number(t.includes('.') ? t.replace(/,/g, '') : t.replace(',', '.'));
-  return Number.isFinite(n) ? n : Number.NaN;
-}
 
 /**
  * Enter by hand: one row per step in the method's order (the tightened stud is shown), one column
@@ -39,7 +33,8 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
 
   if (plan.problem) return <p className="text-sm text-danger">{plan.problem}</p>;
 
-  const values = cells.map((row) => row.map(parseCell));
+  const readings = cells.map((row) => row.map((text) => readNumber(text)));
+  const values = readings.map((row) => row.map((r) => (r.kind === 'number' ? r.value : r.kind === 'empty' ? null : Number.NaN)));
   const focus = (r: number, c: number) => document.getElementById(`grid-${r}-${c}`)?.focus();
 
   function onKeyDown(e: React.KeyboardEvent<HTMLInputElement>, r: number, c: number) {
@@ -75,8 +70,8 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
     return { mean: m, cv: m > 0 ? coefficientOfVariation(loadsN) : null };
   };
   const latest = lastComplete >= 0 ? rowStats(lastComplete) : null;
-  const payload = JSON.stringify({ header: headerPayload(header), unit, rows: values.map((row) => row.map((v) => (v === null ? null : Number.isFinite(v) ? v : Number.MAX_VALUE))) });
-  const firstBad = values.flatMap((row, i) => row.map((v, j) => ({ i, j, bad: v !== null && !Number.isFinite(v) }))).find((x) => x.bad);
+  const payload = JSON.stringify({ header: headerPayload(header), unit, rows: cells.map((row) => row.map((text) => (text.trim() === '' ? null : text))) });
+  const firstBad = readings.flatMap((row, i) => row.map((r, j) => ({ i, j, reason: r.kind === 'invalid' ? r.reason : null }))).find((x) => x.reason !== null);
 
   return (
     <form action={formAction} className="space-y-3">
@@ -118,7 +113,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
                   <td className="num px-2 py-0.5">{step.pass}{step.check ? ' (check)' : ''} <span className="text-muted">{step.percentOfTarget} %</span></td>
                   <td className="num px-2 py-0.5 font-medium">{step.position}</td>
                   {cells[i]!.map((v, j) => {
-                    const invalid = (values[i]![j] !== null && !Number.isFinite(values[i]![j]!)) || (state.cell?.row === i + 1 && state.cell.column === `Stud ${j + 1}`);
+                    const invalid = readings[i]![j]!.kind === 'invalid' || (state.cell?.row === i + 1 && state.cell.column === `Stud ${j + 1}`);
                     return (
                       <td key={j} className={`px-0.5 py-0.5 ${j + 1 === step.position ? 'bg-accent/10' : ''}`}>
                         <input id={`grid-${i}-${j}`} value={v} inputMode="decimal" autoComplete="off" aria-label={`Step ${step.order}, stud ${j + 1}, ${unit}`} aria-invalid={invalid || undefined}
@@ -141,7 +136,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
           {pending ? 'Saving…' : 'Save run'}
         </button>
         <div aria-live="polite" className="text-sm">
-          {firstBad ? <p className="text-danger">Step {firstBad.i + 1}, stud {firstBad.j + 1}: &ldquo;{cells[firstBad.i]![firstBad.j]}&rdquo; is not a number. Type digits, with a point or comma for decimals.</p> : null}
+          {firstBad ? <p className="text-danger">Step {firstBad.i + 1}, stud {firstBad.j + 1}: &ldquo;{cells[firstBad.i]![firstBad.j]!.trim()}&rdquo; {firstBad.reason}. Type digits, with a point or comma for decimals (1,500 is fifteen hundred; 1,5 is one and a half).</p> : null}
           {state.message ? (
             <p className={state.status === 'ok' ? 'text-good' : 'text-danger'} role={state.status === 'ok' ? 'status' : 'alert'}>
               {state.message} {state.status === 'ok' && state.data?.runId ? <Link className="underline" href={`/runs/${state.data?.runId}`}>Open run {state.data?.runId}</Link> : null}

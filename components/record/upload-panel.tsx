@@ -2,7 +2,7 @@
 
 import Link from 'next/link';
 import { useEffect, useRef, useState } from 'react';
-import { formatForce } from '@/lib/calc/units';
+import { formatDecimals, formatForce } from '@/lib/calc/units';
 import type { RecordJoint, RememberedMapping } from '@/lib/data/record';
 import { BYTES_PER_MB } from '@/lib/ingest/detect';
 import { LOAD_UNITS, TORQUE_UNITS } from '@/lib/ingest/units';
@@ -175,7 +175,7 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
         <p id="upload-limit" className="mt-2 text-xs text-muted">
           Comma, semicolon or tab separated; UTF-8. Up to {LIMIT_MB} MB. Shapes: wide (a column per stud), long (time, stud, load) or a step table (pass, step, stud, load).
         </p>
-        {file ? <p className="mt-2 text-sm"><span className="font-medium">{file.name}</span> <span className="num text-muted">({(file.size / 1024).toFixed(1)} KB)</span></p> : null}
+        {file ? <p className="mt-2 text-sm"><span className="font-medium">{file.name}</span> <span className="num text-muted">({formatDecimals(file.size / 1024, 1)} KB)</span></p> : null}
       </div>
 
       {progress ? (
@@ -342,7 +342,7 @@ function MappingEditor({ headers, mapping, onChange, joint }: { headers: string[
         </label>
       </div>
       {mapping.loadUnit === 'microstrain' ? (
-        <p className="text-sm text-muted">Microstrain is turned into load with the joint&rsquo;s calibration factors ({joint.calibration.map((c) => c.toFixed(3)).join(', ')}), the studs&rsquo; tensile stress area and E = 205 GPa.</p>
+        <p className="text-sm text-muted">Microstrain is turned into load with the joint&rsquo;s calibration factors ({joint.calibration.map((c) => formatDecimals(c, 3)).join(', ')}), the studs&rsquo; tensile stress area and E = 205 GPa.</p>
       ) : null}
       {mapping.shape === 'wide' ? (
         <fieldset className="text-sm">

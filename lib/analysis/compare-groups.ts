@@ -7,6 +7,7 @@ import { pooledSdLogCv, runCvPairs, runLevelTests, type RawTest, type RunLevelGr
 import { traineeBlocks } from './compare-trainee-blocks';
 import type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary } from './compare-types';
 import type { BoxSummary, ComparisonGroupData } from './types';
+import { formatDecimals } from '@/lib/calc/units';
 
 export type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary, PairComparison } from './compare-types';
 

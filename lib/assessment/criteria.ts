@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseNumberText } from '@/lib/format/parse-number';
 
 /**
  * A cohort's acceptance criteria for one run. Defaults and limits, with where they come from:
@@ -32,9 +33,11 @@ export const CRITERIA_LIMITS = {
 } as const;
 
 const bounded = (label: string, unit: string, { min, max }: { min: number; max: number }) =>
-  z.coerce
-    .number({ error: `Enter the ${label} as a number in ${unit}.` })
-    .refine(Number.isFinite, { error: `Enter the ${label} as a number in ${unit}.` })
+  z
+    .preprocess(
+      (v) => (typeof v === 'string' ? parseNumberText(v) : v),
+      z.number({ error: `Enter the ${label} as a number in ${unit}.` }).refine(Number.isFinite, { error: `Enter the ${label} as a number in ${unit}.` }),
+    )
     .refine((v) => v >= min && v <= max, { error: `The ${label} must be between ${min} and ${max} ${unit}.` });
 
 export const criteriaSchema = z.object({

@@ -1,6 +1,6 @@
 import { gradePropertiesForThread } from '../calc/grades';
 import { threadGeometry, type ThreadSpec } from '../calc/thread';
-import { formatPercent } from '../calc/units';
+import { formatInputValue, formatPercent } from '../calc/units';
 import { coefficientOfVariation } from '../stats/coefficient-of-variation';
 import { largestDeviationFromTarget } from '../stats/largest-deviation-from-target';
 import { shareWithinBand } from '../stats/share-within-band';
@@ -55,7 +55,7 @@ export interface Judgement {
 
 const pct = (value: number) => formatPercent(value, { sig: 3 });
 /** A limit as the instructor typed it: 70, 2.5, 10 (no padding zeros). */
-const plain = (value: number) => String(Number(value.toPrecision(6)));
+const plain = (value: number) => formatInputValue(value, 6);
 
 function judgeBand(input: JudgeRunInput): CriterionResult {
   const { finalLoadsN, targetLoadN, criteria } = input;

@@ -1,5 +1,5 @@
 import { AppError } from '@/lib/http/errors';
-import { ksiToMpa, mmToIn } from './units';
+import { formatDecimals, ksiToMpa, mmToIn } from './units';
 import { nominalDiameterMm, type ThreadSpec } from './thread';
 
 /**
@@ -112,7 +112,7 @@ export function gradeProperties(grade: GradeId, diameterMm: number): GradeProper
   if (!row) {
     const last = rows[rows.length - 1];
     const limit = last ? `${last.maxDiameter} ${last.rangeUnit}` : 'no size';
-    const size = last?.rangeUnit === 'mm' ? `${Number(diameterMm.toFixed(2))} mm` : `${Number(mmToIn(diameterMm).toFixed(4))} in`;
+    const size = last?.rangeUnit === 'mm' ? `${formatDecimals(diameterMm, 2, 0)} mm` : `${formatDecimals(mmToIn(diameterMm), 4, 0)} in`;
     throw new AppError(
       'invalid_input',
       `${info.label} values are tabulated only up to ${limit}; this stud is ${size}.`,

@@ -1,5 +1,6 @@
 import { AppError } from '@/lib/http/errors';
 import type { CalcWarning } from './warnings';
+import { formatDecimals } from './units';
 
 /**
  * Target preload and stud stress utilisation.
@@ -95,7 +96,7 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
     out.push({
       code: 'over-stress',
       severity: 'danger',
-      message: `The target preload is ${r.toFixed(0)} % of yield: the stud would be over-stressed past its minimum yield strength.`,
+      message: `The target preload is ${formatDecimals(r, 0)} % of yield: the stud would be over-stressed past its minimum yield strength.`,
       source: 'definition of minimum yield strength (common practice)',
     });
   } else if (r > t.usualHigh) {
@@ -103,14 +104,14 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
       code: 'above-usual-range',
       severity: 'caution',
       // The 40–70 % range is from memory, unverified (docs/REFERENCE.md §4).
-      message: `The target preload is ${r.toFixed(0)} % of yield, above the 40–70 % range this calculator uses as its training default.`,
+      message: `The target preload is ${formatDecimals(r, 0)} % of yield, above the 40–70 % range this calculator uses as its training default.`,
       source: TARGET_RANGE_SOURCE,
     });
   } else if (r < t.usualLow) {
     out.push({
       code: 'below-usual-range',
       severity: 'caution',
-      message: `The target preload is ${r.toFixed(0)} % of yield, below the 40–70 % range this calculator uses as its training default; check it seals the gasket.`,
+      message: `The target preload is ${formatDecimals(r, 0)} % of yield, below the 40–70 % range this calculator uses as its training default; check it seals the gasket.`,
       source: TARGET_RANGE_SOURCE,
     });
   }
@@ -119,14 +120,14 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
       out.push({
         code: 'applied-over-stress',
         severity: 'danger',
-        message: `The tensioner load is ${a.toFixed(0)} % of yield: the stud would be stretched past its minimum yield strength before the nut takes the load.`,
+        message: `The tensioner load is ${formatDecimals(a, 0)} % of yield: the stud would be stretched past its minimum yield strength before the nut takes the load.`,
         source: 'definition of minimum yield strength (common practice)',
       });
     } else if (a > t.tensionerMax) {
       out.push({
         code: 'applied-above-95',
         severity: 'danger',
-        message: `The tensioner load is ${a.toFixed(0)} % of yield; one tool maker says never to exceed 95 % of yield at the applied load.`,
+        message: `The tensioner load is ${formatDecimals(a, 0)} % of yield; one tool maker says never to exceed 95 % of yield at the applied load.`,
         // ✓ [TENS1] (docs/REFERENCE.md §4)
         source: TENSIONER_MAKER,
       });
@@ -134,7 +135,7 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
       out.push({
         code: 'applied-above-75',
         severity: 'caution',
-        message: `The tensioner load is ${a.toFixed(0)} % of yield; one tool maker advises considering fatigue above 75 %.`,
+        message: `The tensioner load is ${formatDecimals(a, 0)} % of yield; one tool maker advises considering fatigue above 75 %.`,
         // ✓ [TENS1] (docs/REFERENCE.md §4)
         source: TENSIONER_MAKER,
       });

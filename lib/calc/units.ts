@@ -201,10 +201,42 @@ export function formatPercent(percent: number, options: FormatOptions = {}): str
 }
 
 /**
- * A value for an editable input after a unit switch: up to 7 significant figures, trailing zeros
- * and grouping removed (`"344.7379"`, `"50"`), so the field stays short but faithful.
+ * A value for an editable input after a unit switch, or a plain number in a sentence: up to `sig`
+ * (7) significant figures, trailing zeros and grouping removed (`"344.7379"`, `"50"`), so the text
+ * stays short but faithful and reads back through lib/format/parse-number.ts.
  */
-export function formatInputValue(value: number): string {
+export function formatInputValue(value: number, sig = 7): string {
   if (!Number.isFinite(value)) return '';
-  return String(Number(value.toPrecision(7)));
+  return String(Number(value.toPrecision(sig)));
+}
+
+const decimalFormats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * A number with at most `maxDecimals` and at least `minDecimals` (default: the same) decimals and
+ * thousands separators (Intl.NumberFormat, en-US, rounding half away from zero):
+ * `formatDecimals(1234.56, 1)` → `"1,234.6"`, `formatDecimals(24.8, 2, 0)` → `"24.8"`,
+ * `formatDecimals(69.5, 0)` → `"70"`. Non-finite values give an em dash.
+ */
+export function formatDecimals(value: number, maxDecimals: number, minDecimals = maxDecimals): string {
+  if (!Number.isFinite(value)) return '—';
+  const key = `${minDecimals}-${maxDecimals}`;
+  let format = decimalFormats.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat('en-US', { minimumFractionDigits: minDecimals, maximumFractionDigits: maxDecimals, useGrouping: true });
+    decimalFormats.set(key, format);
+  }
+  return format.format(value);
+}
+
+/**
+ * A percentage with a fixed number of decimals (default 1), a true minus sign (U+2212) and, on
+ * request, a plus sign; a value that rounds to zero has no sign: `"97.0 %"`, `"+3.0 %"`, `"−3.0 %"`.
+ */
+export function formatPercentFixed(percent: number, options: { signed?: boolean; decimals?: number } = {}): string {
+  if (!Number.isFinite(percent)) return '—';
+  const body = formatDecimals(Math.abs(percent), options.decimals ?? 1);
+  const zero = !/[1-9]/.test(body);
+  const sign = zero ? '' : percent < 0 ? '\u2212' : options.signed && percent > 0 ? '+' : '';
+  return withUnit(`${sign}${body}`, '%');
 }

@@ -1,4 +1,4 @@
-import { formatNumber, INPUT_UNIT, toInputUnit, UNIT_SPACE, type UnitSystem } from '@/lib/calc/units';
+import { formatDecimals, formatNumber, formatPercentFixed, INPUT_UNIT, toInputUnit, UNIT_SPACE, type UnitSystem } from '@/lib/calc/units';
 
 /** The force unit charts plot in: kN (SI) or lbf (US). */
 export function forceUnit(units: UnitSystem): string {
@@ -15,23 +15,12 @@ export function chartForceText(newtons: number, units: UnitSystem): string {
   return `${formatNumber(toChartForce(newtons, units), 3)}${UNIT_SPACE}${forceUnit(units)}`;
 }
 
-/** A percentage with one decimal and the unit: "97.0 %"; signed on request: "+3.0 %", "−3.0 %". */
-export function percentText(percent: number, options: { signed?: boolean; decimals?: number } = {}): string {
-  if (!Number.isFinite(percent)) return '—';
-  const decimals = options.decimals ?? 1;
-  const rounded = Number(percent.toFixed(decimals));
-  const body = Math.abs(rounded).toLocaleString('en-US', {
-    minimumFractionDigits: decimals,
-    maximumFractionDigits: decimals,
-  });
-  const sign = rounded < 0 ? '−' : options.signed && rounded > 0 ? '+' : '';
-  return `${sign}${body}${UNIT_SPACE}%`;
-}
+/** A percentage with one decimal and the unit: "97.0 %"; signed on request: "+3.0 %", "−3.0 %" (lib/calc/units.ts). */
+export const percentText = formatPercentFixed;
 
 /** A pass's stated level: "60 %" (whole numbers without decimals, else one). */
 export function passLevelText(percentOfTarget: number): string {
-  const body = Number.isInteger(percentOfTarget) ? String(percentOfTarget) : percentOfTarget.toFixed(1);
-  return `${body}${UNIT_SPACE}%`;
+  return `${formatDecimals(percentOfTarget, 1, 0)}${UNIT_SPACE}%`;
 }
 
 /** "Pass 2 (60 %)", or "Pass 2" when the level is not known. */

@@ -1,6 +1,7 @@
 import type { PlotOptions } from '@observablehq/plot';
 import * as Plot from '@observablehq/plot';
 import { GROUP_COLOURS } from './palette';
+import { formatPercentFixed } from '@/lib/calc/units';
 
 export interface ProgressPoint {
   attempt: number;
@@ -40,7 +41,7 @@ export function progressChartOptions(points: readonly ProgressPoint[], limits: {
       Plot.ruleY(rules, { y: 'y', stroke: 'var(--el-muted)', strokeDasharray: '4 3' }),
       Plot.text(rules, { y: 'y', text: 'label', frameAnchor: 'right', textAnchor: 'end', dy: -7, fill: 'var(--el-muted)' }),
       Plot.line(data, { x: 'attempt', y: 'percent', stroke: 'measure', z: 'measure', strokeWidth: 2 }),
-      Plot.dot(data, { x: 'attempt', y: 'percent', fill: 'measure', r: 4, tip: true, title: (d: ProgressDatum) => `Attempt ${d.attempt}: ${d.measure} ${d.percent.toFixed(2)} %` }),
+      Plot.dot(data, { x: 'attempt', y: 'percent', fill: 'measure', r: 4, tip: true, title: (d: ProgressDatum) => `Attempt ${d.attempt}: ${d.measure} ${formatPercentFixed(d.percent, { decimals: 2 })}` }),
     ],
   };
 }

@@ -3,6 +3,7 @@ import type { NormalisedRun } from '@/lib/record/run-types';
 import { elasticInteractionDrift } from '@/lib/stats/elastic-interaction-drift';
 import { mean } from '@/lib/stats/mean';
 import { summariseRun } from '@/lib/stats/summarise-run';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** The end figures of one side: means over its runs (CV as a fraction, the others in %). */
 export interface SideFigures {
@@ -91,7 +92,7 @@ export function sceneFigures(groups: readonly { key: string; label: string; runs
  */
 export function placeAmongSimulated(realCv: number, simulatedCvs: readonly number[]): string {
   const lower = simulatedCvs.filter((cv) => cv < realCv).length;
-  const pct = (realCv * 100).toFixed(1);
+  const pct = formatDecimals(realCv * 100, 1);
   const n = simulatedCvs.length;
   if (n === 0) return 'No simulated runs to compare with.';
   if (lower === n) return `The real run's CV (${pct} %) is higher than all ${n} simulated runs: it scattered more than the model does with this method.`;

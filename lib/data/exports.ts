@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, sequelize } from '@/models';
-import { csvLine } from '../export/csv-cell';
+import { csvRows } from '../export/write-csv';
 import { pseudonymFor } from '../export/pseudonym';
 import { assertRole, type SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
@@ -54,7 +54,7 @@ export async function* exportRunsCsv(user: SessionUser | null, query: RunExportQ
     if (!pseudonyms.has(userId)) pseudonyms.set(userId, pseudonymFor(userId, `export:${query.key}`));
     return pseudonyms.get(userId)!;
   };
-  yield csvLine(RUN_EXPORT_HEADER);
+  yield csvRows([RUN_EXPORT_HEADER]);
   for (let start = 0; start < runs.length; start += RUNS_PER_BATCH) {
     const batch = runs.slice(start, start + RUNS_PER_BATCH);
     const readings = await sequelize.query<{ run_id: number; step_order: number; pass_number: number; tightened: number; position: number; load_n: number }>(
@@ -63,15 +63,13 @@ export async function* exportRunsCsv(user: SessionUser | null, query: RunExportQ
         WHERE s.run_id IN (?) ORDER BY s.run_id, s.step_order, r.position`,
       { type: QueryTypes.SELECT, replacements: [batch.map((r) => r.id)] },
     );
-    let lines = '';
-    for (const reading of readings) {
+    yield csvRows(readings.map((reading) => {
       const run = batch.find((r) => r.id === Number(reading.run_id))!;
-      lines += csvLine([
+      return [
         run.id, run.recordedAt.toISOString(), nameOf(joints, run.jointId), nameOf(methods, run.methodId), nameOf(lubricants, run.lubricantId),
         nameOf(cohorts, run.cohortId), pseudonym(run.operatorId), Number(reading.step_order), Number(reading.pass_number), Number(reading.tightened),
         Number(reading.position), Number(reading.load_n),
-      ]);
-    }
-    yield lines;
+      ];
+    }));
   }
 }

@@ -14,6 +14,7 @@ import type { MethodPass } from '@/models/method';
 import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User } from '@/models';
 import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** Who may record runs, and as whom: see {@link allowedOperatorIds}. */
 export const RECORD_ROLES = ['instructor', 'researcher', 'trainee'] as const;

@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { sequelize } from '@/lib/platform/db';
-import { neutraliseCsvCell } from '@/lib/ingest/export-csv';
+import { csvRows, type CsvValue } from '@/lib/export/write-csv';
 import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
 import type { SessionUser } from '../auth/session';
 import { operatorLabel } from './scope';
@@ -78,8 +78,6 @@ async function* readingsOf(runIds: number[]): AsyncGenerator<ReadingRow[]> {
   }
 }
 
-const num = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
-
 /**
  * The selected runs, one CSV row per reading (every stud after every step), in SI (N, N·m) or US
  * (lbf, ft-lb) units; text cells neutralised against formula injection. Researchers see operators
@@ -89,16 +87,17 @@ const num = (n: number | null | undefined) => (n === null || n === undefined ? '
 export async function* exportSelectionCsv(user: SessionUser, query: z.infer<typeof runListQuerySchema>, units: 'si' | 'us'): AsyncGenerator<string> {
   const runs = await selectedRuns(user, query);
   const us = units === 'us';
-  yield `${['run_id', 'recorded_at', 'joint', 'method', 'lubricant', 'operator', 'cohort', 'status', 'step', 'pass', 'tightened_position', 'position', us ? 'load_lbf' : 'load_N', us ? 'applied_torque_ft-lb' : 'applied_torque_Nm', 'applied_pressure_bar', 'time_s'].join(',')}\r\n`;
-  const meta = new Map(runs.map((r) => [r.id, [String(r.id), r.recordedAt, r.joint, r.method, r.lubricant, r.operator, r.cohort, r.status].map(neutraliseCsvCell).join(',')]));
+  yield csvRows([['run_id', 'recorded_at', 'joint', 'method', 'lubricant', 'operator', 'cohort', 'status', 'step', 'pass', 'tightened_position', 'position', us ? 'load_lbf' : 'load_N', us ? 'applied_torque_ft-lb' : 'applied_torque_Nm', 'applied_pressure_bar', 'time_s']]);
+  const meta = new Map(runs.map((r): [number, CsvValue[]] => [r.id, [r.id, r.recordedAt, r.joint, r.method, r.lubricant, r.operator, r.cohort, r.status]]));
+  const orNull = (n: number | null) => (n === null ? null : Number(n));
   for await (const rows of readingsOf(runs.map((r) => r.id))) {
-    let chunk = '';
-    for (const row of rows) {
-      const load = us ? Number(row.load_n) / NEWTONS_PER_LBF : Number(row.load_n);
-      const torque = row.applied_torque_nm == null ? '' : String(nmToTorque(Number(row.applied_torque_nm), us ? 'ft-lb' : 'N·m'));
-      chunk += `${meta.get(Number(row.run_id))},${row.step_order},${row.pass_number},${row.tightened},${row.position},${load},${torque},${num(row.applied_pressure_bar)},${num(row.time_s)}\r\n`;
-    }
-    yield chunk;
+    yield csvRows(rows.map((row) => [
+      ...meta.get(Number(row.run_id))!,
+      Number(row.step_order), Number(row.pass_number), Number(row.tightened), Number(row.position),
+      us ? Number(row.load_n) / NEWTONS_PER_LBF : Number(row.load_n),
+      row.applied_torque_nm == null ? null : nmToTorque(Number(row.applied_torque_nm), us ? 'ft-lb' : 'N·m'),
+      orNull(row.applied_pressure_bar), orNull(row.time_s),
+    ]));
   }
 }
 

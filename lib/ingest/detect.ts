@@ -6,7 +6,7 @@
  * The rules are our own heuristics (common practice for CSV sniffing), documented on each export.
  */
 import { AppError } from '@/lib/http/errors';
-import { isNumericText } from './numbers';
+import { decimalSeparatorOf, isNumericText } from './numbers';
 import { clipInput } from './text-limits';
 
 /** Column separators we accept. */
@@ -277,9 +277,9 @@ export function inspectText(input: string): DetectionReport {
       if (l.line < firstDataLine || isBlank(l.text) || isComment(l.text)) continue;
       if (++seen > 50) break;
       for (const c of splitLine(l.text, d)) {
-        const s = c.trim();
-        if (/^[+-]?\d*,\d+$/.test(s)) commas++;
-        else if (/^[+-]?\d*\.\d+$/.test(s)) points++;
+        const separator = decimalSeparatorOf(c);
+        if (separator === 'comma') commas++;
+        else if (separator === 'point') points++;
       }
     }
   }

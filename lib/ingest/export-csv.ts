@@ -2,13 +2,10 @@
  * Normalised CSV export of a run: one row per reading (every stud after every step), in SI or US
  * units. The file is a step table that {@link parseLoggerText} reads back to the same readings.
  *
- * Formula injection (common practice, after the OWASP "CSV Injection" note, from memory): a
- * spreadsheet runs a cell that starts with `=`, `+`, `-`, `@`, tab or CR as a formula. We
- * neutralise **only non-numeric text cells** with such a start by prefixing a single quote `'`;
- * cells that are plain numbers (e.g. `-0.5`, `1e-3`) stay numeric, since a number cannot run as a
- * formula and quoting it would break the round trip and spreadsheet arithmetic.
+ * Cells are written by the one CSV writer, lib/export/write-csv.ts (formula escape rule there).
  */
 import type { NormalisedRun } from '@/lib/record/run-types';
+import { csvRows, type CsvValue } from '@/lib/export/write-csv';
 import { NEWTONS_PER_LBF, nmToTorque } from './units';
 
 /** Unit system of an export. */
@@ -18,27 +15,6 @@ export type ExportUnits = 'si' | 'us';
 export interface RunCsvMeta {
   /** Run identifier written on every row (text is neutralised like any cell). */
   runId: string | number;
-}
-
-const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-const FORMULA_START = /^[=+\-@\t\r]/;
-
-/**
- * Makes one cell safe and valid CSV: a non-numeric cell starting with `=`, `+`, `-`, `@`, tab or
- * CR gets a leading `'`; then cells with a comma, quote, CR, LF or edge spaces are quoted (RFC 4180).
- *
- * @example neutraliseCsvCell('=HYPERLINK("x")') // `"'=HYPERLINK(""x"")"`
- * @example neutraliseCsvCell('-12.5') // `-12.5`
- */
-export function neutraliseCsvCell(value: string): string {
-  let cell = value;
-  if (!PLAIN_NUMBER.test(cell) && FORMULA_START.test(cell)) cell = `'${cell}`;
-  if (/[",\r\n]/.test(cell) || cell !== cell.trim()) cell = `"${cell.replace(/"/g, '""')}"`;
-  return cell;
-}
-
-function numberCell(n: number | null | undefined): string {
-  return n === null || n === undefined ? '' : String(n);
 }
 
 /**
@@ -51,15 +27,12 @@ function numberCell(n: number | null | undefined): string {
  */
 export function runToCsv(run: NormalisedRun, meta: RunCsvMeta, units: ExportUnits): string {
   const us = units === 'us';
-  const header = ['run_id', 'step', 'pass', 'tightened_position', 'position', us ? 'load_lbf' : 'load_N', us ? 'applied_torque_ft-lb' : 'applied_torque_Nm', 'applied_pressure_bar', 'time_s'];
-  const lines = [header.join(',')];
-  const runId = neutraliseCsvCell(String(meta.runId));
+  const rows: CsvValue[][] = [['run_id', 'step', 'pass', 'tightened_position', 'position', us ? 'load_lbf' : 'load_N', us ? 'applied_torque_ft-lb' : 'applied_torque_Nm', 'applied_pressure_bar', 'time_s']];
   for (const step of run.steps) {
-    const torque = step.appliedTorqueNm == null ? '' : numberCell(nmToTorque(step.appliedTorqueNm, us ? 'ft-lb' : 'N·m'));
+    const torque = step.appliedTorqueNm == null ? null : nmToTorque(step.appliedTorqueNm, us ? 'ft-lb' : 'N·m');
     step.loadsN.forEach((loadN, i) => {
-      const load = us ? loadN / NEWTONS_PER_LBF : loadN;
-      lines.push([runId, String(step.order), String(step.pass), String(step.position), String(i + 1), numberCell(load), torque, numberCell(step.appliedPressureBar), numberCell(step.timeS)].join(','));
+      rows.push([meta.runId, step.order, step.pass, step.position, i + 1, us ? loadN / NEWTONS_PER_LBF : loadN, torque, step.appliedPressureBar, step.timeS]);
     });
   }
-  return `${lines.join('\r\n')}\r\n`;
+  return csvRows(rows);
 }

@@ -8,6 +8,7 @@
  * holds a time stamp and a few dozen numbers, well under a thousand characters).
  */
 import { AppError } from '@/lib/http/errors';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** Longest physical line accepted, in characters. */
 export const MAX_LINE_CHARS = 16_384;
@@ -36,7 +37,7 @@ export function clipInput(text: string, max = QUOTE_CHARS): string {
   return trimmed.length > max ? `${trimmed.slice(0, max)}…` : trimmed;
 }
 
-const formatCount = (n: number) => n.toLocaleString('en-US');
+const formatCount = (n: number) => formatDecimals(n, 0);
 
 /**
  * Checks line lengths and runs of blank lines in one pass (no allocation).

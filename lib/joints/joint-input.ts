@@ -7,6 +7,7 @@ import { STANDARD_THREADS, threadGeometry, threadSpecSchema, type ThreadGeometry
 import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
 import { gradeIdOf } from './joint-properties';
+import { parseNumberText } from '@/lib/format/parse-number';
 
 /**
  * The joint form as pure functions, shared by the form (live target and messages) and the server
@@ -38,12 +39,8 @@ export function threadChoiceOf(spec: ThreadSpec): string {
   return std ? std.id : CUSTOM_THREAD;
 }
 
-/** Parses typed text: commas and spaces ignored; empty or unreadable text gives NaN. */
-export function numberFromText(text: string | undefined | null): number {
-  const cleaned = (text ?? '').replace(/[,\s\u00a0]/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(cleaned)) return Number.NaN;
-  return Number(cleaned);
-}
+/** Typed text read by the one number parser (lib/format/parse-number.ts); empty or unreadable text gives NaN. */
+export const numberFromText = parseNumberText;
 
 /** What the target section shows and the server stores. */
 export interface JointTargetInput {

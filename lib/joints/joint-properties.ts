@@ -1,6 +1,6 @@
 import { GRADES, gradeProperties, type GradeId } from '@/lib/calc/grades';
 import { threadGeometry, type ThreadSpec } from '@/lib/calc/thread';
-import { MM_PER_IN } from '@/lib/calc/units';
+import { formatDecimals, MM_PER_IN } from '@/lib/calc/units';
 
 /**
  * Facts about a stored joint, worked out in one place: its thread spec, its stud diameter in
@@ -95,7 +95,7 @@ export function maxBelievableStudLoad(joint: StoredJointStrength): { maxStudLoad
     const minTensileN = props.tensileMpa * geometry.tensileStressAreaMm2;
     return {
       maxStudLoadN: ABSURD_LOAD_MARGIN * minTensileN,
-      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${+(minTensileN / 1000).toFixed(1)} kN (${props.label})`,
+      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${formatDecimals(minTensileN / 1000, 1, 0)} kN (${props.label})`,
     };
   } catch {
     return { maxStudLoadN: 3 * joint.targetLoadN, source: `3 × the joint's target load (the stud grade "${joint.studGrade}" is not in our table)` };

@@ -1,8 +1,24 @@
 /** The hand-entry grid's payload, validated with zod on the server. Browser-safe. */
 import { z } from 'zod';
+import { readNumber } from '@/lib/format/parse-number';
 
 export const MANUAL_UNITS = ['kN', 'N', 'lbf'] as const;
 export type ManualUnit = (typeof MANUAL_UNITS)[number];
+
+/**
+ * One cell of the grid: what the person typed, read by the one number parser
+ * (lib/format/parse-number.ts: "1,500" is 1500, "1,5" is 1.5), or a number; blank is null.
+ */
+export const manualCellSchema = z
+  .union([z.number().finite(), z.string().max(40, 'A load has at most 40 characters.'), z.null()])
+  .transform((cell, ctx): number | null => {
+    if (typeof cell !== 'string') return cell;
+    const reading = readNumber(cell);
+    if (reading.kind === 'number') return reading.value;
+    if (reading.kind === 'empty') return null;
+    ctx.addIssue({ code: 'custom', message: `"${cell.trim()}" ${reading.reason}. Type digits, with a point or comma for decimals.` });
+    return z.NEVER;
+  });
 
 export const manualEntrySchema = z.object({
   header: z.record(z.string(), z.unknown()),
@@ -11,7 +27,7 @@ export const manualEntrySchema = z.object({
    * One row per step, in order: the loads of every stud (index 0 = position 1) read after that
    * step. Blank cells are null; a row may be left wholly blank only at the end (run stopped early).
    */
-  rows: z.array(z.array(z.number().finite().nullable())).min(1, 'Enter the loads of at least one step.').max(2000, 'At most 2,000 steps.'),
+  rows: z.array(z.array(manualCellSchema)).min(1, 'Enter the loads of at least one step.').max(2000, 'At most 2,000 steps.'),
 });
 
 export type ManualEntry = z.infer<typeof manualEntrySchema>;

@@ -3,6 +3,9 @@ import { createRng } from '@/lib/sim/random';
 import {
   barToPsi,
   formatArea,
+  formatDecimals,
+  formatInputValue,
+  formatPercentFixed,
   formatForce,
   formatLength,
   formatNumber,
@@ -124,5 +127,26 @@ describe('format helpers', () => {
 
   it('accept a number of significant figures', () => {
     expect(formatForce(81_313, 'si', { sig: 4 })).toBe(`81.31${SP}kN`);
+  });
+});
+
+// Expected values: the decimal rounding of ECMA-402 Intl.NumberFormat (en-US grouping, half away
+// from zero), worked by hand; these replace private toFixed/toLocaleString formatters.
+describe('formatDecimals and formatPercentFixed', () => {
+  it('rounds to fixed decimals with thousands separators', () => {
+    expect(formatDecimals(1234.56, 1)).toBe('1,234.6');
+    expect(formatDecimals(24.8, 2, 0)).toBe('24.8');
+    expect(formatDecimals(69.5, 0)).toBe('70');
+    expect(formatDecimals(0.9, 3)).toBe('0.900');
+    expect(formatDecimals(Number.NaN, 1)).toBe('—');
+  });
+
+  it('writes percentages with a true minus sign, a plus on request, and no sign on a rounded zero', () => {
+    expect(formatPercentFixed(97)).toBe('97.0\u00a0%');
+    expect(formatPercentFixed(3, { signed: true })).toBe('+3.0\u00a0%');
+    expect(formatPercentFixed(-3)).toBe('\u22123.0\u00a0%');
+    expect(formatPercentFixed(-0.04, { signed: true })).toBe('0.0\u00a0%');
+    expect(formatPercentFixed(12.375, { decimals: 2 })).toBe('12.38\u00a0%'); // 12.375 is exact in binary: a true tie
+    expect(formatInputValue(1234.56789, 6)).toBe('1234.57');
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
-import { neutraliseCsvCell, runToCsv } from '@/lib/ingest/export-csv';
+import { runToCsv } from '@/lib/ingest/export-csv';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import { FOUR_STUD_JOINT } from './joints';
@@ -40,20 +40,6 @@ describe('runToCsv', () => {
       if (o.appliedTorqueNm == null) expect(s.appliedTorqueNm).toBeNull();
       else expect(Math.abs(s.appliedTorqueNm! - o.appliedTorqueNm)).toBeLessThanOrEqual(1e-12 * o.appliedTorqueNm);
     });
-  });
-
-  it('neutralises text cells that a spreadsheet would run as a formula, but keeps negative numbers', () => {
-    expect(neutraliseCsvCell('=1+1')).toBe("'=1+1");
-    expect(neutraliseCsvCell('+SUM(A1)')).toBe("'+SUM(A1)");
-    expect(neutraliseCsvCell('-2+3')).toBe("'-2+3");
-    expect(neutraliseCsvCell('@cmd')).toBe("'@cmd");
-    expect(neutraliseCsvCell('\tx')).toBe("'\tx");
-    expect(neutraliseCsvCell('\r=x')).toBe("\"'\r=x\"");
-    expect(neutraliseCsvCell('=HYPERLINK("http://x","y")')).toBe('"\'=HYPERLINK(""http://x"",""y"")"');
-    expect(neutraliseCsvCell('-12.5')).toBe('-12.5');
-    expect(neutraliseCsvCell('-1e-3')).toBe('-1e-3');
-    expect(neutraliseCsvCell('+4')).toBe('+4');
-    expect(neutraliseCsvCell('run 7')).toBe('run 7');
   });
 
   it('a hostile run id is neutralised on every row and survives CSV parsing as text', () => {

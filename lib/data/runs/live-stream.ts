@@ -23,6 +23,7 @@ import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { Joint, Run } from '@/models';
 import { appendSteps, refreshRunFigures, storeRun } from './store-run';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** Creates an empty run in status "recording" (source live) for the bridge to stream into. */
 export async function startRecording(user: SessionUser, headerInput: unknown): Promise<{ runId: number }> {
@@ -70,7 +71,7 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
       const { t, stud, load } = r.data;
       if (stud > run.studCount) throw new AppError('invalid_input', `Line ${line}, field "stud": position ${stud} is not on this joint (studs 1 to ${run.studCount}).`, { row: line, column: 'stud' });
       if (load < floorN) throw new AppError('invalid_input', `Line ${line}, field "load": ${load} N is negative beyond gauge noise (5 % of target). Check the bridge's zero and unit (newtons).`, { row: line, column: 'load' });
-      if (load > maxStudLoadN) throw new AppError('invalid_input', `Line ${line}, field "load": ${load} N is above the limit of ${+(maxStudLoadN / 1000).toFixed(2)} kN (${source}). The bridge sends newtons: check the unit.`, { row: line, column: 'load' });
+      if (load > maxStudLoadN) throw new AppError('invalid_input', `Line ${line}, field "load": ${load} N is above the limit of ${formatDecimals(maxStudLoadN / 1000, 2, 0)} kN (${source}). The bridge sends newtons: check the unit.`, { row: line, column: 'load' });
       readings.push(r.data);
       if (readings.length > STREAM_MAX_READINGS) throw new AppError('too_large', `At most ${STREAM_MAX_READINGS} readings per request; send smaller batches.`);
     }

@@ -8,8 +8,9 @@ import { planSteps } from '@/lib/record/step-plan';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { storeRun } from './store-run';
+import { formatDecimals } from '@/lib/calc/units';
 
-const fmtKn = (n: number) => `${+(n / 1000).toFixed(2)} kN`;
+const fmtKn = (n: number) => `${formatDecimals(n / 1000, 2, 0)} kN`;
 
 /**
  * Saves a run typed into the grid (source 'manual', status complete) in one transaction. The step
@@ -24,7 +25,11 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
   const parsed = manualEntrySchema.safeParse(input);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
-    throw new AppError('invalid_input', issue?.message ?? 'The grid is not valid.', { field: String(issue?.path[0] ?? 'rows') });
+    const [field = 'rows', row, column] = issue?.path ?? [];
+    if (field === 'rows' && typeof row === 'number' && typeof column === 'number') {
+      throw new AppError('invalid_input', `Row ${row + 1}, stud ${column + 1}: ${issue!.message}`, { row: row + 1, column: `Stud ${column + 1}` });
+    }
+    throw new AppError('invalid_input', issue?.message ?? 'The grid is not valid.', { field: String(field) });
   }
   const { header: headerInput, unit, rows } = parsed.data;
   const resolved = await resolveRunHeader(user, headerInput, 'manual', 'complete');
