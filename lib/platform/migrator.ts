@@ -8,7 +8,7 @@ export interface SeedContext {
 }
 export type Seeder = MigrationFn<SeedContext>;
 
-const root = path.resolve(__dirname, '..');
+const root = path.resolve(__dirname, '../..');
 
 /**
  * Loads a migration file with this module's own `import()`, so whichever loader runs us (tsx for
