@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { useEffect, useRef, useState } from 'react';
 import { formatForce } from '@/lib/calc/units';
 import type { RecordJoint, RememberedMapping } from '@/lib/data/record';
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 import { LOAD_UNITS, TORQUE_UNITS } from '@/lib/ingest/units';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import { jointForImport } from '@/lib/record/joint-import';
