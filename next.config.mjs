@@ -17,6 +17,11 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'mariadb'],
   poweredByHeader: false,
   reactStrictMode: true,
+  turbopack: {
+    // @stdlib's statistics probe for generators with `new Function`; in the browser that probe is a
+    // CSP violation (no 'unsafe-eval'), so the browser bundle gets an answer without eval.
+    resolveAlias: { '@stdlib/assert-has-generator-support': { browser: './lib/platform/browser-has-generator-support.cjs' } },
+  },
   experimental: {
     // Server actions carry form fields only (files go to /api/uploads); proxy.ts answers 413 above
     // this size (SERVER_ACTION_BODY_LIMIT_BYTES) before Next reads the body.

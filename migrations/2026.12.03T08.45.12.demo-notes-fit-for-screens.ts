@@ -33,7 +33,9 @@ async function rewrite(qi: Parameters<Migration>[0]['context'], direction: 'up' 
     for (const [table, pairs] of Object.entries(NOTES)) {
       for (const [before, after] of pairs) {
         const [from, to] = direction === 'up' ? [before, after] : [after, before];
-        await qi.sequelize.query(`UPDATE ${table} SET notes = ? WHERE notes = ?`, { type: QueryTypes.UPDATE, replacements: [to, from], transaction });
+        // CONVERT: a database created with a latin1 default cannot compare its notes with these
+        // utf8mb4 texts directly (and cannot hold them, so nothing matches there).
+        await qi.sequelize.query(`UPDATE ${table} SET notes = ? WHERE CONVERT(notes USING utf8mb4) = ?`, { type: QueryTypes.UPDATE, replacements: [to, from], transaction });
       }
     }
     // Demo runs: "Attempt 3. Invented demo run." becomes "Attempt 3."; the attempt-less one "Demonstration run.".

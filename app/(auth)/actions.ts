@@ -1,28 +1,21 @@
 'use server';
 
-import { failureState, type ActionState } from '@/lib/http/form-state';
+import { okState } from '@/lib/http/form-state';
+import { withPublicAction } from '@/lib/http/server-action';
 import { RESET_REQUESTED_MESSAGE, requestPasswordReset, setPasswordWithToken } from '@/lib/data/invitations';
 import type { TokenPurpose } from '@/models/one-time-token';
 
-export async function setPasswordAction(token: string, purpose: TokenPurpose, _previous: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const name = form.get('name');
-    const { email } = await setPasswordWithToken(token, purpose, {
-      ...(typeof name === 'string' ? { name } : {}),
-      password: String(form.get('password') ?? ''),
-      confirm: String(form.get('confirm') ?? ''),
-    });
-    return { ok: true, message: 'Password set. Signing you in…', data: { email } };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+export const setPasswordAction = withPublicAction(async (form, token: string, purpose: TokenPurpose) => {
+  const name = form.get('name');
+  const { email } = await setPasswordWithToken(token, purpose, {
+    ...(typeof name === 'string' ? { name } : {}),
+    password: String(form.get('password') ?? ''),
+    confirm: String(form.get('confirm') ?? ''),
+  });
+  return okState('Password set. Signing you in…', { email });
+});
 
-export async function requestResetAction(_previous: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    await requestPasswordReset(form.get('email'));
-    return { ok: true, message: RESET_REQUESTED_MESSAGE };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+export const requestResetAction = withPublicAction(async (form) => {
+  await requestPasswordReset(form.get('email'));
+  return okState(RESET_REQUESTED_MESSAGE);
+});

@@ -1,15 +1,11 @@
 'use server';
 
-import { failureState, type ActionState } from '@/lib/http/form-state';
+import { okState } from '@/lib/http/form-state';
+import { ANY_SIGNED_IN, withActionRole } from '@/lib/http/server-action';
 import { endOwnSessions } from '@/lib/data/people';
-import { getSessionUser } from '@/lib/auth/session';
 
 /** "Sign out everywhere" from the user menu: every session of the signed-in person ends (the browser then signs out). */
-export async function signOutEverywhereAction(_previous: ActionState, _form: FormData): Promise<ActionState> {
-  try {
-    await endOwnSessions(await getSessionUser());
-    return { ok: true, message: 'Signed out everywhere.' };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+export const signOutEverywhereAction = withActionRole(ANY_SIGNED_IN, async (user) => {
+  await endOwnSessions(user);
+  return okState('Signed out everywhere.');
+});

@@ -5,7 +5,7 @@ import { SignOutButton, SignOutEverywhereButton } from '@/components/shell/sign-
 import { Wordmark } from '@/components/shell/wordmark';
 import { demoDataLoaded } from '@/lib/data/demo-data';
 import { requirePageUser } from '@/lib/auth/session';
-import { DEMO_NOTICE } from '@/lib/sim/demo-scenario';
+import { DEMO_NOTICE } from '@/lib/demo/notice';
 
 export default async function LabLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser();

@@ -2,15 +2,16 @@
 
 import { useActionState } from 'react';
 import { saveCriteriaAction } from '@/app/(lab)/cohorts/actions';
-import { IDLE_STATE } from '@/lib/http/form-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import type { AssessmentCriteria } from '@/lib/assessment/criteria';
-import { FieldError, FormMessage } from '../ui/field-error';
+import { FieldError } from '../ui/field-error';
+import { FormMessage } from '../ui/form-message';
 
 const input = 'mt-1 w-28 rounded-md border border-rule bg-paper px-3 py-1.5 text-right text-ink num';
 
 export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number; criteria: AssessmentCriteria & { version: number }; limits: Record<'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', { min: number; max: number }> }) {
-  const [state, action, pending] = useActionState(saveCriteriaAction.bind(null, cohortId), IDLE_STATE);
+  const [state, action, pending] = useActionState(saveCriteriaAction.bind(null, cohortId), IDLE_FORM_STATE);
   const numberField = (name: 'bandPercent' | 'maxCvPercent' | 'maxYieldPercent', label: string, hint: string) => (
     <div>
       <label htmlFor={name} className="block text-sm font-medium">{label}</label>
@@ -19,7 +20,7 @@ export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number;
         <span className="text-sm">%</span>
       </span>
       <p id={`${name}-hint`} className="text-xs text-muted">{hint} Allowed {limits[name].min}–{limits[name].max} %.</p>
-      <FieldError id={`${name}-error`} messages={state.errors?.[name]} />
+      <FieldError id={`${name}-error`} messages={state.fieldErrors?.[name]} />
     </div>
   );
   return (
@@ -36,7 +37,7 @@ export function CriteriaForm({ cohortId, criteria, limits }: { cohortId: number;
         <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 font-medium text-accent-ink disabled:opacity-60">
           {pending ? 'Saving…' : 'Save criteria'}
         </button>
-        <FormMessage ok={state.ok} message={state.message} />
+        <FormMessage status={state.status} message={state.message} />
       </div>
     </form>
   );

@@ -56,17 +56,6 @@ export function TextField({ label, name, value, onChange, errors, unit, hint, op
   );
 }
 
-/** The form-level message: what happened, in a live region at the top of the form. */
-export function FormMessage({ status, message }: { status: 'idle' | 'error' | 'saved'; message: string | null }) {
-  return (
-    <div aria-live="polite" role="status">
-      {message && status !== 'idle' ? (
-        <p className={`rounded-md border bg-panel p-3 text-sm ${status === 'error' ? 'border-danger text-danger' : 'border-good text-good'}`}>{message}</p>
-      ) : null}
-    </div>
-  );
-}
-
 export function Section({ title, children, aside }: { title: string; children: ReactNode; aside?: ReactNode }) {
   return (
     <section className="rounded-card border border-rule bg-panel p-4">

@@ -7,13 +7,14 @@ import { GRADES } from '@/lib/calc/grades';
 import { TARGET_PERCENT_HINT } from '@/lib/calc/preload';
 import { STANDARD_THREADS } from '@/lib/calc/thread';
 import { formatArea, formatForce, formatInputValue, formatPercent, formatStress, INPUT_UNIT, toInputUnit, type UnitSystem } from '@/lib/calc/units';
-import { INITIAL_FORM_STATE, type LibraryFormState } from '@/lib/joints/form-state';
+import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
+import { FormMessage } from '../ui/form-message';
 import { CUSTOM_THREAD, jointTarget, numberFromText, STUD_COUNT_RANGE, targetInputFromForm, threadChoiceOf, type TargetMode } from '@/lib/joints/joint-input';
 import type { JointDetail } from '@/lib/data/joints';
 import { FlangeDiagram } from './flange-diagram';
-import { FieldMessage, FormMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
+import { FieldMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
 
-type Action = (state: LibraryFormState, formData: FormData) => Promise<LibraryFormState>;
+type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 
 interface PositionRow {
   factor: string;
@@ -46,13 +47,13 @@ function initialValues(joint: JointDetail | undefined, units: UnitSystem) {
  * The server recomputes the target from the same inputs; what is shown here is a preview.
  */
 export function JointForm({ joint, units, action }: { joint?: JointDetail; units: UnitSystem; action: Action }) {
-  const [state, formAction, pending] = useActionState(action, INITIAL_FORM_STATE);
+  const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   const [v, setV] = useState(() => initialValues(joint, units));
   const [rows, setRows] = useState<PositionRow[]>(() =>
     (joint?.positions ?? []).map((p) => ({ factor: String(p.calibrationFactor), note: p.note ?? '' })),
   );
   const set = (key: keyof typeof v) => (value: string) => setV((old) => ({ ...old, [key]: value }));
-  const errors = state.errors;
+  const errors = state.fieldErrors ?? {};
   const hasRuns = (joint?.runCount ?? 0) > 0;
 
   const studCount = numberFromText(v.studCount);
@@ -74,7 +75,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
     <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={joint ? `Edit joint ${joint.name}` : 'New joint'}>
       <input type="hidden" name="units" value={units} />
       {joint ? <input type="hidden" name="version" value={joint.version} /> : null}
-      <FormMessage status={state.status} message={state.message} />
+      <FormMessage status={state.status} message={state.message} banner />
 
       <Section title="Flange and studs">
         <div className="flex flex-wrap gap-4">

@@ -2,23 +2,24 @@
 
 import Link from 'next/link';
 import { useActionState, useState } from 'react';
-import { INITIAL_FORM_STATE, type LibraryFormState } from '@/lib/joints/form-state';
+import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
+import { FormMessage } from '../ui/form-message';
 import type { LubricantSummary } from '@/lib/data/joints';
-import { FieldMessage, FormMessage, INPUT_CLASS, Section, TextField } from './form-controls';
+import { FieldMessage, INPUT_CLASS, Section, TextField } from './form-controls';
 
-type Action = (state: LibraryFormState, formData: FormData) => Promise<LibraryFormState>;
+type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 
 /** The lubricant form: name, nominal nut factor K (0.05–0.60) and notes. */
 export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSummary; action: Action }) {
-  const [state, formAction, pending] = useActionState(action, INITIAL_FORM_STATE);
+  const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   const [name, setName] = useState(lubricant?.name ?? '');
   const [k, setK] = useState(lubricant ? String(lubricant.nominalNutFactor) : '');
   const [notes, setNotes] = useState(lubricant?.notes ?? '');
-  const errors = state.errors;
+  const errors = state.fieldErrors ?? {};
   return (
     <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={lubricant ? `Edit lubricant ${lubricant.name}` : 'New lubricant'}>
       {lubricant ? <input type="hidden" name="version" value={lubricant.version} /> : null}
-      <FormMessage status={state.status} message={state.message} />
+      <FormMessage status={state.status} message={state.message} banner />
       <Section title="Lubricant">
         <div className="flex flex-wrap gap-4">
           <TextField label="Lubricant name" name="name" value={name} onChange={setName} errors={errors.name} width="w-80" />

@@ -2,13 +2,14 @@
 
 import Link from 'next/link';
 import { useActionState, useState } from 'react';
-import { INITIAL_FORM_STATE, type LibraryFormState } from '@/lib/joints/form-state';
+import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
+import { FormMessage } from '../ui/form-message';
 import { numberFromText, STUD_COUNT_RANGE } from '@/lib/joints/joint-input';
 import { generatedOrder, MAX_CHECK_PASSES, MAX_PASSES, orderText, parseOrderText, passOrderMessage, TOOL_KINDS, TOOL_LABELS } from '@/lib/joints/method-input';
 import type { MethodSummary } from '@/lib/data/joints';
-import { FieldMessage, FormMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
+import { FieldMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
 
-type Action = (state: LibraryFormState, formData: FormData) => Promise<LibraryFormState>;
+type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 
 interface PassRow {
   percent: string;
@@ -22,7 +23,7 @@ interface PassRow {
  * the number of check passes.
  */
 export function MethodForm({ method, studCounts: libraryCounts, action }: { method?: MethodSummary; studCounts: number[]; action: Action }) {
-  const [state, formAction, pending] = useActionState(action, INITIAL_FORM_STATE);
+  const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   const [name, setName] = useState(method?.name ?? '');
   const [toolKind, setToolKind] = useState<string>(method?.toolKind ?? 'manual_torque_wrench');
   const [checkPasses, setCheckPasses] = useState(String(method?.checkPasses ?? 0));
@@ -42,7 +43,7 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
   );
   const [newCount, setNewCount] = useState('');
   const [countMessage, setCountMessage] = useState<string | null>(null);
-  const errors = state.errors;
+  const errors = state.fieldErrors ?? {};
 
   const updatePass = (index: number, change: (row: PassRow) => PassRow) => setPasses((rows) => rows.map((r, i) => (i === index ? change(r) : r)));
   const generate = (index: number, pattern: 'cross' | 'circular') =>
@@ -75,7 +76,7 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
       <input type="hidden" name="passCount" value={passes.length} />
       {method ? <input type="hidden" name="version" value={method.version} /> : null}
       <input type="hidden" name="studCounts" value={counts.join(',')} />
-      <FormMessage status={state.status} message={state.message} />
+      <FormMessage status={state.status} message={state.message} banner />
       {method && method.runCount > 0 ? (
         <p className="text-sm text-muted">{method.runCount} runs used this method; changes apply to new runs only (each run keeps the steps it recorded).</p>
       ) : null}

@@ -2,10 +2,10 @@
 
 import { useActionState } from 'react';
 import { changeRoleAction, endSessionsAction, setActiveAction } from '@/app/(lab)/people/actions';
-import { IDLE_STATE } from '@/lib/http/form-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import type { Role } from '@/models/user';
-import { FormMessage } from '../ui/field-error';
+import { FormMessage } from '../ui/form-message';
 
 const ROLE_OPTIONS: { value: Role; label: string }[] = [
   { value: 'trainee', label: 'Trainee' },
@@ -15,9 +15,9 @@ const ROLE_OPTIONS: { value: Role; label: string }[] = [
 ];
 
 export function PersonControls({ userId, name, role, isActive, isSelf }: { userId: number; name: string; role: Role; isActive: boolean; isSelf: boolean }) {
-  const [roleState, roleAction, rolePending] = useActionState(changeRoleAction.bind(null, userId), IDLE_STATE);
-  const [activeState, activeAction, activePending] = useActionState(setActiveAction.bind(null, userId, !isActive), IDLE_STATE);
-  const [endState, endAction, endPending] = useActionState(endSessionsAction.bind(null, userId), IDLE_STATE);
+  const [roleState, roleAction, rolePending] = useActionState(changeRoleAction.bind(null, userId), IDLE_FORM_STATE);
+  const [activeState, activeAction, activePending] = useActionState(setActiveAction.bind(null, userId, !isActive), IDLE_FORM_STATE);
+  const [endState, endAction, endPending] = useActionState(endSessionsAction.bind(null, userId), IDLE_FORM_STATE);
   if (isSelf) return <span className="text-xs text-muted">Your own account: another admin changes its role.</span>;
   const state = endState.message ? endState : activeState.message ? activeState : roleState;
   return (
@@ -39,7 +39,7 @@ export function PersonControls({ userId, name, role, isActive, isSelf }: { userI
           <button type="submit" disabled={endPending} className="rounded-md border border-rule px-2 py-1 text-sm hover:bg-rule/60">Sign out everywhere</button>
         </form>
       ) : null}
-      <FormMessage ok={state.ok} message={state.message} />
+      <FormMessage status={state.status} message={state.message} />
     </div>
   );
 }

@@ -6,7 +6,8 @@ import { saveManualRunAction } from '@/app/(lab)/record/actions';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RecordJoint, RecordMethod } from '@/lib/data/record';
 import { loadToN } from '@/lib/ingest/units';
-import { initialRecordState } from '@/lib/record/action-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import type { RecordFormState } from '@/app/(lab)/record/actions';
 import { readNumber } from '@/lib/format/parse-number';
 import { MANUAL_UNITS, type ManualUnit } from '@/lib/record/manual-entry-schema';
 import { planSteps } from '@/lib/record/step-plan';
@@ -24,11 +25,11 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
   const N = joint.studCount;
   const [unit, setUnit] = useState<ManualUnit>(units === 'us' ? 'lbf' : 'kN');
   const [cells, setCells] = useState<string[][]>(() => plan.steps.map(() => Array.from({ length: N }, () => '')));
-  const [state, formAction, pending] = useActionState(async (prev: typeof initialRecordState, formData: FormData) => {
+  const [state, formAction, pending] = useActionState(async (prev: RecordFormState, formData: FormData) => {
     const result = await saveManualRunAction(prev, formData);
-    onHeaderErrors(result.errors);
+    onHeaderErrors(result.fieldErrors ?? {});
     return result;
-  }, initialRecordState);
+  }, IDLE_FORM_STATE);
 
   if (plan.problem) return <p className="text-sm text-danger">{plan.problem}</p>;
 
@@ -137,8 +138,8 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
         <div aria-live="polite" className="text-sm">
           {firstBad ? <p className="text-danger">Step {firstBad.i + 1}, stud {firstBad.j + 1}: &ldquo;{cells[firstBad.i]![firstBad.j]!.trim()}&rdquo; {firstBad.reason}. Type digits, with a point or comma for decimals (1,500 is fifteen hundred; 1,5 is one and a half).</p> : null}
           {state.message ? (
-            <p className={state.ok ? 'text-good' : 'text-danger'} role={state.ok ? 'status' : 'alert'}>
-              {state.message} {state.ok && state.runId ? <Link className="underline" href={`/runs/${state.runId}`}>Open run {state.runId}</Link> : null}
+            <p className={state.status === 'ok' ? 'text-good' : 'text-danger'} role={state.status === 'ok' ? 'status' : 'alert'}>
+              {state.message} {state.status === 'ok' && state.data?.runId ? <Link className="underline" href={`/runs/${state.data?.runId}`}>Open run {state.data?.runId}</Link> : null}
             </p>
           ) : null}
         </div>

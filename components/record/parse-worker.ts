@@ -5,7 +5,8 @@
  * page. The server parses the raw file again on upload; this result is a preview.
  */
 import { isAppError } from '@/lib/http/errors';
-import { assertTextFile, inspectText } from '@/lib/ingest/detect';
+import { inspectText } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { parseLoggerText, PREVIEW_ROWS, SAMPLE_ROWS, streamTableRows } from '@/lib/ingest/parse-text';
 import { proposeMappingWithNotes } from '@/lib/ingest/shapes';
 import type { ParsedPreview, ParseRequest, ParseResponse } from './parse-messages';

@@ -3,7 +3,8 @@
 import Link from 'next/link';
 import { startTransition, useActionState, useState, type FormEvent } from 'react';
 import { saveSimulatedRunAction } from '@/app/(lab)/record/actions';
-import { initialRecordState } from '@/lib/record/action-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import type { RecordFormState } from '@/app/(lab)/record/actions';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 
 const GASKETS = [
@@ -16,11 +17,11 @@ const GASKETS = [
 export function SimulatePanel({ header, onHeaderErrors }: { header: HeaderState; onHeaderErrors: (e: HeaderErrors) => void }) {
   const [gasket, setGasket] = useState<(typeof GASKETS)[number]['value']>('medium');
   const [seed, setSeed] = useState(() => String(1 + Math.floor(Math.random() * 999_999)));
-  const [state, formAction, pending] = useActionState(async (prev: typeof initialRecordState, formData: FormData) => {
+  const [state, formAction, pending] = useActionState(async (prev: RecordFormState, formData: FormData) => {
     const result = await saveSimulatedRunAction(prev, formData);
-    onHeaderErrors(result.errors);
+    onHeaderErrors(result.fieldErrors ?? {});
     return result;
-  }, initialRecordState);
+  }, IDLE_FORM_STATE);
   const payload = JSON.stringify({ header: headerPayload(header), gasket, seed });
   // Submitted in a transition rather than through <form action>, so React does not reset the
   // form's fields after the action (the choices stay as the person left them).
@@ -53,9 +54,9 @@ export function SimulatePanel({ header, onHeaderErrors }: { header: HeaderState;
       </div>
       <p className="text-xs text-muted">The same seed gives the same run.</p>
       <div id="simulate-feedback" aria-live="polite" className="text-sm">
-        {state.errors.seed?.map((e) => <p key={e} className="text-danger">{e}</p>)}
-        {state.message ? <p className={state.ok ? 'text-good' : 'text-danger'}>{state.message}</p> : null}
-        {state.ok && state.runId ? <Link href={`/runs/${state.runId}`} className="underline underline-offset-4">Open run {state.runId}</Link> : null}
+        {state.fieldErrors?.seed?.map((e) => <p key={e} className="text-danger">{e}</p>)}
+        {state.message ? <p className={state.status === 'ok' ? 'text-good' : 'text-danger'}>{state.message}</p> : null}
+        {state.status === 'ok' && state.data?.runId ? <Link href={`/runs/${state.data?.runId}`} className="underline underline-offset-4">Open run {state.data?.runId}</Link> : null}
       </div>
     </form>
   );

@@ -9,7 +9,8 @@ import type { RecordJoint } from '@/lib/data/record';
 import type { StreamTokenRow } from '@/lib/data/stream-tokens';
 import { fetchJson } from '@/lib/http/fetch-json';
 import { formatDateTime } from '@/lib/format/format-date';
-import { initialRecordState } from '@/lib/record/action-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import type { RecordFormState } from '@/app/(lab)/record/actions';
 import type { StreamStatus } from '@/lib/data/runs/live-stream';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 
@@ -28,14 +29,14 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
   units: 'si' | 'us';
 }) {
   const [watching, setWatching] = useState<number | null>(recordings[0]?.id ?? null);
-  const [startState, startAction, starting] = useActionState(async (prev: typeof initialRecordState, fd: FormData) => {
+  const [startState, startAction, starting] = useActionState(async (prev: RecordFormState, fd: FormData) => {
     const r = await startRecordingAction(prev, fd);
-    onHeaderErrors(r.errors);
+    onHeaderErrors(r.fieldErrors ?? {});
     return r;
-  }, initialRecordState);
-  const [finishState, finishAction, finishing] = useActionState(finishRecordingAction, initialRecordState);
+  }, IDLE_FORM_STATE);
+  const [finishState, finishAction, finishing] = useActionState(finishRecordingAction, IDLE_FORM_STATE);
   useEffect(() => {
-    if (startState.ok && startState.runId) setWatching(startState.runId);
+    if (startState.status === 'ok' && startState.data?.runId) setWatching(startState.data?.runId);
   }, [startState]);
   const { data, error } = useSWR<StreamStatus>(watching ? `/api/runs/${watching}/stream` : null, fetchJson, { refreshInterval: (d) => (d && d.status !== 'recording' ? 0 : 1000) });
   const max = Math.max(joint.targetLoadN, ...(data?.latest.map((l) => l.loadN) ?? [0]));
@@ -63,7 +64,7 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
           ) : null}
         </div>
         <div aria-live="polite" className="text-sm">
-          {startState.message ? <p className={startState.ok ? 'text-good' : 'text-danger'}>{startState.message}</p> : null}
+          {startState.message ? <p className={startState.status === 'ok' ? 'text-good' : 'text-danger'}>{startState.message}</p> : null}
         </div>
 
         {watching ? (
@@ -102,8 +103,8 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
             ) : null}
             <div aria-live="polite" className="text-sm">
               {finishState.message ? (
-                <p className={finishState.ok ? 'text-good' : 'text-danger'}>
-                  {finishState.message} {finishState.ok && finishState.runId ? <Link className="underline" href={`/runs/${finishState.runId}`}>Open run {finishState.runId}</Link> : null}
+                <p className={finishState.status === 'ok' ? 'text-good' : 'text-danger'}>
+                  {finishState.message} {finishState.status === 'ok' && finishState.data?.runId ? <Link className="underline" href={`/runs/${finishState.data?.runId}`}>Open run {finishState.data?.runId}</Link> : null}
                 </p>
               ) : null}
             </div>
@@ -119,8 +120,8 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
 }
 
 function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: RecordJoint[]; tokens: StreamTokenRow[] }) {
-  const [createState, createAction, creating] = useActionState(createStreamTokenAction, initialRecordState);
-  const [revokeState, revokeAction] = useActionState(revokeStreamTokenAction, initialRecordState);
+  const [createState, createAction, creating] = useActionState(createStreamTokenAction, IDLE_FORM_STATE);
+  const [revokeState, revokeAction] = useActionState(revokeStreamTokenAction, IDLE_FORM_STATE);
   return (
     <section aria-labelledby="tokens-title" className="space-y-3">
       <h2 id="tokens-title" className="font-semibold">Bridge tokens</h2>
@@ -137,12 +138,12 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
           <input name="label" placeholder="Bay 2 logger" maxLength={120} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5" aria-describedby="token-label-error" />
         </label>
         <button type="submit" className={QUIET} disabled={creating}>Create token</button>
-        <span id="token-label-error" aria-live="polite" className="text-sm text-danger">{createState.errors.label?.[0] ?? createState.errors.jointId?.[0] ?? (!createState.ok ? createState.message : '')}</span>
+        <span id="token-label-error" aria-live="polite" className="text-sm text-danger">{createState.fieldErrors?.label?.[0] ?? createState.fieldErrors?.jointId?.[0] ?? (createState.status !== 'ok' ? createState.message : '')}</span>
       </form>
-      {createState.ok && createState.token ? (
+      {createState.status === 'ok' && createState.data?.token ? (
         <div className="rounded-md border border-caution p-3 text-sm" role="status">
           <p className="font-medium">{createState.message}</p>
-          <code className="mt-1 block break-all rounded bg-paper p-2" data-testid="new-token">{createState.token.value}</code>
+          <code className="mt-1 block break-all rounded bg-paper p-2" data-testid="new-token">{createState.data?.token.value}</code>
         </div>
       ) : null}
       {tokens.length ? (
@@ -162,7 +163,7 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
           </tbody>
         </table>
       ) : <p className="text-sm text-muted">No tokens yet: create one above and give it to the bridge.</p>}
-      <p aria-live="polite" className="text-sm">{revokeState.message ? <span className={revokeState.ok ? 'text-good' : 'text-danger'}>{revokeState.message}</span> : null}</p>
+      <p aria-live="polite" className="text-sm">{revokeState.message ? <span className={revokeState.status === 'ok' ? 'text-good' : 'text-danger'}>{revokeState.message}</span> : null}</p>
     </section>
   );
 }

@@ -1,13 +1,11 @@
 'use client';
 
 import { useActionState } from 'react';
-import type { CommentFormState } from '@/app/(lab)/runs/[id]/actions';
+import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
 import type { RunCommentDto } from '@/lib/data/run-report';
 import { formatDateTime } from '@/lib/format/format-date';
 
-type CommentAction = (state: CommentFormState, formData: FormData) => Promise<CommentFormState>;
-
-const INITIAL: CommentFormState = { ok: false, message: null, errors: {} };
+type CommentAction = (state: FormState, formData: FormData) => Promise<FormState>;
 
 export function CommentPanel({ comments, action }: { comments: RunCommentDto[]; action: CommentAction | null }) {
   return (
@@ -31,15 +29,15 @@ export function CommentPanel({ comments, action }: { comments: RunCommentDto[]; 
 }
 
 function CommentForm({ action }: { action: CommentAction }) {
-  const [state, formAction, pending] = useActionState(action, INITIAL);
+  const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   return (
     <form action={formAction} className="no-print mt-4 space-y-2">
       <label htmlFor="comment-body" className="block text-sm font-medium">Comment for the trainee</label>
       <textarea id="comment-body" name="body" rows={3} maxLength={4000} aria-describedby="comment-feedback"
         className="w-full rounded-md border border-rule bg-paper p-2" placeholder="What went well, what to change next time" />
       <div id="comment-feedback" aria-live="polite" className="text-sm">
-        {state.errors.body?.map((e) => <p key={e} className="text-danger">{e}</p>)}
-        {state.message ? <p className={state.ok ? 'text-good' : 'text-danger'}>{state.message}</p> : null}
+        {state.fieldErrors?.body?.map((e) => <p key={e} className="text-danger">{e}</p>)}
+        {state.message ? <p className={state.status === 'ok' ? 'text-good' : 'text-danger'}>{state.message}</p> : null}
       </div>
       <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
         {pending ? 'Saving…' : 'Add comment'}

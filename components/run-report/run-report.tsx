@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import type { CommentFormState } from '@/app/(lab)/runs/[id]/actions';
+import type { FormState } from '@/lib/http/form-state';
 import type { RunAnalysis } from '@/lib/analysis/types';
 import { formatForce, formatPercent, formatNumber } from '@/lib/calc/units';
 import type { RunCommentDto, RunHeaderDto } from '@/lib/data/run-report';
@@ -26,7 +26,7 @@ interface Props {
   comments: RunCommentDto[];
   units: 'si' | 'us';
   role: Role;
-  commentAction: ((state: CommentFormState, formData: FormData) => Promise<CommentFormState>) | null;
+  commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
 export function RunReport({ header, analysis, comments, units: preferredUnits, role, commentAction }: Props) {

@@ -3,7 +3,7 @@
 import { signOut } from 'next-auth/react';
 import { useState, useTransition } from 'react';
 import { signOutEverywhereAction } from '@/app/(lab)/actions';
-import { IDLE_STATE } from '@/lib/http/form-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 
 const BUTTON = 'rounded-md border border-rule px-3 py-1.5 text-sm hover:bg-rule/60';
 
@@ -21,8 +21,8 @@ export function SignOutEverywhereButton() {
   const [error, setError] = useState<string | null>(null);
   const run = () =>
     startTransition(async () => {
-      const state = await signOutEverywhereAction(IDLE_STATE, new FormData());
-      if (state.ok) await signOut({ callbackUrl: '/sign-in' });
+      const state = await signOutEverywhereAction(IDLE_FORM_STATE, new FormData());
+      if (state.status === 'ok') await signOut({ callbackUrl: '/sign-in' });
       else setError(state.message);
     });
   return (

@@ -6,12 +6,3 @@ export function FieldError({ id, messages }: { id: string; messages?: string[] |
     </p>
   );
 }
-
-/** The form-level message: green-ish for success, danger for failure. */
-export function FormMessage({ ok, message }: { ok: boolean; message: string | null }) {
-  return (
-    <p role="status" aria-live="polite" className={`min-h-5 text-sm ${ok ? 'text-good' : 'text-danger'}`}>
-      {message}
-    </p>
-  );
-}

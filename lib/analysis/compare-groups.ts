@@ -1,73 +1,15 @@
-import { bartlettTest } from '../stats/bartlett-test';
-import { brownForsytheTest } from '../stats/brown-forsythe-test';
-import { cvConfidenceInterval } from '../stats/cv-confidence-interval';
-import { leveneTest } from '../stats/levene-test';
+import { holmAdjust } from '../stats/holm-adjust';
 import { mean } from '../stats/mean';
-import { oneWayAnova } from '../stats/one-way-anova';
-import { readStatisticalResult } from '../stats/read-statistical-result';
 import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
-import { tukeyHsd } from '../stats/tukey-hsd';
-import { welchAnova } from '../stats/welch-anova';
+import { varianceComponents } from '../stats/variance-components';
 import { boxStats } from '../charts/box-stats';
+import { pooledSdLogCv, runCvPairs, runLevelTests, type RawTest, type RunLevelGroup } from './compare-run-tests';
+import { traineeBlocks } from './compare-trainee-blocks';
+import type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary } from './compare-types';
 import type { BoxSummary, ComparisonGroupData } from './types';
 import { formatDecimals } from '@/lib/calc/units';
 
-/** One run as a comparison sees it: its stored per-run profile. */
-export interface ComparedRun {
-  targetLoadN: number;
-  finalLoadsN: number[];
-  /** Drift % per position (null where the stud was never tightened). */
-  driftPercent: (number | null)[];
-}
-
-export interface GroupInput {
-  key: string;
-  label: string;
-  runs: ComparedRun[];
-}
-
-export interface GroupSummary {
-  key: string;
-  label: string;
-  colourIndex: number;
-  runs: number;
-  studs: number;
-  /** Pooled final loads as % of target. */
-  meanPercent: number | null;
-  sdPercent: number | null;
-  cv: number | null;
-  cvInterval: { lower: number; upper: number; confidence: number } | null;
-  /** Mean of the runs' own CVs. */
-  meanRunCv: number | null;
-}
-
-export interface ComparisonTest {
-  /** Which question the test answers, in words. */
-  question: string;
-  name: string;
-  statistic: number;
-  pValue: number;
-  df: string;
-  reading: string;
-}
-
-export interface PairComparison {
-  a: string;
-  b: string;
-  difference: number;
-  pValue: number;
-  lower: number;
-  upper: number;
-}
-
-export interface ComparisonResult {
-  groups: GroupSummary[];
-  chartGroups: ComparisonGroupData[];
-  tests: ComparisonTest[];
-  pairs: PairComparison[];
-  /** Sentences about groups too small for a test to mean much, or tests that could not run. */
-  warnings: string[];
-}
+export type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary, PairComparison } from './compare-types';
 
 /** Dots drawn per group at most; larger groups are drawn from an even sample, with the box from all values. */
 export const MAX_DOTS_PER_GROUP = 400;
@@ -88,46 +30,102 @@ function boxOf(values: readonly number[]): BoxSummary | undefined {
 /** Fewer runs than this in a group make the tests say little (common practice: a handful per group at least). */
 export const SMALL_GROUP_RUNS = 5;
 
-const safeMean = (values: number[]) => (values.length ? mean(values) : null);
-const safeSd = (values: number[]) => (values.length > 1 ? sampleStandardDeviation(values) : null);
+/** The planned outcome when none is chosen: the run CV under unequal variances. */
+export const DEFAULT_PLANNED: ComparisonTestId = 'welch-ln-cv';
 
-function runCv(run: ComparedRun): number | null {
+const safeMean = (values: number[]) => (values.length ? mean(values) : null);
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+const formatP = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${Number(p.toPrecision(2))}`);
+
+/** A run's own figures (% of target), or null when it has fewer than two final loads. */
+function runProfile(run: ComparedRun): { meanPercent: number; sdPercent: number; cv: number } | null {
   if (run.finalLoadsN.length < 2) return null;
   const m = mean(run.finalLoadsN);
-  return m > 0 ? sampleStandardDeviation(run.finalLoadsN) / m : null;
+  const sd = sampleStandardDeviation(run.finalLoadsN);
+  return m > 0 ? { meanPercent: (m / run.targetLoadN) * 100, sdPercent: (sd / run.targetLoadN) * 100, cv: sd / m } : null;
+}
+
+/** Within-run and between-run SDs (% of target) with their 95 % intervals, or null when they cannot be computed. */
+function componentsOf(loadsPercentByRun: number[][]): GroupSummary['components'] {
+  const runs = loadsPercentByRun.filter((r) => r.length >= 2);
+  if (runs.length < 2) return null;
+  try {
+    const vc = varianceComponents(runs, { confidence: 0.95 });
+    const sd = (v: { variance: number; lower: number; upper: number }) => ({ value: Math.sqrt(v.variance), lower: Math.sqrt(v.lower), upper: Math.sqrt(v.upper) });
+    return {
+      withinRunSd: sd(vc.withinRun),
+      betweenRunSd: sd(vc.betweenRun),
+      withinMethod: 'exact chi-square interval',
+      betweenMethod: vc.betweenRun.method === 'modified large-sample' ? 'modified large-sample interval' : 'modified large-sample interval (unweighted means, runs of different sizes)',
+    };
+  } catch {
+    return null;
+  }
+}
+
+/** The reading of a test in words, on its Holm-adjusted p-value. */
+function readingOf(test: RawTest, adjusted: number, subject: string, alpha: number): string {
+  const level = `${Number((alpha * 100).toPrecision(3))} % level`;
+  const numbers = `${test.name}: ${test.statistic.toFixed(2)}, df ${test.df}, ${formatP(test.pValue)}; Holm-adjusted ${formatP(adjusted)}`;
+  return adjusted < alpha
+    ? `${capitalise(test.measure)} differs between ${subject} at the ${level} (${numbers}).`
+    : `No evidence at the ${level} that ${test.measure} differs between ${subject} (${numbers}).`;
 }
 
 /**
- * Compares groups of runs: per-group summaries of the pooled final loads (% of target) with a CI
- * for the CV (Vangel's modified McKay), and the tests that fit the question:
- * - Is the scatter of the final loads different? Levene (mean-centred), Brown–Forsythe (median-
- *   centred) and Bartlett, on the pooled final loads as % of target.
- * - Is the run CV different? One-way ANOVA and Welch's ANOVA on the runs' CVs (the run is the
- *   independent unit), with Tukey–Kramer pairs.
- * Each test carries its reading in plain words. `subject` names the groups ("these methods").
+ * Compares groups of runs with the run as the unit: each run is reduced to its own mean, within-run
+ * SD (% of target) and CV, and the tests compare those run-level values (`runLevelTests`), with
+ * Games–Howell and Tukey–Kramer pairs on ln run CV; operators as blocks in a random-intercept model
+ * (`traineeBlocks`) unless the operators are the groups (`blocks: false`); Holm's adjustment across
+ * all tests of the comparison, one of them labelled planned. Each group shows its variance
+ * components (stud to stud within a run, and run to run). Drift by position is averaged only when
+ * every run has the same stud count. `subject` names the groups ("these methods").
  */
-export function compareGroups(inputs: GroupInput[], options: { subject: string; alpha?: number }): ComparisonResult {
+export function compareGroups(inputs: GroupInput[], options: { subject: string; alpha?: number; planned?: ComparisonTestId; blocks?: boolean }): ComparisonResult {
+  const alpha = options.alpha ?? 0.05;
+  const planned = options.planned ?? DEFAULT_PLANNED;
   const warnings: string[] = [];
+  const attempt = (name: string, run: () => void) => {
+    try {
+      run();
+    } catch (error) {
+      warnings.push(`${name} could not be computed: ${error instanceof Error ? error.message : String(error)}.`);
+    }
+  };
+  const studCounts = [...new Set(inputs.flatMap((g) => g.runs.map((r) => r.finalLoadsN.length)))].filter((n) => n > 0).sort((a, b) => a - b);
   const groups: GroupSummary[] = [];
   const chartGroups: ComparisonGroupData[] = [];
-  const allLoads: number[][] = [];
-  const allCvs: number[][] = [];
+  const runLevel: (RunLevelGroup & { key: string; blocked: { lnCv: number; operator: string | number; attempt: number | null }[] })[] = [];
   inputs.forEach((input, index) => {
-    const loadsPercent = input.runs.flatMap((run) => run.finalLoadsN.map((load) => (load / run.targetLoadN) * 100));
-    const cvs = input.runs.map(runCv).filter((cv): cv is number => cv !== null);
-    const m = safeMean(loadsPercent);
-    const sd = safeSd(loadsPercent);
-    let cvInterval: GroupSummary['cvInterval'] = null;
-    if (loadsPercent.length >= 2 && sd !== null && sd > 0) {
-      const ci = cvConfidenceInterval(loadsPercent, { confidence: 0.95 });
-      cvInterval = { lower: ci.lower, upper: ci.upper, confidence: ci.confidence };
-    }
-    groups.push({ key: input.key, label: input.label, colourIndex: index % 8, runs: input.runs.length, studs: loadsPercent.length, meanPercent: m, sdPercent: sd, cv: m && sd !== null ? sd / m : null, cvInterval, meanRunCv: safeMean(cvs) });
-    const maxStuds = Math.max(0, ...input.runs.map((r) => r.driftPercent.length));
-    const meanDriftByPosition = Array.from({ length: maxStuds }, (_, p) => {
-      const values = input.runs.map((r) => r.driftPercent[p]).filter((v): v is number => typeof v === 'number');
-      return values.length ? mean(values) : 0;
+    const loadsByRun = input.runs.map((run) => run.finalLoadsN.map((load) => (load / run.targetLoadN) * 100));
+    const loadsPercent = loadsByRun.flat();
+    const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [] };
+    const cvs: number[] = [];
+    input.runs.forEach((run) => {
+      const p = runProfile(run);
+      if (!p) return;
+      level.meanPercent.push(p.meanPercent);
+      level.withinSdPercent.push(p.sdPercent);
+      cvs.push(p.cv);
+      if (p.cv > 0) {
+        level.lnCv.push(Math.log(p.cv));
+        if (run.operator !== undefined) level.blocked.push({ lnCv: Math.log(p.cv), operator: run.operator, attempt: run.attempt ?? null });
+      }
     });
+    runLevel.push(level);
+    groups.push({
+      key: input.key,
+      label: input.label,
+      colourIndex: index % 8,
+      runs: input.runs.length,
+      studs: loadsPercent.length,
+      meanPercent: safeMean(level.meanPercent),
+      geometricMeanRunCv: level.lnCv.length ? Math.exp(mean(level.lnCv)) : null,
+      meanRunCv: safeMean(cvs),
+      meanWithinSdPercent: safeMean(level.withinSdPercent),
+      components: componentsOf(loadsByRun),
+    });
+    const drift = studCounts.length === 1 ? meanDriftByPosition(input.runs, studCounts[0]!) : [];
     const large = loadsPercent.length > MAX_DOTS_PER_GROUP || cvs.length > MAX_DOTS_PER_GROUP;
     chartGroups.push({
       key: input.key,
@@ -136,75 +134,52 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       finalLoadsPercent: evenSample(loadsPercent, MAX_DOTS_PER_GROUP),
       runCvs: evenSample(cvs, MAX_DOTS_PER_GROUP),
       ...(large ? { finalLoadsBox: boxOf(loadsPercent), runCvBox: boxOf(cvs.map((cv) => cv * 100)) } : {}),
-      meanDriftByPosition,
+      meanDriftByPosition: drift,
     });
-    allLoads.push(loadsPercent);
-    allCvs.push(cvs);
     if (input.runs.length < SMALL_GROUP_RUNS) {
       warnings.push(`${input.label} has only ${input.runs.length} run${input.runs.length === 1 ? '' : 's'}: with fewer than ${SMALL_GROUP_RUNS}, the tests below say little about it.`);
     }
   });
 
-  const tests: ComparisonTest[] = [];
-  let pairs: PairComparison[] = [];
-  const usable = inputs.map((input, index) => ({ input, index, loads: allLoads[index]!, cvs: allCvs[index]! }));
-  const withLoads = usable.filter((u) => u.loads.length >= 2);
-  const withCvs = usable.filter((u) => u.cvs.length >= 2);
-  const reading = (result: Parameters<typeof readStatisticalResult>[0], measure?: string) =>
-    readStatisticalResult(result, { subject: options.subject, alpha: options.alpha ?? 0.05, measure });
-
-  const attempt = (name: string, run: () => void) => {
-    try {
-      run();
-    } catch (error) {
-      warnings.push(`${name} could not be computed: ${error instanceof Error ? error.message : String(error)}.`);
+  const usable = runLevel.filter((g) => g.lnCv.length >= 2);
+  const raw: RawTest[] = [];
+  let pairs: ComparisonResult['pairs'] = { gamesHowell: [], tukeyKramer: [] };
+  let blocks: ComparisonResult['traineeBlocks'] = null;
+  if (usable.length >= 2) {
+    raw.push(...runLevelTests(usable, attempt));
+    attempt('The pairs of groups', () => {
+      pairs = runCvPairs(usable);
+    });
+    if (options.blocks === false) {
+      warnings.push('Operators are the groups here, so they cannot also be the blocks: the mixed model is left out.');
+    } else if (usable.some((g) => g.blocked.length !== g.lnCv.length)) {
+      warnings.push('Some runs have no operator, so the mixed model with operators as blocks is left out.');
+    } else {
+      attempt('The mixed model with operators as blocks', () => {
+        const fitted = traineeBlocks(usable.map((g) => ({ key: g.key, label: g.label, runs: g.blocked })));
+        blocks = fitted.blocks;
+        raw.push(fitted.test);
+      });
     }
-  };
-
-  if (withLoads.length >= 2) {
-    const groupsOfLoads = withLoads.map((u) => u.loads);
-    const scatterQuestion = 'Do the final loads scatter differently?';
-    attempt("Levene's test", () => {
-      const r = leveneTest(groupsOfLoads);
-      tests.push({ question: scatterQuestion, name: "Levene's test (mean-centred)", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, reading: reading(r) });
-    });
-    attempt('The Brown–Forsythe test', () => {
-      const r = brownForsytheTest(groupsOfLoads);
-      tests.push({ question: scatterQuestion, name: 'Brown–Forsythe test (median-centred)', statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, reading: reading(r) });
-    });
-    attempt("Bartlett's test", () => {
-      const r = bartlettTest(groupsOfLoads);
-      tests.push({ question: scatterQuestion, name: "Bartlett's test", statistic: r.statistic, pValue: r.pValue, df: String(r.df), reading: reading(r) });
-    });
   } else {
-    warnings.push('At least two groups with final loads are needed for the scatter tests.');
+    warnings.push('At least two groups with two or more runs each are needed to compare runs.');
   }
+  const adjusted = raw.length ? holmAdjust(raw.map((t) => t.pValue)) : [];
+  const tests: ComparisonTest[] = raw.map(({ measure: _measure, ...t }, i) => ({
+    ...t,
+    adjustedPValue: adjusted[i]!,
+    planned: t.id === planned,
+    reading: readingOf(raw[i]!, adjusted[i]!, options.subject, alpha),
+  }));
+  tests.sort((a, b) => Number(b.planned) - Number(a.planned));
+  const pooled = pooledSdLogCv(runLevel);
+  return { groups, chartGroups, tests, pairs, traineeBlocks: blocks, planner: pooled, planned, studCounts, warnings };
+}
 
-  if (withCvs.length >= 2) {
-    const groupsOfCvs = withCvs.map((u) => u.cvs);
-    const labels = withCvs.map((u) => u.input.label);
-    const cvQuestion = 'Is the run CV different on average?';
-    attempt('The one-way ANOVA', () => {
-      const r = oneWayAnova(groupsOfCvs);
-      tests.push({ question: cvQuestion, name: 'One-way ANOVA of run CVs', statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, reading: reading(r, 'mean run CV') });
-    });
-    attempt("Welch's ANOVA", () => {
-      const r = welchAnova(groupsOfCvs);
-      tests.push({ question: cvQuestion, name: "Welch's ANOVA of run CVs", statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`, reading: reading(r, 'mean run CV') });
-    });
-    attempt('The Tukey–Kramer pairs', () => {
-      const r = tukeyHsd(groupsOfCvs, { confidence: 0.95 });
-      pairs = r.comparisons.map((c) => ({
-        a: labels[c.groupA] ?? `group ${c.groupA + 1}`,
-        b: labels[c.groupB] ?? `group ${c.groupB + 1}`,
-        difference: c.meanDifference,
-        pValue: c.pValue,
-        lower: c.confidenceInterval.lower,
-        upper: c.confidenceInterval.upper,
-      }));
-    });
-  } else {
-    warnings.push('At least two groups with two or more runs each are needed to compare run CVs.');
-  }
-  return { groups, chartGroups, tests, pairs, warnings };
+/** Mean drift (%) by position over the runs of one stud count. */
+function meanDriftByPosition(runs: readonly ComparedRun[], studCount: number): number[] {
+  return Array.from({ length: studCount }, (_, p) => {
+    const values = runs.map((r) => r.driftPercent[p]).filter((v): v is number => typeof v === 'number');
+    return values.length ? mean(values) : 0;
+  });
 }

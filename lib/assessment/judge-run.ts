@@ -1,4 +1,4 @@
-import { gradePropertiesForThread, type GradeId } from '../calc/grades';
+import { gradePropertiesForThread } from '../calc/grades';
 import { threadGeometry, type ThreadSpec } from '../calc/thread';
 import { formatInputValue, formatPercent } from '../calc/units';
 import { coefficientOfVariation } from '../stats/coefficient-of-variation';
@@ -6,6 +6,7 @@ import { largestDeviationFromTarget } from '../stats/largest-deviation-from-targ
 import { shareWithinBand } from '../stats/share-within-band';
 import type { MethodPass } from '@/models/method';
 import type { AssessmentCriteria } from './criteria';
+import { gradeIdOf } from '../joints/joint-properties';
 
 /**
  * Judges one run against a cohort's acceptance criteria. Pure: the caller loads the run, its
@@ -55,20 +56,6 @@ export interface Judgement {
 const pct = (value: number) => formatPercent(value, { sig: 3 });
 /** A limit as the instructor typed it: 70, 2.5, 10 (no padding zeros). */
 const plain = (value: number) => formatInputValue(value, 6);
-
-/** Maps a stored grade label ("ASTM A193 B7", "A193-B7", "A193M B7") to the calculator's grade id. */
-export function gradeIdFromLabel(label: string): GradeId | null {
-  const s = label.toUpperCase().replace(/ASTM|\(.*?\)/g, '').replace(/[^A-Z0-9]+/g, ' ').trim();
-  const table: [RegExp, GradeId][] = [
-    [/^A193M B7$/, 'A193M-B7'],
-    [/^A193 B7M$/, 'A193-B7M'],
-    [/^A193 B7$/, 'A193-B7'],
-    [/^A193 B16$/, 'A193-B16'],
-    [/^A193 B8M? (CLASS |CL )?1$/, 'A193-B8-CL1'],
-    [/^A193 B8 (CLASS |CL )?2$/, 'A193-B8-CL2'],
-  ];
-  return table.find(([pattern]) => pattern.test(s))?.[1] ?? null;
-}
 
 function judgeBand(input: JudgeRunInput): CriterionResult {
   const { finalLoadsN, targetLoadN, criteria } = input;
@@ -177,7 +164,7 @@ function judgeYield(input: JudgeRunInput): CriterionResult {
   const { joint, criteria } = input;
   const limit = criteria.maxYieldPercent;
   const base = { key: 'yield' as const, label: `No stud above ${plain(limit)} % of its minimum yield load`, limit, unit: '%' as const };
-  const gradeId = gradeIdFromLabel(joint.studGrade);
+  const gradeId = gradeIdOf(joint.studGrade);
   if (!gradeId) {
     return { ...base, met: false, measured: null, sentence: `The stud grade "${joint.studGrade}" is not in the grade table, so the yield check cannot be made; correct the joint's stud grade.` };
   }

@@ -5,9 +5,8 @@ import { z } from 'zod';
 import { CLIENT_ADDRESS_HEADER } from '../http/client-address';
 import { authSecret, env } from '../platform/env';
 import { verifyPassword } from './passwords';
-import { clearSignInFailures, isSignInLocked, recordSignInFailure, signInKeys } from './sign-in-throttle';
-import { User } from '@/models';
-import { checkSession, openSession, revokeSession } from '../data/session-store';
+import { clearSignInFailures, isSignInLocked, recordSignInFailure, signInKeys } from '../data/sign-in-throttle';
+import { checkSession, findAccountForSignIn, openSession, revokeSession } from '../data/session-store';
 import { sessionClaimsOf } from './session';
 import type { Role } from '@/models/user';
 
@@ -58,7 +57,7 @@ export const authOptions: NextAuthOptions = {
         const { email, password } = parsed.data;
         const keys = signInKeys(email, clientAddress(request?.headers));
         if (await isSignInLocked(keys)) throw new Error(SIGN_IN_LOCKED);
-        const user = await User.findOne({ where: { email } });
+        const user = await findAccountForSignIn(email);
         const ok = await verifyPassword(password, user?.passwordHash);
         if (!user || !ok || !user.isActive) {
           await recordSignInFailure(keys);

@@ -128,14 +128,16 @@ export function preloadWarnings(input: { residualPercentOfYield: number; applied
         code: 'applied-above-95',
         severity: 'danger',
         message: `The tensioner load is ${formatDecimals(a, 0)} % of yield; one tool maker says never to exceed 95 % of yield at the applied load.`,
-        source: TENSIONER_MAKER, // ✓ [TENS1] (docs/REFERENCE.md §4)
+        // ✓ [TENS1] (docs/REFERENCE.md §4)
+        source: TENSIONER_MAKER,
       });
     } else if (a > t.tensionerFatigue) {
       out.push({
         code: 'applied-above-75',
         severity: 'caution',
         message: `The tensioner load is ${formatDecimals(a, 0)} % of yield; one tool maker advises considering fatigue above 75 %.`,
-        source: TENSIONER_MAKER, // ✓ [TENS1] (docs/REFERENCE.md §4)
+        // ✓ [TENS1] (docs/REFERENCE.md §4)
+        source: TENSIONER_MAKER,
       });
     }
   }

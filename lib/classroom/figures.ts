@@ -74,14 +74,14 @@ export function sceneFigures(groups: readonly { key: string; label: string; runs
     })),
     { subject },
   );
-  const welch = result.tests.find((t) => t.name.startsWith("Welch's ANOVA"));
-  const levene = result.tests.find((t) => t.name.startsWith("Levene's"));
+  const welch = result.tests.find((t) => t.id === 'welch-ln-cv');
+  const withinSd = result.tests.find((t) => t.id === 'welch-within-sd');
   const counts = [...new Set(groups.map((g) => g.runs.length))];
   const basis = counts.length === 1 ? `over ${counts[0]} simulated runs each` : `over ${counts.join(' / ')} simulated runs`;
   return {
     sides,
     cvReading: welch ? welch.reading : (result.warnings[0] ?? 'No reading: the groups are too small to compare.'),
-    scatterReading: levene?.reading ?? null,
+    scatterReading: withinSd?.reading ?? null,
     basis,
   };
 }

@@ -9,15 +9,3 @@ export const saveSceneSchema = z.object({
 });
 
 export type SaveSceneFields = z.infer<typeof saveSceneSchema>;
-
-/** What the save action returns to its form (useActionState). */
-export interface SaveSceneState {
-  status: 'idle' | 'error' | 'saved';
-  message: string | null;
-  errors: Partial<Record<keyof SaveSceneFields, string[]>>;
-  code?: string;
-  compareHref?: string;
-  savedCount?: number;
-}
-
-export const INITIAL_SAVE_SCENE_STATE: SaveSceneState = { status: 'idle', message: null, errors: {} };

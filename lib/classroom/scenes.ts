@@ -1,6 +1,7 @@
 import type { NormalisedRun } from '@/lib/record/run-types';
+import { isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
-import { simulateRun, type SimLubricant, type SimMethod, type SimTool } from '@/lib/sim/simulate-run';
+import type { SimLubricant, SimMethod, SimTool } from '@/lib/sim/simulate-run';
 
 /**
  * The classroom's lesson scenes as pure data and functions: which joints run side by side, with
@@ -107,21 +108,8 @@ interface MethodWanted {
 
 type LubricantWanted = 'dry' | 'paste';
 
-/**
- * Nut factor scatter for a library lubricant, which stores only its nominal K. Invented teaching
- * values (the same as the demo lubricants in lib/sim/demo-scenario.ts): K ≥ 0.18 is treated as dry
- * (CV 0.10 stud to stud, 0.08 run to run), below as a paste (0.05, 0.04). A dry K of 0.20 is
- * Shigley's "unknown condition" (docs/REFERENCE.md §3 ✓ [SHIG]).
- */
-export function lubricantForSim(lubricant: Pick<LibraryLubricant, 'nominalNutFactor'>): SimLubricant {
-  const dry = lubricant.nominalNutFactor >= 0.18;
-  return { nominalK: lubricant.nominalNutFactor, kScatterCv: dry ? 0.1 : 0.05, runToRunCv: dry ? 0.08 : 0.04 };
-}
-
-const isDry = (l: LibraryLubricant) => l.nominalNutFactor >= 0.18;
-
 function pickLubricant(lubricants: readonly LibraryLubricant[], wanted: LubricantWanted): LibraryLubricant | null {
-  const matching = lubricants.filter((l) => (wanted === 'dry' ? isDry(l) : !isDry(l)));
+  const matching = lubricants.filter((l) => (wanted === 'dry' ? isDryLubricant(l) : !isDryLubricant(l)));
   // Dry: the highest K; paste: the lowest K (the clearest contrast).
   const sorted = [...matching].sort((a, b) => (wanted === 'dry' ? b.nominalNutFactor - a.nominalNutFactor : a.nominalNutFactor - b.nominalNutFactor) || a.id - b.id);
   return sorted[0] ?? null;
@@ -142,13 +130,7 @@ export function findMethod(methods: readonly LibraryMethod[], wanted: MethodWant
 
 /** The simulator's method for a library method (or a wanted one when the library has no match). */
 function simMethodOf(method: LibraryMethod | null, wanted: MethodWanted, studCount: number): SimMethod {
-  if (method) {
-    return {
-      tool: method.toolKind === 'other' ? wanted.tool : method.toolKind,
-      checkPasses: method.checkPasses,
-      passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: [...(p.orderByStudCount[String(studCount)] ?? [])] })),
-    };
-  }
+  if (method) return methodForSim(method, studCount);
   const order = (pattern: 'cross' | 'circular') => (pattern === 'cross' && studCount % 4 === 0 ? crossPatternOrder(studCount) : circularOrder(studCount));
   return { tool: wanted.tool, checkPasses: wanted.checkPasses, passes: wanted.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: order(p.pattern) })) };
 }
@@ -186,6 +168,10 @@ export interface SceneSetup {
   missing: string[];
 }
 
+/** The lubricants a side runs on when the library has none to match (a MoS₂ paste and Shigley's dry 0.20, docs/REFERENCE.md §3). */
+const BUILT_IN_PASTE = { nominalNutFactor: 0.12 };
+const BUILT_IN_DRY = { nominalNutFactor: 0.2 };
+
 function side(key: string, label: string, caption: string, method: LibraryMethod | null, wanted: MethodWanted, lubricant: LibraryLubricant | null, studCount: number): SceneSide {
   const simMethod = simMethodOf(method, wanted, studCount);
   return {
@@ -197,7 +183,7 @@ function side(key: string, label: string, caption: string, method: LibraryMethod
     lubricantId: lubricant?.id ?? null,
     lubricantName: lubricant?.name ?? 'Paste, K 0.12',
     simMethod,
-    simLubricant: lubricant ? lubricantForSim(lubricant) : { nominalK: 0.12, kScatterCv: 0.05, runToRunCv: 0.04 },
+    simLubricant: lubricantForSim(lubricant ?? BUILT_IN_PASTE),
     passPercents: [...simMethod.passes.map((p) => p.percentOfTarget), ...Array.from({ length: simMethod.checkPasses }, () => 100)],
   };
 }
@@ -249,7 +235,7 @@ export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, j
         side('dry', 'Dry', `nut factor K ${dry?.nominalNutFactor ?? 0.2}, scatters more`, m, THREE_CROSS_CHECK, dry, n),
         side('paste', 'Lubricated', `nut factor K ${paste?.nominalNutFactor ?? 0.12}, steadier`, m, THREE_CROSS_CHECK, paste, n),
       ];
-      if (!dry) sides[0]!.simLubricant = { nominalK: 0.2, kScatterCv: 0.1, runToRunCv: 0.08 };
+      if (!dry) sides[0]!.simLubricant = lubricantForSim(BUILT_IN_DRY);
       break;
     }
     case 'tool':
@@ -262,8 +248,8 @@ export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, j
   return { scene, joint, sides, missing };
 }
 
-/** Load transfer factor the tensioner side uses: the simulator's default, floor of ✓ [TENS1] (docs/REFERENCE.md §4). */
-export const DEFAULT_LTF = 1.15;
+/** Load transfer factor the tensioner side uses: the library adapter's, floor of ✓ [TENS1] (docs/REFERENCE.md §4). */
+const DEFAULT_LTF = LIBRARY_RUN_DEFAULTS.loadTransferFactor;
 
 /** A side of the "real run" scene that simulates the real run's own joint, method and lubricant. */
 export function sideForRealRun(joint: LibraryJoint, method: LibraryMethod, lubricant: LibraryLubricant): SceneSide {
@@ -272,22 +258,17 @@ export function sideForRealRun(joint: LibraryJoint, method: LibraryMethod, lubri
     passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, pattern: p.pattern === 'circular' ? 'circular' : 'cross' })),
     checkPasses: method.checkPasses,
   };
-  const hasOrders = method.passes.every((p) => Array.isArray(p.orderByStudCount[String(joint.studCount)]));
+  const hasOrders = passWithoutOrder(method, joint.studCount) === null;
   return side('model', 'The model', `${method.name}, ${lubricant.name}`, hasOrders ? method : null, wanted, lubricant, joint.studCount);
 }
 
-/** Simulates one side with one seed (same seed on every side of a scene, so the comparison is fair). */
+/**
+ * Simulates one side with one seed (same seed on every side of a scene, so the comparison is
+ * fair), through the same library adapter as Record's "Simulate" (medium gasket): a side on
+ * library rows gives the run Record gives for those rows and seed.
+ */
 export function simulateSide(sideToRun: SceneSide, joint: LibraryJoint, seed: number): NormalisedRun {
-  return simulateRun({
-    studCount: joint.studCount,
-    targetLoadN: joint.targetLoadN,
-    studDiameterM: joint.studDiameterM,
-    method: sideToRun.simMethod,
-    lubricant: sideToRun.simLubricant,
-    gasketStiffness: 'medium',
-    seed,
-    loadTransferFactor: DEFAULT_LTF,
-  }).run;
+  return simulateLibraryRun({ joint, method: sideToRun.simMethod, lubricant: sideToRun.simLubricant, seed }).run;
 }
 
 /** The seed family of a scene: runs k = 0..count−1 use seed + k on every side. */

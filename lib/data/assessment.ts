@@ -2,6 +2,7 @@ import 'server-only';
 import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { criteriaSchema, DEFAULT_CRITERIA, type AssessmentCriteria } from '../assessment/criteria';
 import { judgeRun, type Judgement, type JudgeRunInput } from '../assessment/judge-run';
+import { threadSpecOf } from '../joints/joint-properties';
 import { appBaseUrl } from '../platform/env';
 import { AppError } from '../http/errors';
 import { sendMail } from '../mail/mailer';
@@ -81,9 +82,7 @@ export async function judgeInputs(runIds: number[], criteria: AssessmentCriteria
       method: { passes: method.passes as MethodPass[], checkPasses: method.checkPasses },
       joint: {
         studCount: joint.studCount,
-        thread: joint.threadSystem === 'inch'
-          ? { system: 'inch', diameterIn: joint.threadDiameter, threadsPerInch: joint.threadPitch }
-          : { system: 'metric', diameterMm: joint.threadDiameter, pitchMm: joint.threadPitch },
+        thread: threadSpecOf(joint),
         studGrade: joint.studGrade,
       },
       criteria,

@@ -2,6 +2,7 @@ import 'server-only';
 import { Op } from 'sequelize';
 import { AppError } from '../http/errors';
 import { sceneSetup, seedFamily, simulateSide, SCENES, type Library, type SceneKey } from '../classroom/scenes';
+import { studDiameterM } from '../joints/joint-properties';
 import { storeRun as storeRunInDb } from './runs/store-run';
 import { assertRole, type SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
@@ -23,8 +24,6 @@ export interface ClassroomRunOption {
   source: string;
   cohortId: number | null;
 }
-
-const studDiameterM = (j: Joint) => (j.threadSystem === 'inch' ? j.threadDiameter * 0.0254 : j.threadDiameter / 1000);
 
 /** Joints, methods and lubricants of the library, as the scenes need them. */
 export async function classroomLibrary(user: SessionUser): Promise<Library> {

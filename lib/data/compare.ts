@@ -2,14 +2,17 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { compareGroups, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
+import { compareGroups, DEFAULT_PLANNED, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
+import { COMPARISON_TESTS } from '../analysis/compare-types';
 import { nutFactor } from '../stats/nut-factor';
+import { studDiameterM } from '../joints/joint-properties';
 import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 import { sequelize } from '@/models';
 import { operatorKey, operatorLabel, refuseOperatorIdsForResearcher, runScopeSql } from './scope';
 
 const isoDate = isoDateSchema();
+const id = z.coerce.number().int().positive().max(2 ** 31);
 const idList = z
   .string()
   .regex(/^\d+(,\d+)*$/, 'must be a comma-separated list of numbers')
@@ -19,15 +22,28 @@ const idList = z
 export const COMPARE_BY = ['method', 'lubricant', 'cohort', 'trainee', 'runs'] as const;
 export type CompareBy = (typeof COMPARE_BY)[number];
 
+/** Where runs come from: measured (uploaded, entered by hand, streamed live) or simulated, never pooled unasked. */
+export const COMPARE_SOURCES = ['measured', 'simulated', 'both'] as const;
+/** Which runs count: complete ones, set-aside ones (to look at what was set aside), or both. */
+export const COMPARE_STATUSES = ['complete', 'set_aside', 'both'] as const;
+
 /** The comparison's choice, as it lives in the URL. */
 export const compareQuerySchema = z
   .object({
     by: z.enum(COMPARE_BY).default('method'),
     ids: idList.optional(),
-    jointId: z.coerce.number().int().positive().max(2 ** 31).optional(),
+    source: z.enum(COMPARE_SOURCES).default('measured'),
+    status: z.enum(COMPARE_STATUSES).default('complete'),
+    methodId: id.optional(),
+    lubricantId: id.optional(),
+    cohortId: id.optional(),
+    operatorId: id.optional(),
+    jointId: id.optional(),
+    studCount: z.coerce.number().int().min(3).max(200).optional(),
     from: isoDate.optional(),
     to: isoDate.optional(),
     passCount: z.coerce.number().int().min(1).max(50).optional(),
+    planned: z.enum(COMPARISON_TESTS).default(DEFAULT_PLANNED),
   })
   .strict()
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: 'must not be before "from"', path: ['to'] })
@@ -47,28 +63,35 @@ export interface NutFactorByLubricant {
 
 export interface CompareResponse extends ComparisonResult {
   by: CompareBy;
+  source: (typeof COMPARE_SOURCES)[number];
   totalRuns: number;
+  /** Simulated runs that matched the other filters but were left out (measured only). */
+  simulatedLeftOut: number;
   nutFactors: NutFactorByLubricant[];
-  /** What was computed where, for the curious (and for the note). */
 }
 
 const GROUP_COLUMN: Record<CompareBy, string> = { method: 'r.method_id', lubricant: 'r.lubricant_id', cohort: 'r.cohort_id', trainee: 'r.operator_id', runs: 'r.id' };
 const SUBJECT: Record<CompareBy, string> = { method: 'these methods', lubricant: 'these lubricants', cohort: 'these cohorts', trainee: 'these operators', runs: 'these runs' };
+const FILTER_COLUMN = { methodId: 'r.method_id', lubricantId: 'r.lubricant_id', cohortId: 'r.cohort_id', operatorId: 'r.operator_id', jointId: 'r.joint_id', studCount: 'r.stud_count', passCount: 'r.pass_count' } as const;
+const MEASURED_SQL = "r.source IN ('upload', 'manual', 'live')";
+const SOURCE_SQL = { measured: MEASURED_SQL, simulated: "r.source = 'simulated'", both: '1 = 1' } as const;
+const STATUS_SQL = { complete: "r.status = 'complete'", set_aside: "r.status = 'set_aside'", both: "r.status IN ('complete', 'set_aside')" } as const;
 
 interface RunRowSql {
-  id: number;
   group_id: number;
+  operator_id: number;
+  attempt: number;
   target_load_n: number;
-  final_loads_json: string | null;
-  drift_json: string | null;
+  final_loads_json: string;
+  drift_json?: string | null;
 }
 
+/** What the fingerprint aggregate returns besides the fingerprint itself. */
+interface SelectionShape {
+  studCounts: { min: number | null; max: number | null };
+  simulatedLeftOut: number;
+}
 
-/**
- * A comparison of groups of complete runs (set-aside runs are left out). One query reads the stored
- * per-run profiles (final loads and drift, kept on `runs` when a run is saved); the statistics run
- * in Node on those. Nut factors (lubricant comparisons only) read first-pass steps with torque.
- */
 export async function compareRuns(user: SessionUser, query: CompareQuery): Promise<CompareResponse> {
   return JSON.parse(await compareRunsJson(user, query)) as CompareResponse;
 }
@@ -78,21 +101,25 @@ const CACHE_DAYS = 2;
 
 /**
  * The comparison as JSON text, from the shared cache when the runs it depends on are unchanged.
- * The fingerprint (count, last change and id sum of the matching runs, and the last change of the
- * group names) is one aggregate over the same filter, so a cache hit costs about one bare
+ * One aggregate over the filter (without the source condition) gives the fingerprint (count, last
+ * change and id sum of the matching runs, last change of the group names), the stud counts in the
+ * selection and the number of simulated runs left out, so a cache hit costs about one bare
  * aggregate plus a primary-key read.
  */
 export async function compareRunsJson(user: SessionUser, query: CompareQuery): Promise<string> {
   refuseOperatorIdsForResearcher(user, 'ids', query.by === 'trainee' && Boolean(query.ids?.length));
   const { where, params } = await filterSql(user, query);
-  const [fp] = await sequelize.query<{ n: number; changed: Date | null; ids: number | null; names: Date | null }>(
-    `SELECT COUNT(*) AS n, MAX(r.updated_at) AS changed, SUM(r.id) AS ids,
+  const match = SOURCE_SQL[query.source];
+  const [fp] = await sequelize.query<{ n: number | null; changed: Date | null; ids: number | null; names: Date | null; min_studs: number | null; max_studs: number | null; left_out: number | null }>(
+    `SELECT SUM(${match}) AS n, MAX(IF(${match}, r.updated_at, NULL)) AS changed, SUM(IF(${match}, r.id, 0)) AS ids,
+       MIN(IF(${match}, r.stud_count, NULL)) AS min_studs, MAX(IF(${match}, r.stud_count, NULL)) AS max_studs,
+       SUM(r.source = 'simulated' AND NOT (${match})) AS left_out,
        GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
                 COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS names
      FROM runs r WHERE ${where.join(' AND ')}`,
     { type: QueryTypes.SELECT, replacements: params },
   );
-  const fingerprint = `${fp?.n}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${String(fp?.names ?? '-')}`;
+  const fingerprint = `${Number(fp?.n ?? 0)}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${Number(fp?.left_out ?? 0)}:${String(fp?.names ?? '-')}`;
   const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
   const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
   const [cached] = await sequelize.query<{ body: string }>('SELECT body FROM comparison_cache WHERE cache_key = ? AND fingerprint = ?', {
@@ -100,33 +127,46 @@ export async function compareRunsJson(user: SessionUser, query: CompareQuery): P
     replacements: [key, fingerprint],
   });
   if (cached) return cached.body;
-  const body = JSON.stringify(await computeComparison(user, query, where, params));
+  const shape: SelectionShape = { studCounts: { min: fp?.min_studs ?? null, max: fp?.max_studs ?? null }, simulatedLeftOut: Number(fp?.left_out ?? 0) };
+  const body = JSON.stringify(await computeComparison(user, query, [...where, match], params, shape));
   await sequelize.query('REPLACE INTO comparison_cache (cache_key, fingerprint, body, created_at) VALUES (?, ?, ?, NOW())', { replacements: [key, fingerprint, body] });
   await sequelize.query('DELETE FROM comparison_cache WHERE created_at < NOW() - INTERVAL ? DAY', { replacements: [CACHE_DAYS] });
   return body;
 }
 
+/** Every filter except the source, as SQL on the alias `r`, scoped to this person. */
 async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ where: string[]; params: unknown[] }> {
   const scope = await runScopeSql(user);
-  const where = ["r.status = 'complete'", scope.sql];
+  const where = [STATUS_SQL[query.status], 'r.final_loads_json IS NOT NULL', scope.sql];
   const params: unknown[] = [...scope.params];
-  if (query.jointId) (where.push('r.joint_id = ?'), params.push(query.jointId));
+  for (const [name, column] of Object.entries(FILTER_COLUMN) as [keyof typeof FILTER_COLUMN, string][]) {
+    const value = query[name];
+    if (value !== undefined) (where.push(`${column} = ?`), params.push(value));
+  }
   if (query.from) (where.push('r.recorded_at >= ?'), params.push(`${query.from} 00:00:00`));
   if (query.to) (where.push('r.recorded_at < DATE_ADD(?, INTERVAL 1 DAY)'), params.push(`${query.to} 00:00:00`));
-  if (query.passCount) (where.push('r.pass_count = ?'), params.push(query.passCount));
   const column = GROUP_COLUMN[query.by];
   if (query.ids?.length) (where.push(`${column} IN (?)`), params.push(query.ids));
   else if (query.by === 'cohort') where.push('r.cohort_id IS NOT NULL');
   return { where, params };
 }
 
-async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[]): Promise<CompareResponse> {
+/**
+ * Reads only what the statistics need: per run its group, operator, attempt number (the operator's
+ * n-th complete run, by a window over their runs), target and final loads; drift only when the
+ * selection has one stud count (drift by position is not averaged across stud counts).
+ */
+async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[], shape: SelectionShape): Promise<CompareResponse> {
   const column = GROUP_COLUMN[query.by];
+  const oneStudCount = shape.studCounts.min !== null && shape.studCounts.min === shape.studCounts.max;
   const rows = await sequelize.query<RunRowSql>(
-    `SELECT r.id, ${column} AS group_id, r.target_load_n, r.final_loads_json, r.drift_json FROM runs r WHERE ${where.join(' AND ')}`,
-    { type: QueryTypes.SELECT, replacements: params },
+    `SELECT ${column} AS group_id, r.operator_id, a.attempt, r.target_load_n, r.final_loads_json${oneStudCount ? ', r.drift_json' : ''}
+     FROM runs r
+     JOIN (SELECT id, ROW_NUMBER() OVER (PARTITION BY operator_id ORDER BY recorded_at, id) AS attempt
+           FROM runs WHERE status = 'complete' AND operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${where.join(' AND ')})) a ON a.id = r.id
+     WHERE ${where.join(' AND ')}`,
+    { type: QueryTypes.SELECT, replacements: [...params, ...params] },
   );
-
   const byGroup = new Map<number, RunRowSql[]>();
   for (const row of rows) {
     const list = byGroup.get(row.group_id) ?? [];
@@ -134,27 +174,28 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     byGroup.set(row.group_id, list);
   }
   // Keep the named groups in the order given; otherwise the 8 largest groups, ordered by label.
-  let groupIds = query.ids?.filter((id) => byGroup.has(id)) ?? [...byGroup.keys()].sort((a, b) => (byGroup.get(b)?.length ?? 0) - (byGroup.get(a)?.length ?? 0)).slice(0, 8);
+  let groupIds = query.ids?.filter((g) => byGroup.has(g)) ?? [...byGroup.keys()].sort((a, b) => (byGroup.get(b)?.length ?? 0) - (byGroup.get(a)?.length ?? 0)).slice(0, 8);
   const labels = await groupLabels(user, query.by, groupIds);
   if (!query.ids) groupIds = groupIds.sort((a, b) => (labels.get(a) ?? '').localeCompare(labels.get(b) ?? ''));
 
-  const inputs: GroupInput[] = groupIds.map((id) => ({
-    key: query.by === 'trainee' ? operatorKey(user, id) : String(id),
-    label: labels.get(id) ?? `#${id}`,
-    runs: (byGroup.get(id) ?? [])
-      .filter((r) => r.final_loads_json)
-      .map((r) => ({ targetLoadN: r.target_load_n, finalLoadsN: JSON.parse(r.final_loads_json as string) as number[], driftPercent: r.drift_json ? (JSON.parse(r.drift_json) as (number | null)[]) : [] })),
+  const inputs: GroupInput[] = groupIds.map((g) => ({
+    key: query.by === 'trainee' ? operatorKey(user, g) : String(g),
+    label: labels.get(g) ?? `#${g}`,
+    runs: (byGroup.get(g) ?? []).map((r) => ({
+      targetLoadN: r.target_load_n,
+      finalLoadsN: JSON.parse(r.final_loads_json) as number[],
+      driftPercent: r.drift_json ? (JSON.parse(r.drift_json) as (number | null)[]) : [],
+      operator: r.operator_id,
+      // Set-aside runs have no place in the operator's sequence of complete runs.
+      attempt: r.attempt ?? null,
+    })),
   }));
-  const result = compareGroups(inputs, { subject: SUBJECT[query.by] });
+  const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });
   const nutFactors = query.by === 'lubricant' ? await nutFactorsFor(where, params, groupIds, labels) : [];
-  const missing = query.ids?.filter((id) => !byGroup.has(id)) ?? [];
-  if (missing.length) result.warnings.push(`No complete runs you may see match ${missing.length === 1 ? 'one of the chosen groups' : `${missing.length} of the chosen groups`} with these filters.`);
-  return {
-    ...result,
-    by: query.by,
-    totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0),
-    nutFactors,
-  };
+  const missing = query.ids?.filter((g) => !byGroup.has(g)) ?? [];
+  if (missing.length) result.warnings.push(`No runs you may see match ${missing.length === 1 ? 'one of the chosen groups' : `${missing.length} of the chosen groups`} with these filters.`);
+  if (query.source === 'both') result.warnings.push('Measured and simulated runs are pooled in these groups, as asked.');
+  return { ...result, by: query.by, source: query.source, totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0), simulatedLeftOut: shape.simulatedLeftOut, nutFactors };
 }
 
 async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Promise<Map<number, string>> {
@@ -176,7 +217,7 @@ async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Pro
  * produced (K = T/(D·F), short form, common practice).
  */
 async function nutFactorsFor(where: string[], params: unknown[], lubricantIds: number[], labels: Map<number, string>): Promise<NutFactorByLubricant[]> {
-  const rows = await sequelize.query<{ lubricant_id: number; torque: number; load_n: number; thread_system: string; thread_diameter: number }>(
+  const rows = await sequelize.query<{ lubricant_id: number; torque: number; load_n: number; thread_system: 'inch' | 'metric'; thread_diameter: number }>(
     `SELECT r.lubricant_id, s.applied_torque_nm AS torque, g.load_n, j.thread_system, j.thread_diameter
      FROM runs r JOIN joints j ON j.id = r.joint_id
      JOIN tightening_steps s ON s.run_id = r.id AND s.pass_number = 1 AND s.applied_torque_nm > 0
@@ -191,7 +232,7 @@ async function nutFactorsFor(where: string[], params: unknown[], lubricantIds: n
     const fit = nutFactor(
       {
         torque: mine.map((r) => r.torque),
-        diameter: mine.map((r) => (r.thread_system === 'inch' ? r.thread_diameter * 0.0254 : r.thread_diameter / 1000)),
+        diameter: mine.map((r) => studDiameterM({ threadSystem: r.thread_system, threadDiameter: r.thread_diameter })),
         force: mine.map((r) => r.load_n),
       },
       { units: 'SI', confidence: 0.95 },

@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op } from 'sequelize';
 import { User } from '@/models';
-import { DEMO_EMAIL_DOMAIN } from '@/lib/sim/demo-scenario';
+import { DEMO_EMAIL_DOMAIN } from '@/lib/demo/notice';
 
 /**
  * Whether the invented demo data is loaded: the demo seeder's accounts all use the reserved

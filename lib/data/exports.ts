@@ -3,7 +3,7 @@ import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, sequelize } from '@/models';
 import { csvRows } from '../export/write-csv';
-import { pseudonymFor } from '../export/pseudonym';
+import { pseudonymFor } from './pseudonym';
 import { assertRole, type SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 

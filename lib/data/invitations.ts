@@ -10,7 +10,7 @@ import { AppError } from '../http/errors';
 import { sendMail, type OutgoingMail } from '../mail/mailer';
 import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/templates';
 import { hashPassword } from '../auth/passwords';
-import { isLocked, recordFailure } from '../auth/sign-in-throttle';
+import { isLocked, recordFailure } from './sign-in-throttle';
 import { nameSchema } from '../validation/display-name';
 import type { SessionUser } from '../auth/session';
 import { manageableCohort } from './cohort-access';

@@ -2,7 +2,8 @@ import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
 import { AppError } from '@/lib/http/errors';
-import { gradeIdOf, gradeStoredName, threadSpecOf, type JointInput } from '@/lib/joints/joint-input';
+import type { JointInput } from '@/lib/joints/joint-input';
+import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-properties';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
 import type { GradeId } from '@/lib/calc/grades';
@@ -84,7 +85,7 @@ const jointSummary = (j: Joint, runs: number): JointSummary => ({
   nominalSize: j.nominalSize,
   pressureClass: j.pressureClass,
   studCount: j.studCount,
-  thread: threadSpecOf(j.threadSystem, j.threadDiameter, j.threadPitch),
+  thread: threadSpecOf(j),
   studGrade: j.studGrade,
   targetLoadN: j.targetLoadN,
   bandPercent: j.bandPercent,

@@ -3,8 +3,7 @@ import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
-import { gradeProperties, type GradeId } from '@/lib/calc/grades';
-import { threadGeometry } from '@/lib/calc/thread';
+import { maxBelievableStudLoad, STUD_YOUNGS_MODULUS_PA, tensileStressAreaM2Of } from '@/lib/joints/joint-properties';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import { columnMappingSchema, type ColumnMapping } from '@/lib/ingest/shapes';
 import { runHeaderSchema, recordedAtDate, type RunHeaderFields } from '@/lib/record/run-header-schema';
@@ -35,12 +34,6 @@ export interface RecordJoint {
   /** Young's modulus used for microstrain files, Pa. */
   youngsModulusPa: number;
 }
-
-/**
- * E of alloy steel studs, 205 GPa (common practice, from memory: a typical handbook value for
- * Cr-Mo steel at room temperature), used to turn microstrain into load.
- */
-export const STUD_YOUNGS_MODULUS_PA = 205e9;
 
 export interface RecordMethod {
   id: number;
@@ -76,56 +69,8 @@ export interface RecordOptions {
   rememberedMappings: RememberedMapping[];
 }
 
-/** The stud grade stored on a joint (free text such as "ASTM A193 B7") as a grade of our table, or null. */
-export function gradeIdOfText(text: string): GradeId | null {
-  const t = text.toUpperCase().replace(/\s+/g, ' ');
-  if (!t.includes('A193')) return null;
-  if (t.includes('A193M') && /\bB7\b/.test(t)) return 'A193M-B7';
-  if (/\bB7M\b/.test(t)) return 'A193-B7M';
-  if (/\bB16\b/.test(t)) return 'A193-B16';
-  if (/\bB8M?\b/.test(t)) return /CLASS 2|CL ?2/.test(t) ? 'A193-B8-CL2' : 'A193-B8-CL1';
-  if (/\bB7\b/.test(t)) return 'A193-B7';
-  return null;
-}
-
-/** Margin over the minimum tensile load for a believable gauge reading: our own choice, not a standard. */
-const ABSURD_LOAD_MARGIN = 1.2;
-
-/**
- * The largest believable stud load of a joint: 1.2 × the stud grade's minimum tensile strength ×
- * the thread's tensile stress area (lib/calc); 3 × the target load when the grade is not in our table.
- */
-export function stabilityLimitOf(joint: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch' | 'studGrade' | 'targetLoadN'>): { maxStudLoadN: number; source: string } {
-  const grade = gradeIdOfText(joint.studGrade);
-  try {
-    if (!grade) throw new Error('unknown grade');
-    const thread =
-      joint.threadSystem === 'inch'
-        ? ({ system: 'inch', diameterIn: joint.threadDiameter, threadsPerInch: joint.threadPitch } as const)
-        : ({ system: 'metric', diameterMm: joint.threadDiameter, pitchMm: joint.threadPitch } as const);
-    const geometry = threadGeometry(thread);
-    const props = gradeProperties(grade, geometry.diameterMm);
-    const minTensileN = props.tensileMpa * geometry.tensileStressAreaMm2;
-    return {
-      maxStudLoadN: ABSURD_LOAD_MARGIN * minTensileN,
-      source: `${ABSURD_LOAD_MARGIN} × the stud's minimum tensile load of ${formatDecimals(minTensileN / 1000, 1, 0)} kN (${props.label})`,
-    };
-  } catch {
-    return { maxStudLoadN: 3 * joint.targetLoadN, source: `3 × the joint's target load (the stud grade "${joint.studGrade}" is not in our table)` };
-  }
-}
-
-function stressAreaM2Of(joint: Joint): number | null {
-  try {
-    const thread = joint.threadSystem === 'inch' ? ({ system: 'inch', diameterIn: joint.threadDiameter, threadsPerInch: joint.threadPitch } as const) : ({ system: 'metric', diameterMm: joint.threadDiameter, pitchMm: joint.threadPitch } as const);
-    return threadGeometry(thread).tensileStressAreaMm2 * 1e-6;
-  } catch {
-    return null;
-  }
-}
-
 function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
-  const limit = stabilityLimitOf(joint);
+  const limit = maxBelievableStudLoad(joint);
   const calibration = Array.from({ length: joint.studCount }, (_, i) => positions.find((p) => p.position === i + 1)?.calibrationFactor ?? 1);
   return {
     id: joint.id,
@@ -136,7 +81,7 @@ function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
     maxStudLoadN: limit.maxStudLoadN,
     maxStudLoadSource: limit.source,
     calibration,
-    stressAreaM2: stressAreaM2Of(joint),
+    stressAreaM2: tensileStressAreaM2Of(joint),
     youngsModulusPa: STUD_YOUNGS_MODULUS_PA,
   };
 }

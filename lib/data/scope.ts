@@ -3,7 +3,7 @@ import { Op, type WhereOptions } from 'sequelize';
 import { Cohort } from '@/models';
 import { AppError } from '../http/errors';
 import type { SessionUser } from '../auth/session';
-import { pseudonymFor } from '../export/pseudonym';
+import { pseudonymFor } from './pseudonym';
 
 /** The cohorts an instructor teaches. */
 export async function taughtCohortIds(user: SessionUser): Promise<number[]> {

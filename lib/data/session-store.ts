@@ -116,3 +116,10 @@ export async function endAllSessions(userId: number, transaction?: Transaction, 
   await UserSession.update({ revokedAt: now }, { where: { userId, revokedAt: null }, transaction });
   for (const [sid, verdict] of verdicts) if (verdict.account?.id === userId) verdicts.delete(sid);
 }
+
+/** The account a sign-in names, with what the password check and the token need; null when unknown. */
+export async function findAccountForSignIn(email: string): Promise<{ id: number; name: string; email: string; role: Role; preferredUnits: UnitSystem; passwordHash: string | null; isActive: boolean; sessionVersion: number } | null> {
+  const user = await User.findOne({ where: { email } });
+  if (!user) return null;
+  return { id: user.id, name: user.name, email: user.email, role: user.role, preferredUnits: user.preferredUnits, passwordHash: user.passwordHash, isActive: user.isActive, sessionVersion: user.sessionVersion };
+}

@@ -1,7 +1,7 @@
 import 'server-only';
 import { NextResponse, type NextRequest } from 'next/server';
-import { ConnectionError, ConnectionAcquireTimeoutError } from 'sequelize';
 import { ZodError } from 'zod';
+import { isDatabaseDown } from './database-down';
 import { AppError, httpStatusOf } from './errors';
 import { assertRole, getSessionUser, type SessionUser } from '../auth/session';
 import type { Role } from '@/models/user';
@@ -31,12 +31,6 @@ export function errorResponse(error: unknown): NextResponse {
   }
   console.error('[api] unexpected error', error);
   return NextResponse.json({ error: { code: 'internal', message: 'Something went wrong on our side. Try again.' } }, { status: 500 });
-}
-
-export function isDatabaseDown(error: unknown): boolean {
-  if (error instanceof ConnectionError || error instanceof ConnectionAcquireTimeoutError) return true;
-  const name = (error as { name?: string } | null)?.name ?? '';
-  return name.startsWith('SequelizeConnection') || name === 'SequelizeHostNotReachableError';
 }
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);

@@ -1,24 +1,36 @@
-import { isAppError } from './errors';
+import type { AppErrorCode } from './errors';
 
-/** What every server action returns to its form (useActionState). */
-export interface ActionState {
-  ok: boolean;
+/** Per-field messages, as zod's `flattenError(...).fieldErrors` gives them. */
+export type FieldErrors = Record<string, string[] | undefined>;
+
+/**
+ * What every server action returns to its form (useActionState), one shape for all of them:
+ * - `idle` before the first submit;
+ * - `ok` with a message and, where the form needs one, `data` (the run saved, the token made,
+ *   the e-mail to sign in with, the compare link);
+ * - `error` with a message, `fieldErrors` only when fields are to be marked, the AppError `code`
+ *   (`forbidden`, `conflict`, `unavailable`, …) and `cell` when a grid cell is at fault.
+ * Built by `lib/http/form-error.ts` (errors) and `lib/http/server-action.ts` (the wrapper).
+ */
+export interface FormState<T = undefined> {
+  status: 'idle' | 'ok' | 'error';
   message: string | null;
-  errors?: Record<string, string[] | undefined>;
-  /** Values a form may show after success (e.g. the e-mail to sign in with). */
-  data?: Record<string, string>;
+  fieldErrors?: FieldErrors;
+  code?: AppErrorCode;
+  /** Row (1-based) and column of a grid or file error, to mark the cell. */
+  cell?: { row: number; column: string };
+  data?: T;
 }
 
-export const IDLE_STATE: ActionState = { ok: false, message: null };
+/** The state a form starts in. */
+export const IDLE_FORM_STATE: FormState<never> = { status: 'idle', message: null };
 
-/** Turns a thrown error into the form's state: AppError messages are shown, anything else is logged. */
-export function failureState(error: unknown): ActionState {
-  if (isAppError(error)) {
-    const fieldErrors = error.details.fieldErrors;
-    return { ok: false, message: error.message, ...(fieldErrors ? { errors: fieldErrors } : {}) };
-  }
-  const name = (error as { name?: string } | null)?.name ?? '';
-  if (name.startsWith('SequelizeConnection')) return { ok: false, message: 'The database is not answering. Nothing was saved; try again in a few seconds.' };
-  console.error('[action] unexpected error', error);
-  return { ok: false, message: 'Something went wrong on our side and nothing was saved. Try again.' };
+/** A success with its message and, optionally, what the form shows next. */
+export function okState<T = undefined>(message: string, data?: T): FormState<T> {
+  return data === undefined ? { status: 'ok', message } : { status: 'ok', message, data };
+}
+
+/** True when the state marks at least one field (the form then shows the field's message, not its own). */
+export function hasFieldErrors(state: Pick<FormState<unknown>, 'fieldErrors'>): boolean {
+  return Object.values(state.fieldErrors ?? {}).some((messages) => Boolean(messages?.length));
 }

@@ -4,6 +4,10 @@
  * a time (e.g. from papaparse's `step` callback) and keeps O(studCount) state per row, so a file
  * of 1,000,000 readings is never held as row objects. {@link normaliseRows} is a thin wrapper.
  *
+ * Each file shape has its own small reader in `readers/` (`wide.ts`, `long.ts`, `step-table.ts`);
+ * this file checks the joint, finds the columns, reads what every row shares and turns the closed
+ * steps into the result.
+ *
  * How steps are read (our rules):
  * - **Marker steps** (wide or long with a step column): a step is a run of consecutive rows with
  *   the same (pass, step) marker; a blank marker cell carries the previous marker forward, and
@@ -21,29 +25,21 @@
  *   tightened in the current pass is tightened again.
  */
 import { AppError } from '@/lib/http/errors';
-import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
-import { readNumberCell } from './numbers';
-import { clipInput, quoteInput } from './text-limits';
 import type { ColumnMapping } from './shapes';
-import { loadToN, torqueToNm, type StrainConversion } from './units';
-import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DerivedStep, type Snapshot, type StepDeriver } from './derive-steps';
+import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DerivedStep, type StepDeriver } from './derive-steps';
+import { cellError, createCellReader, formatLoadN } from './readers/cells';
+import { resolveColumns } from './readers/columns';
+import { createLongReader } from './readers/long';
+import { createRowExtrasReader } from './readers/row-extras';
+import { createSnapshotSink } from './readers/snapshots';
+import { createStepCollector, type StepCollector, type StepLines } from './readers/steps';
+import { createStepTableReader } from './readers/step-table';
+import type { JointForImport, ShapeReader } from './readers/types';
+import { createWideReader, studColumnIndexes } from './readers/wide';
+import type { NormalisedRun } from '@/lib/record/run-types';
 
-/** What the import needs to know about the joint the run was recorded on. */
-export interface JointForImport {
-  studCount: number;
-  /** Target stud load in N. */
-  targetLoadN: number;
-  /** Largest believable stud load in N; anything above is rejected as absurd. */
-  maxStudLoadN: number;
-  /** Where `maxStudLoadN` comes from, for the message, e.g. `1.2 × the stud's minimum tensile load of 156 kN`. */
-  maxStudLoadSource?: string;
-  /** Per-position calibration factor for microstrain files (index 0 = position 1); default all 1. */
-  calibration?: number[];
-  /** Stress area at the gauges in m², needed for microstrain files. */
-  stressAreaM2?: number;
-  /** Young's modulus of the studs in Pa, needed for microstrain files. */
-  youngsModulusPa?: number;
-}
+export type { JointForImport } from './readers/types';
+export type { StepLines } from './readers/steps';
 
 /** How the rows were laid out in the file. */
 export interface NormaliseOptions {
@@ -55,13 +51,6 @@ export interface NormaliseOptions {
   headerLine?: number;
   /** Tuning of step derivation for files without a step column. */
   derive?: Omit<DeriveStepsOptions, 'targetLoadN'>;
-}
-
-/** Lines a step was read from. */
-export interface StepLines {
-  order: number;
-  firstLine: number;
-  lastLine: number;
 }
 
 /** The normalised run and how it was obtained. */
@@ -86,29 +75,14 @@ export interface RowNormaliser {
   finish(): NormaliseResult;
 }
 
-function fmtN(n: number): string {
-  return Math.abs(n) >= 1000 ? `${+(n / 1000).toPrecision(6)} kN` : `${+n.toPrecision(6)} N`;
-}
-
-function ranges(positions: number[]): string {
-  return positions.join(', ');
-}
-
-function bad(line: number, column: string, message: string): AppError {
-  const name = quoteInput(column);
-  return new AppError('invalid_input', `Line ${line}, column ${name}: ${message}`, { row: line, column: name.slice(1, -1) });
-}
-
-interface PendingStep {
-  firstLine: number;
-  lastLine: number;
-  loads: Float64Array;
-  timeS: number | null;
-  torque: number | null;
-  pressure: number | null;
-  pass: number | null;
-  tightened: number | null;
-  label: string;
+function checkJoint(joint: JointForImport): void {
+  const N = joint.studCount;
+  if (!(Number.isInteger(N) && N >= 1)) throw new AppError('invalid_input', `The joint's stud count must be a whole number of 1 or more, got ${N}.`, { field: 'studCount' });
+  if (!(joint.targetLoadN > 0)) throw new AppError('invalid_input', `The joint's target load must be positive, got ${joint.targetLoadN} N.`, { field: 'targetLoadN' });
+  if (!(joint.maxStudLoadN > 0)) throw new AppError('invalid_input', `The joint's maximum stud load must be positive, got ${joint.maxStudLoadN} N.`, { field: 'maxStudLoadN' });
+  if (joint.calibration && joint.calibration.length !== N) {
+    throw new AppError('invalid_input', `The joint has ${N} studs but ${joint.calibration.length} calibration factors.`, { field: 'calibration' });
+  }
 }
 
 /**
@@ -125,362 +99,92 @@ export function createRowNormaliser(
 ): RowNormaliser {
   const N = joint.studCount;
   const headerLine = options.headerLine ?? options.firstDataLine - 1;
-  if (!(Number.isInteger(N) && N >= 1)) throw new AppError('invalid_input', `The joint's stud count must be a whole number of 1 or more, got ${N}.`, { field: 'studCount' });
-  if (!(joint.targetLoadN > 0)) throw new AppError('invalid_input', `The joint's target load must be positive, got ${joint.targetLoadN} N.`, { field: 'targetLoadN' });
-  if (!(joint.maxStudLoadN > 0)) throw new AppError('invalid_input', `The joint's maximum stud load must be positive, got ${joint.maxStudLoadN} N.`, { field: 'maxStudLoadN' });
-  if (joint.calibration && joint.calibration.length !== N) {
-    throw new AppError('invalid_input', `The joint has ${N} studs but ${joint.calibration.length} calibration factors.`, { field: 'calibration' });
-  }
-  const limitSource = joint.maxStudLoadSource ?? "the joint's maximum stud load";
-  const strainFor = (position: number): StrainConversion | undefined =>
-    mapping.loadUnit === 'microstrain'
-      ? {
-          youngsModulusPa: joint.youngsModulusPa ?? Number.NaN,
-          stressAreaM2: joint.stressAreaM2 ?? Number.NaN,
-          calibrationFactor: joint.calibration?.[position - 1] ?? 1,
-        }
-      : undefined;
-  if (mapping.loadUnit === 'microstrain') loadToN(0, 'microstrain', strainFor(1));
+  checkJoint(joint);
+  const cells = createCellReader(headers, mapping.loadUnit, joint, options.decimalComma);
+  const { names } = cells;
+  const columns = resolveColumns(names, mapping, headerLine);
+  const studIdx = mapping.shape === 'wide' ? studColumnIndexes(names, mapping.studColumns, N, headerLine) : null;
 
-  const names = headers.map((h) => h.trim());
-  const indexOf = (name: string | null): number => {
-    if (name === null) return -1;
-    const at: number[] = [];
-    names.forEach((h, i) => {
-      if (h === name.trim()) at.push(i);
-    });
-    if (at.length === 0) throw bad(headerLine, name, 'the mapping names this column but the header has no such column.');
-    if (at.length > 1) throw bad(headerLine, name, `the header has ${at.length} columns with this name (columns ${at.map((i) => i + 1).join(' and ')}); rename one.`);
-    return at[0]!;
-  };
-  const timeIdx = indexOf(mapping.timeColumn);
-  const stepIdx = indexOf(mapping.stepColumn);
-  const passIdx = indexOf(mapping.passColumn);
-  const torqueIdx = indexOf(mapping.torqueColumn);
-  const pressureIdx = indexOf(mapping.pressureColumn);
-  const tightIdx = indexOf(mapping.tightenedColumn);
-  const shape = mapping.shape;
-  const posIdx = shape === 'wide' ? -1 : indexOf(mapping.positionColumn);
-  const loadIdx = shape === 'wide' ? -1 : indexOf(mapping.loadColumn);
-  if (shape !== 'wide' && (posIdx < 0 || loadIdx < 0)) {
-    throw new AppError('invalid_input', `A ${shape === 'long' ? 'long table' : 'step table'} needs a position column and a load column.`, { field: 'mapping' });
-  }
-  if (shape === 'long' && timeIdx < 0) throw new AppError('invalid_input', 'A long table needs a time column.', { field: 'timeColumn' });
-  if (shape === 'step_table' && stepIdx < 0) throw new AppError('invalid_input', 'A step table needs a step column.', { field: 'stepColumn' });
-
-  // Wide: which column holds which position.
-  const studIdx = new Int32Array(N).fill(-1);
-  if (shape === 'wide') {
-    const byPosition = new Map<number, string>();
-    for (const s of mapping.studColumns) {
-      const i = indexOf(s.column);
-      if (s.position < 1 || s.position > N) throw bad(headerLine, s.column, `position ${s.position} is outside 1..${N} (the joint has ${N} studs).`);
-      const prev = byPosition.get(s.position);
-      if (prev !== undefined) throw bad(headerLine, s.column, `position ${s.position} is mapped twice (${quoteInput(prev)} and ${quoteInput(s.column)}).`);
-      if (studIdx.includes(i)) throw bad(headerLine, s.column, 'this column is mapped to two stud positions.');
-      byPosition.set(s.position, s.column);
-      studIdx[s.position - 1] = i;
-    }
-    const missing: number[] = [];
-    studIdx.forEach((i, k) => {
-      if (i < 0) missing.push(k + 1);
-    });
-    if (missing.length > 0) {
-      throw new AppError(
-        'invalid_input',
-        `Line ${headerLine}: the joint has ${N} studs but the file has no load column for position${missing.length === 1 ? '' : 's'} ${ranges(missing)}.`,
-        { row: headerLine, missingPositions: missing },
-      );
-    }
-  }
-
-  const warnings: string[] = [];
-  const steps: NormalisedStep[] = [];
-  const stepLines: StepLines[] = [];
-  const passesGiven: (number | null)[] = [];
+  const collector = createStepCollector(N);
+  const extras = createRowExtrasReader(cells, columns, mapping, options.decimalComma);
+  const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
+  const sink = createSnapshotSink(N, collector, deriver);
+  const reader: ShapeReader = studIdx
+    ? createWideReader(cells, extras, studIdx, sink)
+    : mapping.shape === 'long'
+      ? createLongReader(cells, columns, extras, N, sink)
+      : createStepTableReader(cells, columns, extras, N, collector);
   let rowCount = 0;
-  let lastTime = Number.NEGATIVE_INFINITY;
-  let lastTimeLine = 0;
-  let markerStep = '';
-  let markerPass: number | null = null;
-  let hasMarker = false;
-
-  const num = (row: readonly string[], idx: number, line: number, required: boolean): number | null => {
-    const raw = row[idx] ?? '';
-    const r = readNumberCell(raw, options.decimalComma);
-    if (r.kind === 'number') return r.value;
-    if (r.kind === 'empty') {
-      if (required) throw bad(line, names[idx]!, 'the cell is empty; a number is needed here.');
-      return null;
-    }
-    throw bad(line, names[idx]!, `${quoteInput(raw)} ${r.reason}.`);
-  };
-  const loadN = (row: readonly string[], idx: number, line: number, position: number): number => {
-    const v = num(row, idx, line, true)!;
-    if (v < 0) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is a negative load; stud loads must be 0 or more.`);
-    const n = loadToN(v, mapping.loadUnit, strainFor(position));
-    if (n > joint.maxStudLoadN) {
-      throw bad(line, names[idx]!, `${fmtN(n)} is above the limit of ${fmtN(joint.maxStudLoadN)} (${limitSource}); check the load unit (${mapping.loadUnit}).`);
-    }
-    return n;
-  };
-  const positionOf = (row: readonly string[], idx: number, line: number): number => {
-    const v = num(row, idx, line, true)!;
-    if (!Number.isInteger(v)) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is not a whole stud position.`);
-    if (v < 1 || v > N) throw bad(line, names[idx]!, `position ${v} is outside 1..${N} (the joint has ${N} studs).`);
-    return v;
-  };
-  const optionalNumber = (row: readonly string[], idx: number, line: number, what: string): number | null => {
-    if (idx < 0) return null;
-    const v = num(row, idx, line, false);
-    if (v !== null && v < 0) throw bad(line, names[idx]!, `${quoteInput(row[idx]!)} is a negative ${what}.`);
-    return v;
-  };
-  /** Reads the markers of a row; returns the marker key ('' = before the first marker). */
-  const readMarker = (row: readonly string[], line: number): string => {
-    if (passIdx >= 0) {
-      const raw = (row[passIdx] ?? '').trim();
-      if (raw !== '') {
-        const r = readNumberCell(raw, options.decimalComma);
-        if (r.kind !== 'number' || !Number.isInteger(r.value) || r.value < 1) {
-          throw bad(line, names[passIdx]!, `${quoteInput(raw)} is not a pass number (1, 2, 3, ...).`);
-        }
-        markerPass = r.value;
-      }
-    }
-    if (stepIdx >= 0) {
-      const raw = (row[stepIdx] ?? '').trim();
-      if (raw !== '') {
-        markerStep = raw;
-        hasMarker = true;
-      } else if (shape === 'step_table' && !hasMarker) {
-        throw bad(line, names[stepIdx]!, 'the step cell is empty on the first data row.');
-      }
-    }
-    return hasMarker ? `${markerPass ?? ''}\u0000${markerStep}` : '';
-  };
-
-  // ---- step output ----
-  let previousReading: Float64Array = new Float64Array(N);
-  const closeStep = (p: PendingStep) => {
-    let position = p.tightened;
-    if (position === null) {
-      let best = -1;
-      let rise = Number.NEGATIVE_INFINITY;
-      for (let k = 0; k < N; k++) {
-        const d = p.loads[k]! - previousReading[k]!;
-        if (d > rise) {
-          rise = d;
-          best = k;
-        }
-      }
-      position = best + 1;
-      if (!(rise > 0)) warnings.push(`Lines ${p.firstLine}–${p.lastLine}: no stud load rose in step ${clipInput(p.label)}; tightened position ${position} is a guess.`);
-    }
-    const order = steps.length + 1;
-    steps.push({
-      order,
-      pass: p.pass ?? 0,
-      position,
-      appliedTorqueNm: p.torque,
-      appliedPressureBar: p.pressure,
-      timeS: p.timeS,
-      loadsN: Array.from(p.loads),
-    });
-    passesGiven.push(p.pass);
-    stepLines.push({ order, firstLine: p.firstLine, lastLine: p.lastLine });
-    previousReading = p.loads;
-  };
-
-  // ---- snapshots (wide and long) -> marker segments or the deriver ----
-  const deriver: StepDeriver | null = stepIdx < 0 && shape !== 'step_table' ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
-  let segment: (PendingStep & { key: string }) | null = null;
-  let baseline: Float64Array | null = null;
-  const copyInto = (to: Float64Array, from: ArrayLike<number>) => {
-    for (let k = 0; k < N; k++) to[k] = from[k]!;
-  };
-  const takeSnapshot = (s: Snapshot & { key: string; tightened: number | null }) => {
-    if (deriver) {
-      deriver.push(s);
-      return;
-    }
-    if (s.key === '') {
-      baseline ??= new Float64Array(N);
-      copyInto(baseline, s.loadsN);
-      return;
-    }
-    if (!segment || segment.key !== s.key) {
-      if (segment) closeStep(segment);
-      else {
-        previousReading = new Float64Array(N);
-        copyInto(previousReading, baseline ?? s.loadsN);
-      }
-      segment = { key: s.key, label: s.key.split('\u0000')[1] ?? '', firstLine: s.line, lastLine: s.line, loads: new Float64Array(N), timeS: null, torque: null, pressure: null, pass: null, tightened: null };
-    }
-    copyInto(segment.loads, s.loadsN);
-    segment.lastLine = s.line;
-    segment.timeS = s.timeS;
-    segment.pass = s.pass ?? null;
-    if (s.appliedTorqueNm != null) segment.torque = s.appliedTorqueNm;
-    if (s.appliedPressureBar != null) segment.pressure = s.appliedPressureBar;
-    if (s.tightened !== null) segment.tightened = s.tightened;
-  };
-
-  const readTime = (row: readonly string[], line: number, required: boolean): number | null => {
-    if (timeIdx < 0) return null;
-    const t = num(row, timeIdx, line, required);
-    if (t === null) return null;
-    if (t < lastTime) throw bad(line, names[timeIdx]!, `time goes backwards (${t} s after ${lastTime} s on line ${lastTimeLine}).`);
-    lastTime = t;
-    lastTimeLine = line;
-    return t;
-  };
-
-  // wide
-  const wideLoads = new Float64Array(N);
-  // long: current time stamp
-  const longLoads = new Float64Array(N).fill(Number.NaN);
-  const longSeen = new Int32Array(N);
-  let longTime: number | null = null;
-  let longFirst = 0;
-  let longLast = 0;
-  let longExtras: { key: string; torque: number | null; pressure: number | null; tightened: number | null; pass: number | null } | null = null;
-  const closeTimeStamp = () => {
-    if (longTime === null || !longExtras) return;
-    const missing: number[] = [];
-    longLoads.forEach((v, k) => {
-      if (Number.isNaN(v)) missing.push(k + 1);
-    });
-    if (missing.length > 0) {
-      throw bad(longFirst, names[posIdx]!, `time ${longTime} s has no reading for position${missing.length === 1 ? '' : 's'} ${ranges(missing)} (the first time stamp must list every stud; later ones carry the last value forward).`);
-    }
-    takeSnapshot({ line: longLast, timeS: longTime, loadsN: longLoads, appliedTorqueNm: longExtras.torque, appliedPressureBar: longExtras.pressure, pass: longExtras.pass, key: longExtras.key, tightened: longExtras.tightened });
-    longSeen.fill(0);
-  };
-  // step table: current step
-  let table: (PendingStep & { key: string; seen: Int32Array }) | null = null;
-  const closeTableStep = () => {
-    if (!table) return;
-    const missing: number[] = [];
-    table.seen.forEach((l, k) => {
-      if (l === 0) missing.push(k + 1);
-    });
-    if (missing.length > 0) {
-      throw bad(table.lastLine, names[posIdx]!, `step ${clipInput(table.label)} (lines ${table.firstLine}–${table.lastLine}) has no reading for position${missing.length === 1 ? '' : 's'} ${ranges(missing)}; a step table lists every stud after every step.`);
-    }
-    closeStep(table);
-  };
-
-  const tightenedOf = (row: readonly string[], line: number): number | null => {
-    if (tightIdx < 0 || (row[tightIdx] ?? '').trim() === '') return null;
-    return positionOf(row, tightIdx, line);
-  };
 
   return {
     push(row, line) {
       if (row.every((c) => c.trim() === '')) return;
       if (row.length < names.length) {
-        throw bad(line, names[row.length]!, `the row has ${row.length} cells but the header (line ${headerLine}) has ${names.length}; this column is missing.`);
+        throw cellError(line, names[row.length]!, `the row has ${row.length} cells but the header (line ${headerLine}) has ${names.length}; this column is missing.`);
       }
       if (row.length > names.length && row.slice(names.length).some((c) => c.trim() !== '')) {
-        throw bad(line, `column ${names.length + 1}`, `the row has ${row.length} cells but the header (line ${headerLine}) has ${names.length}.`);
+        throw cellError(line, `column ${names.length + 1}`, `the row has ${row.length} cells but the header (line ${headerLine}) has ${names.length}.`);
       }
       rowCount++;
-      const key = readMarker(row, line);
-      const torqueRaw = optionalNumber(row, torqueIdx, line, 'torque');
-      const torque = torqueRaw === null ? null : torqueToNm(torqueRaw, mapping.torqueUnit);
-      const pressure = optionalNumber(row, pressureIdx, line, 'pressure');
-      const tightened = tightenedOf(row, line);
-      const pass = markerPass;
-      if (shape === 'wide') {
-        const timeS = readTime(row, line, true);
-        for (let k = 0; k < N; k++) wideLoads[k] = loadN(row, studIdx[k]!, line, k + 1);
-        takeSnapshot({ line, timeS, loadsN: wideLoads, appliedTorqueNm: torque, appliedPressureBar: pressure, pass, key, tightened });
-        return;
-      }
-      const position = positionOf(row, posIdx, line);
-      const load = loadN(row, loadIdx, line, position);
-      if (shape === 'long') {
-        const t = readTime(row, line, true)!;
-        if (longTime === null || t > longTime) {
-          closeTimeStamp();
-          longTime = t;
-          longFirst = line;
-          longExtras = { key, torque: null, pressure: null, tightened: null, pass };
-        }
-        const seenAt = longSeen[position - 1]!;
-        if (seenAt > 0) throw bad(line, names[posIdx]!, `position ${position} appears twice at time ${t} s (lines ${seenAt} and ${line}).`);
-        longSeen[position - 1] = line;
-        longLoads[position - 1] = load;
-        longLast = line;
-        longExtras!.key = key;
-        longExtras!.pass = pass;
-        if (torque !== null) longExtras!.torque = torque;
-        if (pressure !== null) longExtras!.pressure = pressure;
-        if (tightened !== null) longExtras!.tightened = tightened;
-        return;
-      }
-      // step table
-      const timeS = readTime(row, line, false);
-      if (!table || table.key !== key) {
-        closeTableStep();
-        table = { key, label: markerStep, seen: new Int32Array(N), firstLine: line, lastLine: line, loads: new Float64Array(N), timeS: null, torque: null, pressure: null, pass: null, tightened: null };
-      }
-      const seenAt = table.seen[position - 1]!;
-      if (seenAt > 0) throw bad(line, names[posIdx]!, `position ${position} appears twice in step ${clipInput(table.label)} (lines ${seenAt} and ${line}).`);
-      table.seen[position - 1] = line;
-      table.loads[position - 1] = load;
-      table.lastLine = line;
-      table.pass = pass;
-      if (timeS !== null) table.timeS = timeS;
-      if (torque !== null) table.torque = torque;
-      if (pressure !== null) table.pressure = pressure;
-      if (tightened !== null) table.tightened = tightened;
+      reader.read(row, line, extras.read(row, line));
     },
 
     finish() {
       if (rowCount === 0) {
         throw new AppError('invalid_input', `Line ${headerLine}: the file has a header but no data rows below it.`, { row: headerLine });
       }
-      if (shape === 'long') closeTimeStamp();
-      if (shape === 'step_table') closeTableStep();
-      if (segment) closeStep(segment);
-      let derived: DerivedStep[] = [];
-      if (deriver) {
-        const d = deriver.finish();
-        derived = d.steps;
-        warnings.push(...d.warnings);
-        for (const s of derived) {
-          steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN });
-          stepLines.push({ order: s.order, firstLine: s.firstLine, lastLine: s.lastLine });
-        }
-        if (derived.length > 0) {
-          warnings.push(
-            `No step column: ${derived.length} steps derived from the loads (a rise of more than ${(options.derive?.thresholdFraction ?? 0.02) * 100} % of the target on one stud is a step${passIdx < 0 ? '; a new pass starts when a stud already tightened in the pass is tightened again' : ''}). Confirm them.`,
-          );
-        }
-      } else if (passesGiven.every((p) => p === null)) {
-        const passes = assignPasses(steps.map((s) => s.position));
-        steps.forEach((s, i) => (s.pass = passes[i]!));
-        if (steps.length > 0) warnings.push('No pass column: a new pass starts when a stud already tightened in the pass is tightened again.');
-      } else {
-        let last = 1;
-        steps.forEach((s, i) => {
-          s.pass = passesGiven[i] ?? last;
-          last = s.pass;
-        });
-      }
+      reader.close();
+      sink.close();
+      const derived = deriver ? addDerivedSteps(deriver, collector, options, columns.pass >= 0) : [];
+      if (!deriver) resolvePasses(collector);
+      const { steps, stepLines, warnings } = collector;
       if (steps.length === 0) {
-        const threshold = (options.derive?.thresholdFraction ?? 0.02) * joint.targetLoadN;
+        const fraction = options.derive?.thresholdFraction ?? 0.02;
         throw new AppError(
           'invalid_input',
-          `Line ${options.firstDataLine}: no steps found. No single stud's load rose by more than ${fmtN(threshold)} (${(options.derive?.thresholdFraction ?? 0.02) * 100} % of the target); add a step column or check the load unit.`,
+          `Line ${options.firstDataLine}: no steps found. No single stud's load rose by more than ${formatLoadN(fraction * joint.targetLoadN)} (${fraction * 100} % of the target); add a step column or check the load unit.`,
           { row: options.firstDataLine },
         );
       }
-      return { run: { studCount: N, targetLoadN: joint.targetLoadN, steps }, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount };
+      const run: NormalisedRun = { studCount: N, targetLoadN: joint.targetLoadN, steps };
+      return { run, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount };
     },
   };
+}
+
+/** Moves the deriver's steps into the collector, with a warning asking to confirm them. */
+function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options: NormaliseOptions, hasPassColumn: boolean): DerivedStep[] {
+  const d = deriver.finish();
+  collector.warnings.push(...d.warnings);
+  for (const s of d.steps) {
+    collector.steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN });
+    collector.stepLines.push({ order: s.order, firstLine: s.firstLine, lastLine: s.lastLine });
+  }
+  if (d.steps.length > 0) {
+    collector.warnings.push(
+      `No step column: ${d.steps.length} steps derived from the loads (a rise of more than ${(options.derive?.thresholdFraction ?? 0.02) * 100} % of the target on one stud is a step${hasPassColumn ? '' : '; a new pass starts when a stud already tightened in the pass is tightened again'}). Confirm them.`,
+    );
+  }
+  return d.steps;
+}
+
+/**
+ * Pass numbers of marker steps: from the pass column, a step without one taking the pass before it;
+ * without a pass column, a new pass starts when a stud already tightened in the pass is tightened again.
+ */
+function resolvePasses(collector: StepCollector): void {
+  const { steps, passesGiven } = collector;
+  if (passesGiven.every((p) => p === null)) {
+    const passes = assignPasses(steps.map((s) => s.position));
+    steps.forEach((s, i) => (s.pass = passes[i]!));
+    if (steps.length > 0) collector.warnings.push('No pass column: a new pass starts when a stud already tightened in the pass is tightened again.');
+    return;
+  }
+  let last = 1;
+  steps.forEach((s, i) => {
+    s.pass = passesGiven[i] ?? last;
+    last = s.pass;
+  });
 }
 
 /**

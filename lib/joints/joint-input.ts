@@ -6,6 +6,7 @@ import { percentOfYield, preloadFromPercentOfYield, preloadFromStress, preloadWa
 import { STANDARD_THREADS, threadGeometry, threadSpecSchema, type ThreadGeometry, type ThreadSpec } from '@/lib/calc/thread';
 import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
+import { gradeIdOf } from './joint-properties';
 import { parseNumberText } from '@/lib/format/parse-number';
 
 /**
@@ -28,22 +29,6 @@ export const STUD_COUNT_RANGE = { min: 3, max: 96 } as const;
 /** Strain-gauge calibration factors the form accepts (ours: a gauge further off than ±50 % is faulty). */
 export const CALIBRATION_RANGE = { min: 0.5, max: 1.5 } as const;
 
-/**
- * The stored stud grade → a grade id of lib/calc/grades. New joints store the id ("A193-B7");
- * older rows (the demo seed) store the trade name ("ASTM A193 B7"). Unknown text gives null.
- */
-export function gradeIdOf(stored: string): GradeId | null {
-  const direct = GRADES.find((g) => g.id === stored);
-  if (direct) return direct.id;
-  const normalised = stored.trim().replace(/^ASTM\s+/i, '').replace(/\s+/g, '-').toUpperCase();
-  return GRADES.find((g) => g.id.toUpperCase() === normalised)?.id ?? null;
-}
-
-/** The stud grade as stored: the trade name the demo seed also uses ("A193-B7" → "ASTM A193 B7"). */
-export function gradeStoredName(grade: GradeId): string {
-  return `ASTM ${grade.replace(/-/g, ' ')}`;
-}
-
 /** The picker value for a thread: a STANDARD_THREADS id, or `custom`. */
 export function threadChoiceOf(spec: ThreadSpec): string {
   const std = STANDARD_THREADS.find((t) =>
@@ -52,11 +37,6 @@ export function threadChoiceOf(spec: ThreadSpec): string {
       : t.spec.system === 'metric' && spec.system === 'metric' && t.spec.diameterMm === spec.diameterMm && t.spec.pitchMm === spec.pitchMm,
   );
   return std ? std.id : CUSTOM_THREAD;
-}
-
-/** Stored columns → thread spec (inch: inches and TPI; metric: mm and pitch). */
-export function threadSpecOf(system: 'inch' | 'metric', diameter: number, pitch: number): ThreadSpec {
-  return system === 'inch' ? { system, diameterIn: diameter, threadsPerInch: pitch } : { system, diameterMm: diameter, pitchMm: pitch };
 }
 
 /** Typed text read by the one number parser (lib/format/parse-number.ts); empty or unreadable text gives NaN. */
@@ -155,7 +135,8 @@ export function threadSeriesNote(thread: ThreadSpec): CalcWarning | null {
     code: 'not-8un',
     severity: 'caution',
     message: `Flange studs of 1 in and larger use the 8-thread series (8UN); this stud has ${thread.threadsPerInch} threads per inch.`,
-    source: 'ASME B1.1, 8-thread series (8UN)', // ✓ [CFR46], [TME] (docs/REFERENCE.md §1)
+    // ✓ [CFR46], [TME] (docs/REFERENCE.md §1)
+    source: 'ASME B1.1, 8-thread series (8UN)',
   };
 }
 

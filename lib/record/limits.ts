@@ -1,5 +1,5 @@
 /** Limits of the ways in, shared by the record page and the server. */
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 
 /** Largest logger file accepted by POST /api/uploads: 20 MB (1 MB = 1,048,576 bytes). */
 export const UPLOAD_LIMIT_BYTES = 20 * BYTES_PER_MB;

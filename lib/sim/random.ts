@@ -1,7 +1,8 @@
 import { SimInputError } from './errors';
 
 /**
- * A small seeded pseudo-random number generator for the simulator and the demo data.
+ * The one seeded pseudo-random number generator of the project: the simulator (and through it the
+ * Classroom and Record), the invented demo data and the tests all draw from it.
  *
  * Algorithm: **mulberry32**, a 32-bit generator widely reproduced in public JavaScript code
  * (attributed to Tommy Ettinger: from memory, unverified). Its period is 2³²: enough for training

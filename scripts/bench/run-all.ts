@@ -107,13 +107,17 @@ async function ensureCompareRuns(): Promise<number[]> {
     }
     await sequelize.query(`INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status, recorded_at, notes, stud_count, step_count, pass_count, final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at) VALUES ${batch.join(',')}`);
   }
+  // Spread the runs over several operators (the trainees as blocks of the mixed model).
+  const operators = (await q<{ id: number }>("SELECT id FROM users WHERE role = 'trainee' ORDER BY id LIMIT 12")).map((u) => u.id);
+  if (operators.length >= 2) await sequelize.query(`UPDATE runs SET operator_id = ELT(1 + id % ${operators.length}, ${operators.join(',')}) WHERE notes = 'bench compare run'`);
   return methods;
 }
 
 async function benchCompare(baseUrl: string) {
   const methods = await ensureCompareRuns();
   const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
-  const url = `/api/compare?by=method&ids=${methods.join(',')}`;
+  // The bench runs are stored as simulated, so the comparison asks for simulated runs explicitly.
+  const url = `/api/compare?by=method&source=simulated&ids=${methods.join(',')}`;
   const api: number[] = [];
   const sql: number[] = [];
   let totalRuns = 0;
@@ -129,13 +133,13 @@ async function benchCompare(baseUrl: string) {
     api.push(performance.now() - t);
     totalRuns = body.totalRuns;
     t = performance.now();
-    await q("SELECT method_id, COUNT(*) AS n, AVG(final_mean_n / target_load_n) AS mean_ratio, AVG(final_cv) AS mean_cv FROM runs WHERE status = 'complete' AND method_id IN (?) GROUP BY method_id", [methods]);
+    await q("SELECT method_id, COUNT(*) AS n, AVG(final_mean_n / target_load_n) AS mean_ratio, AVG(final_cv) AS mean_cv FROM runs WHERE status = 'complete' AND source = 'simulated' AND method_id IN (?) GROUP BY method_id", [methods]);
     sql.push(performance.now() - t);
   }
   const apiMs = median(api.slice(2));
   const sqlMs = median(sql.slice(2));
-  results.compare = { runs: totalRuns, groups: methods.length, coldMs, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, coldRatio: coldMs / sqlMs, target: '<= 2 (repeat, from the shared cache)' };
-  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median, repeat); first ${coldMs.toFixed(0)} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 2x); first ${(coldMs / sqlMs).toFixed(1)}x`]);
+  results.compare = { runs: totalRuns, groups: methods.length, coldMs, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, coldRatio: coldMs / sqlMs, target: '<= 1.5 (repeat, from the shared cache); first <= 5' };
+  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median, repeat); first ${coldMs.toFixed(0)} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 1.5x); first ${(coldMs / sqlMs).toFixed(1)}x (<= 5x)`]);
 }
 
 async function cannon(url: string, cookie: string, connections: number, seconds: number) {

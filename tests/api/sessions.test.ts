@@ -132,7 +132,7 @@ describe('a deactivated account', () => {
       gasket: 'medium',
       seed: 7,
     }));
-    const response = await callServerAction(before, server.baseUrl, '/record', 'app/(lab)/record/actions.ts', 'saveSimulatedRunAction', [{ ok: false, message: null, errors: {} }, form]);
+    const response = await callServerAction(before, server.baseUrl, '/record', 'app/(lab)/record/actions.ts', 'saveSimulatedRunAction', [{ status: 'idle', message: null }, form]);
     const text = await response.text();
     expect(text).toContain('Sign in to continue.');
     const runs = await sequelize.query('SELECT id FROM runs WHERE operator_id = ?', { type: QueryTypes.SELECT, replacements: [ids.trainee] });
@@ -146,7 +146,7 @@ describe('an admin demoted to trainee and deactivated', () => {
     await deactivate('rogue', 'trainee');
     const form = new FormData();
     form.set('role', 'admin');
-    const response = await callServerAction(rogue, server.baseUrl, '/people', 'app/(lab)/people/actions.ts', 'changeRoleAction', [ids.target, { ok: false, message: null }, form]);
+    const response = await callServerAction(rogue, server.baseUrl, '/people', 'app/(lab)/people/actions.ts', 'changeRoleAction', [ids.target, { status: 'idle', message: null }, form]);
     expect(await response.text()).toContain('Sign in to continue.');
     expect(await roleOf('target')).toBe('trainee');
   });
@@ -165,7 +165,7 @@ describe('sign-out', () => {
   it('"sign out everywhere" ends every session of the person', async () => {
     const first = await signInAsAccount('self');
     const second = await signInAsAccount('self');
-    const response = await callServerAction(first, server.baseUrl, '/', 'app/(lab)/actions.ts', 'signOutEverywhereAction', [{ ok: false, message: null }, new FormData()]);
+    const response = await callServerAction(first, server.baseUrl, '/', 'app/(lab)/actions.ts', 'signOutEverywhereAction', [{ status: 'idle', message: null }, new FormData()]);
     expect(await response.text()).toContain('Signed out everywhere');
     expect((await first.get('/api/runs')).status).toBe(401);
     expect((await second.get('/api/runs')).status).toBe(401);
@@ -174,7 +174,7 @@ describe('sign-out', () => {
   it('an admin’s "sign out everywhere" on an account ends its sessions', async () => {
     const admin = await signInAsAccount('admin');
     const reader = await signInAsAccount('reader');
-    const response = await callServerAction(admin, server.baseUrl, '/people', 'app/(lab)/people/actions.ts', 'endSessionsAction', [ids.reader, { ok: false, message: null }, new FormData()]);
+    const response = await callServerAction(admin, server.baseUrl, '/people', 'app/(lab)/people/actions.ts', 'endSessionsAction', [ids.reader, { status: 'idle', message: null }, new FormData()]);
     expect(await response.text()).toContain('Signed out everywhere');
     expect((await reader.get('/api/runs')).status).toBe(401);
     expect((await admin.get('/api/runs')).status).toBe(200);

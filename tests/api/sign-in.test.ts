@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { SIGN_IN_LIMIT, signInKeys } from '@/lib/auth/sign-in-throttle';
+import { SIGN_IN_LIMIT, signInKeys } from '@/lib/data/sign-in-throttle';
 import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { DEMO_PASSWORD, signIn } from '../support/http-session';

@@ -11,7 +11,8 @@ import { startAppServer, type AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { CORPUS_DIR, createTestJoint, dropTestJoints, firstIds, header, postUpload, tableCounts, userId } from '../support/record-fixtures';
 import { CORPUS_JOINT } from '../ingest/joints';
-import { assertTextFile, inspectText } from '@/lib/ingest/detect';
+import { inspectText } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { proposeMapping } from '@/lib/ingest/shapes';
 import { streamTableRows } from '@/lib/ingest/parse-text';
 

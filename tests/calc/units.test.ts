@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { createRng } from '@/lib/sim/random';
 import {
   barToPsi,
   formatArea,
@@ -32,17 +33,8 @@ import {
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 const SP = '\u00a0';
 
-// A small deterministic generator (mulberry32) so a failure can be reproduced.
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The project's one seeded generator (lib/sim/random.ts), so a failure can be reproduced.
+const rng = (seed: number) => createRng(seed).next;
 
 describe('unit conversions', () => {
   it('use the exact defining factors (1 in = 25.4 mm, 1 lbf = 4.4482216152605 N: international yard and pound, 1959)', () => {

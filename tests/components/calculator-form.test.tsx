@@ -60,6 +60,6 @@ describe('CalculatorForm', () => {
     fireEvent.change(screen.getByLabelText('Lubricant or finish'), { target: { value: 'anti-seize' } });
     expect((screen.getByLabelText('Nut factor (K)') as HTMLInputElement).value).toBe('0.12');
     fireEvent.change(screen.getByLabelText('Target, % of yield'), { target: { value: '80' } });
-    expect(screen.getByRole('status', { name: 'Warnings' })).toHaveTextContent('above the commonly quoted 40–70 % range');
+    expect(screen.getByRole('status', { name: 'Warnings' })).toHaveTextContent('above the 40–70 % range this calculator uses as its training default');
   });
 });

@@ -56,8 +56,8 @@ describe('the classroom in Chromium', () => {
     await page.getByTestId('end-figures').waitFor();
     await page.getByText('over 30 simulated runs each').first().waitFor();
     const reading = await page.getByTestId('reading').innerText();
-    expect(reading).toMatch(/Scatter differs between these methods at the 5 % level/);
-    expect(reading).toMatch(/Mean run CV differs/);
+    expect(reading).toMatch(/Within-run scatter differs between these methods at the 5 % level/);
+    expect(reading).toMatch(/Run CV differs between these methods/);
     expect(await page.getByRole('rowheader', { name: 'CV' }).count()).toBe(1);
     await page.screenshot({ path: screenshotPath('classroom-end') });
     await page.setViewportSize({ width: 1920, height: 1080 });

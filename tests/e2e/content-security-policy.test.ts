@@ -65,7 +65,7 @@ async function violationsOn(page: Page, routes: string[], afterLoad?: (route: st
   await page.exposeFunction('reportViolation', (text: string) => found.push(`${current}: ${text}`));
   await page.addInitScript(() => {
     document.addEventListener('securitypolicyviolation', (event) => {
-      (window as unknown as { reportViolation: (text: string) => void }).reportViolation(`${event.violatedDirective} blocked ${event.blockedURI || 'inline'} (${event.sample})`);
+      (window as unknown as { reportViolation: (text: string) => void }).reportViolation(`${event.violatedDirective} blocked ${event.blockedURI || 'inline'} (${event.sample}) at ${event.sourceFile}:${event.lineNumber}:${event.columnNumber}`);
     });
   });
   for (const route of routes) {

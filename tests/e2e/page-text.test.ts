@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { DEMO_NOTICE } from '@/lib/sim/demo-scenario';
+import { DEMO_NOTICE } from '@/lib/demo/notice';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { launchBrowser, signInThroughForm } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';

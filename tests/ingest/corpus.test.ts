@@ -6,7 +6,7 @@ import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { AppError } from '@/lib/http/errors';
-import { assertTextFile } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import { CORPUS_JOINT } from './joints';

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { AppError } from '@/lib/http/errors';
-import { assertTextFile, inspectText, splitLine } from '@/lib/ingest/detect';
+import { inspectText } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
+import { splitLine } from '@/lib/ingest/detection/lines';
 
 describe('inspectText', () => {
   it('comma file with LF and a header on line 1', () => {

@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { assertTextFile } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import { NEWTONS_PER_LBF, NM_PER_FT_LB } from '@/lib/ingest/units';

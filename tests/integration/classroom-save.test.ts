@@ -1,15 +1,25 @@
 import { QueryTypes } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { handleSaveScene } from '@/lib/data/classroom-save-scene';
+import { saveSceneRuns } from '@/lib/data/classroom';
 import { storeRun } from '@/lib/data/runs/store-run';
 import type { SessionUser } from '@/lib/auth/session';
 import { RUNS_PER_SIDE } from '@/lib/classroom/scenes';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 
 /**
- * The work of the classroom's save action (app/(lab)/classroom/actions.ts adds only the session
- * and revalidatePath), against the demo database the test command seeds.
+ * The classroom's save action (app/(lab)/classroom/actions.ts) with the signed-in person supplied
+ * here, against the demo database the test command seeds.
  */
+const signedIn = vi.hoisted(() => ({ user: null as SessionUser | null }));
+vi.mock('@/lib/auth/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/auth/session')>()), getSessionUser: async () => signedIn.user }));
+vi.mock('next/cache', () => ({ revalidatePath: vi.fn() }));
+const { saveSceneAction } = await import('@/app/(lab)/classroom/actions');
+const saveAs = (user: SessionUser, data: FormData) => {
+  signedIn.user = user;
+  return saveSceneAction(IDLE_FORM_STATE, data);
+};
+let firstNewRun = 0;
 const NOTE = 'Classroom scene "One pass or several"%';
 let marta: SessionUser;
 let kwame: SessionUser;
@@ -43,10 +53,12 @@ beforeAll(async () => {
   kwameCohort = await cohortOf(kwame);
   const [joint] = await sequelize.query<{ id: number }>('SELECT id FROM joints WHERE stud_count = 8 ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
   jointId = Number(joint!.id);
+  const [last] = await sequelize.query<{ id: number | null }>('SELECT MAX(id) AS id FROM runs', { type: QueryTypes.SELECT });
+  firstNewRun = Number(last!.id ?? 0) + 1;
 });
 
 afterAll(async () => {
-  await sequelize.query('DELETE FROM runs WHERE recorded_at = ? AND notes LIKE ?', { replacements: [marker, NOTE] });
+  await sequelize.query('DELETE FROM runs WHERE (recorded_at = ? OR id >= ?) AND notes LIKE ?', { replacements: [marker, firstNewRun, NOTE] });
   await sequelize.close();
 });
 
@@ -54,7 +66,7 @@ describe('saving a classroom scene to a cohort', () => {
   it('refuses a trainee with forbidden and writes no run', async () => {
     const before = await countRuns();
     const trainee = await userByEmail('aino.varga@demo.evenload.test');
-    const state = await handleSaveScene(trainee, form({ scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }));
+    const state = await saveAs(trainee, form({ scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }));
     expect(state.status).toBe('error');
     expect(state.code).toBe('forbidden');
     expect(await countRuns()).toBe(before);
@@ -62,16 +74,16 @@ describe('saving a classroom scene to a cohort', () => {
 
   it("refuses another instructor's cohort as not found and writes no run", async () => {
     const before = await countRuns();
-    const state = await handleSaveScene(marta, form({ scene: 'passes', jointId, cohortId: kwameCohort, seed: 1 }));
+    const state = await saveAs(marta, form({ scene: 'passes', jointId, cohortId: kwameCohort, seed: 1 }));
     expect(state.code).toBe('not_found');
-    expect(state.errors.cohortId?.[0]).toMatch(/not yours/);
+    expect(state.fieldErrors?.cohortId?.[0]).toMatch(/not yours/);
     expect(await countRuns()).toBe(before);
   });
 
   it('names the bad field when the form is incomplete', async () => {
-    const state = await handleSaveScene(marta, form({ scene: 'real', jointId, cohortId: martaCohort, seed: 1 }));
-    expect(state.code).toBe('invalid_input');
-    expect(state.errors.scene?.length).toBeGreaterThan(0);
+    const state = await saveAs(marta, form({ scene: 'real', jointId, cohortId: martaCohort, seed: 1 }));
+    expect(state).toMatchObject({ status: 'error', code: 'invalid_input', message: 'The runs were not saved: check the fields marked.' });
+    expect(state.fieldErrors?.scene?.length).toBeGreaterThan(0);
   });
 
   it('leaves nothing half-saved when a store fails part-way through', async () => {
@@ -82,20 +94,24 @@ describe('saving a classroom scene to a cohort', () => {
       if (calls === 5) throw new Error('disk full (simulated)');
       return storeRun(header, run, transaction);
     };
-    await expect(handleSaveScene(marta, form({ scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }), { storeRun: failing, now: marker })).rejects.toThrow('disk full');
+    // The transaction lives in saveSceneRuns (the action only adds the session, zod and the message).
+    await expect(saveSceneRuns(marta, { scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }, { storeRun: failing, now: marker })).rejects.toThrow('disk full');
     expect(calls).toBe(5);
     expect(await countRuns()).toBe(before);
   });
 
   it("stores every side's runs as simulated runs by the instructor in their cohort, with library rows and a compare link", async () => {
     const before = await countRuns();
-    const state = await handleSaveScene(marta, form({ scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }), { now: marker });
-    expect(state.status).toBe('saved');
-    expect(state.savedCount).toBe(2 * RUNS_PER_SIDE);
+    const dayBefore = new Date().toISOString().slice(0, 10);
+    const state = await saveAs(marta, form({ scene: 'passes', jointId, cohortId: martaCohort, seed: 1 }));
+    const dayAfter = new Date().toISOString().slice(0, 10);
+    expect(state.status).toBe('ok');
+    expect(state.message).toBe(`Saved ${2 * RUNS_PER_SIDE} simulated runs to the cohort.`);
+    expect(state.data?.savedCount).toBe(2 * RUNS_PER_SIDE);
     expect(await countRuns()).toBe(before + 2 * RUNS_PER_SIDE);
     const rows = await sequelize.query<{ source: string; operator_id: number; cohort_id: number; method_id: number; steps: number }>(
-      'SELECT r.source, r.operator_id, r.cohort_id, r.method_id, (SELECT COUNT(*) FROM tightening_steps s WHERE s.run_id = r.id) AS steps FROM runs r WHERE r.recorded_at = ? AND r.notes LIKE ?',
-      { type: QueryTypes.SELECT, replacements: [marker, NOTE] },
+      'SELECT r.source, r.operator_id, r.cohort_id, r.method_id, (SELECT COUNT(*) FROM tightening_steps s WHERE s.run_id = r.id) AS steps FROM runs r WHERE r.id >= ? AND r.notes LIKE ?',
+      { type: QueryTypes.SELECT, replacements: [firstNewRun, NOTE] },
     );
     expect(rows).toHaveLength(2 * RUNS_PER_SIDE);
     for (const row of rows) {
@@ -107,7 +123,9 @@ describe('saving a classroom scene to a cohort', () => {
     expect(methods).toHaveLength(2);
     // One cross pass = 8 steps; 30/60/100 % + check = 32 steps on 8 studs.
     expect([...new Set(rows.map((r) => Number(r.steps)))].sort((a, b) => a - b)).toEqual([8, 32]);
-    expect(state.compareHref).toMatch(new RegExp(`^/compare\\?by=method&ids=\\d+,\\d+&jointId=${jointId}&from=2031-05-05&to=2031-05-05$`));
-    for (const id of methods) expect(state.compareHref).toContain(String(id));
+    // The runs are recorded now, so the link covers today (the day read before or after the save).
+    const href = state.data?.compareHref ?? '';
+    expect([dayBefore, dayAfter].some((day) => new RegExp(`^/compare\\?by=method&ids=\\d+,\\d+&jointId=${jointId}&from=${day}&to=${day}$`).test(href))).toBe(true);
+    for (const id of methods) expect(href).toContain(String(id));
   });
 });

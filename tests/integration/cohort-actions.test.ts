@@ -2,6 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import type { SessionUser } from '@/lib/auth/session';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { sessionUserFor, tableCounts } from './support';
 
@@ -25,7 +26,7 @@ const form = (entries: Record<string, string>) => {
   for (const [key, value] of Object.entries(entries)) data.set(key, value);
   return data;
 };
-const idle = { ok: false, message: null };
+const idle = IDLE_FORM_STATE;
 
 beforeAll(async () => {
   trainee = await sessionUserFor(DEMO_ACCOUNTS.trainee);
@@ -59,14 +60,14 @@ describe('cohort server actions refuse the wrong roles and change no row', () =>
         await signOffAction(cohortId, runId, idle, form({ comment: 'not mine to sign' })),
         await createCohortAction(idle, form({ name: 'Not allowed', site: 'Nowhere', startsOn: '2026-12-01', endsOn: '2026-12-02' })),
       ];
-      for (const state of refusals) expect(state).toMatchObject({ ok: false, message: 'Your role does not allow this.' });
+      for (const state of refusals) expect(state).toMatchObject({ status: 'error', message: 'Your role does not allow this.' });
       expect(await tableCounts()).toEqual(before);
     });
   }
 
   it('a signed-out caller is asked to sign in', async () => {
     const before = await tableCounts();
-    expect(await inviteAction(cohortId, idle, form({ addresses: 'x@test.evenload.test' }))).toMatchObject({ ok: false, message: 'Sign in to continue.' });
+    expect(await inviteAction(cohortId, idle, form({ addresses: 'x@test.evenload.test' }))).toMatchObject({ status: 'error', message: 'Sign in to continue.' });
     expect(await tableCounts()).toEqual(before);
   });
 
@@ -74,8 +75,8 @@ describe('cohort server actions refuse the wrong roles and change no row', () =>
     signedIn.user = instructor;
     const before = await tableCounts();
     const state = await inviteAction(cohortId, idle, form({ addresses: 'good@test.evenload.test; bad-one; worse@' }));
-    expect(state.ok).toBe(false);
-    expect(state.errors?.addresses?.[0]).toContain('"bad-one", "worse@"');
+    expect(state.status).toBe('error');
+    expect(state.fieldErrors?.addresses?.[0]).toContain('"bad-one", "worse@"');
     expect(await tableCounts()).toEqual(before);
   });
 });
@@ -83,10 +84,10 @@ describe('cohort server actions refuse the wrong roles and change no row', () =>
 describe('people server actions', () => {
   it('an instructor cannot change roles and an admin cannot change their own', async () => {
     signedIn.user = instructor;
-    expect(await changeRoleAction(instructor.id, idle, form({ role: 'admin' }))).toMatchObject({ ok: false, message: 'Your role does not allow this.' });
+    expect(await changeRoleAction(instructor.id, idle, form({ role: 'admin' }))).toMatchObject({ status: 'error', message: 'Your role does not allow this.' });
     signedIn.user = admin;
-    expect(await changeRoleAction(admin.id, idle, form({ role: 'trainee' }))).toMatchObject({ ok: false, message: expect.stringContaining('cannot change your own role') });
-    expect(await setActiveAction(admin.id, false, idle, form({}))).toMatchObject({ ok: false });
+    expect(await changeRoleAction(admin.id, idle, form({ role: 'trainee' }))).toMatchObject({ status: 'error', message: expect.stringContaining('cannot change your own role') });
+    expect(await setActiveAction(admin.id, false, idle, form({}))).toMatchObject({ status: 'error' });
     const [me] = await sequelize.query<{ role: string; is_active: number }>('SELECT role, is_active FROM users WHERE id = ?', { type: QueryTypes.SELECT, replacements: [admin.id] });
     expect(me).toMatchObject({ role: 'admin', is_active: 1 });
     const [inst] = await sequelize.query<{ role: string }>('SELECT role FROM users WHERE id = ?', { type: QueryTypes.SELECT, replacements: [instructor.id] });

@@ -1,13 +1,27 @@
 import { QueryTypes } from 'sequelize';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { handleJointSave, handleLubricantSave, handleMethodSave } from '@/lib/data/library-forms';
 import type { SessionUser } from '@/lib/auth/session';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import { actionOutcome } from './support';
 
 /**
- * The work of the server actions in app/(lab)/joints/actions.ts (they add only the session,
- * revalidatePath and redirect): trainees and researchers are refused, bad input writes nothing.
+ * The server actions in app/(lab)/joints/actions.ts, with the signed-in person supplied here:
+ * trainees and researchers are refused, bad input writes nothing, a save goes back to the list.
  */
+const signedIn = vi.hoisted(() => ({ user: null as SessionUser | null }));
+vi.mock('@/lib/auth/session', async (importOriginal) => ({ ...(await importOriginal<typeof import('@/lib/auth/session')>()), getSessionUser: async () => signedIn.user }));
+vi.mock('next/cache', () => ({ revalidatePath: vi.fn() }));
+const { saveJointAction, saveLubricantAction, saveMethodAction } = await import('@/app/(lab)/joints/actions');
+
+const as = (who: SessionUser | null) => {
+  signedIn.user = who;
+  return {
+    joint: (data: FormData) => actionOutcome(saveJointAction(null, IDLE_FORM_STATE, data)),
+    method: (data: FormData) => actionOutcome(saveMethodAction(null, IDLE_FORM_STATE, data)),
+    lubricant: (data: FormData) => actionOutcome(saveLubricantAction(null, IDLE_FORM_STATE, data)),
+  };
+};
 const TAG = `itest-actions-${Date.now()}`;
 const user = (role: SessionUser['role']): SessionUser => ({ id: 1, name: role, email: `${role}@demo.evenload.test`, role, units: 'si' });
 
@@ -53,40 +67,33 @@ describe('joint-library server actions', () => {
   for (const role of ['trainee', 'researcher'] as const) {
     it(`refuses a ${role} with forbidden (403) on every form and writes no row`, async () => {
       const before = await rows();
-      for (const state of [
-        await handleJointSave(user(role), null, jointFormData()),
-        await handleMethodSave(user(role), null, methodFormData()),
-        await handleLubricantSave(user(role), null, lubricantFormData()),
-      ]) {
-        expect(state.status).toBe('error');
-        expect(state.code).toBe('forbidden');
-        expect(state.message).toBe('Your role does not allow this.');
+      const caller = as(user(role));
+      for (const state of [await caller.joint(jointFormData()), await caller.method(methodFormData()), await caller.lubricant(lubricantFormData())]) {
+        expect(state).toMatchObject({ status: 'error', code: 'forbidden', message: 'Your role does not allow this.' });
       }
       expect(await rows()).toEqual(before);
     });
   }
 
   it('refuses a signed-out caller with unauthenticated', async () => {
-    const state = await handleJointSave(null, null, jointFormData());
-    expect(state.code).toBe('unauthenticated');
+    expect(await as(null).joint(jointFormData())).toMatchObject({ status: 'error', code: 'unauthenticated' });
   });
 
   it('returns per-field messages for bad input and changes no rows', async () => {
     const before = await rows();
-    const state = await handleJointSave(user('instructor'), null, jointFormData({ studCount: 'eight', gasketType: '' }));
-    expect(state.status).toBe('error');
-    expect(state.code).toBe('invalid_input');
-    expect(state.errors.studCount?.[0]).toMatch(/whole number/);
-    expect(state.errors.gasketType?.[0]).toBe('Enter the gasket type.');
-    const lube = await handleLubricantSave(user('admin'), null, (() => { const d = lubricantFormData(); d.set('nominalNutFactor', '0.9'); return d; })());
-    expect(lube.errors.nominalNutFactor?.[0]).toMatch(/between 0.05 and 0.60/);
+    const state = await as(user('instructor')).joint(jointFormData({ studCount: 'eight', gasketType: '' }));
+    expect(state).toMatchObject({ status: 'error', code: 'invalid_input' });
+    const errors = 'fieldErrors' in state ? state.fieldErrors : undefined;
+    expect(errors?.studCount?.[0]).toMatch(/whole number/);
+    expect(errors?.gasketType?.[0]).toBe('Enter the gasket type.');
+    const lube = await as(user('admin')).lubricant((() => { const d = lubricantFormData(); d.set('nominalNutFactor', '0.9'); return d; })());
+    expect('fieldErrors' in lube ? lube.fieldErrors?.nominalNutFactor?.[0] : undefined).toMatch(/between 0.05 and 0.60/);
     expect(await rows()).toEqual(before);
   });
 
   it('saves a joint and its 8 positions for an instructor', async () => {
     const before = await rows();
-    const state = await handleJointSave(user('instructor'), null, jointFormData());
-    expect(state.status).toBe('saved');
+    expect(await as(user('instructor')).joint(jointFormData())).toEqual({ redirectedTo: '/joints?saved=joint#joints' });
     const after = await rows();
     expect(after.j - before.j).toBe(1);
     expect(after.p - before.p).toBe(8);

@@ -4,6 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import type { SessionUser } from '@/lib/auth/session';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import type { Role } from '@/models/user';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { sessionUserFor } from './support';
@@ -34,7 +35,7 @@ type Caller = Role | 'anonymous';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'instructor', 'researcher', 'trainee'];
 const ids = { cohort: 0, run: 0, trainee: 0, joint: 0 };
 const form = () => new FormData();
-const idle = { ok: false, message: null, errors: {} } as never;
+const idle = IDLE_FORM_STATE;
 
 interface ActionEntry {
   file: string;
@@ -116,7 +117,7 @@ describe('server-action role matrix', () => {
   it('has an entry for every exported server action', () => {
     const covered = new Set([...ACTIONS.map((a) => `${a.file}#${a.name}`), ...PUBLIC_ACTIONS]);
     const found = ['app', 'lib', 'components'].flatMap((dir) => actionFiles(path.join(root, dir))).flatMap((file) =>
-      [...readFileSync(file, 'utf8').matchAll(/^export async function (\w+)/gm)].map((m) => `${path.relative(root, file)}#${m[1]}`),
+      [...readFileSync(file, 'utf8').matchAll(/^export (?:async function|const) (\w+)/gm)].map((m) => `${path.relative(root, file)}#${m[1]}`),
     );
     expect(found.length).toBeGreaterThan(10);
     expect(found.filter((key) => !covered.has(key)), 'server actions without a role-matrix entry').toEqual([]);

@@ -2,6 +2,8 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import { saveSimulatedRun } from '@/lib/data/runs/simulated-run';
+import { classroomLibrary } from '@/lib/data/classroom';
+import { sideForRealRun, simulateSide } from '@/lib/classroom/scenes';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { count, sessionUserFor } from './support';
@@ -11,12 +13,14 @@ import { count, sessionUserFor } from './support';
 // same run; one step per stud per pass plus the check passes.
 let trainee: SessionUser;
 let other: SessionUser;
+let instructor: SessionUser;
 let ids: { joint: number; method: number; lubricant: number; studs: number; passes: number; checks: number };
 const created: number[] = [];
 
 beforeAll(async () => {
   trainee = await sessionUserFor(DEMO_ACCOUNTS.trainee);
   other = await sessionUserFor(DEMO_ACCOUNTS.researcher);
+  instructor = await sessionUserFor(DEMO_ACCOUNTS.instructor);
   const [row] = await sequelize.query<{ joint: number; studs: number; method: number; passes: string; checks: number; lubricant: number }>(
     `SELECT j.id AS joint, j.stud_count AS studs, m.id AS method, m.passes, m.check_passes AS checks, (SELECT id FROM lubricants ORDER BY id LIMIT 1) AS lubricant
      FROM joints j JOIN methods m ON m.name LIKE 'Three cross passes%' WHERE j.stud_count = 8 ORDER BY j.id, m.id LIMIT 1`,
@@ -31,8 +35,8 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-const input = (operatorId: number, seed: unknown) => ({
-  header: { jointId: ids.joint, methodId: ids.method, lubricantId: ids.lubricant, operatorId, cohortId: null, recordedAt: '2026-12-01T10:00', notes: null },
+const input = (operatorId: number, seed: unknown, lubricantId = ids.lubricant) => ({
+  header: { jointId: ids.joint, methodId: ids.method, lubricantId, operatorId, cohortId: null, recordedAt: '2026-12-01T10:00', notes: null },
   gasket: 'medium',
   seed,
 });
@@ -59,5 +63,35 @@ describe('saveSimulatedRun', () => {
     await expect(saveSimulatedRun(trainee, input(trainee.id, 'abc'))).rejects.toMatchObject({ code: 'invalid_input' });
     await expect(saveSimulatedRun(trainee, { ...input(trainee.id, 7), gasket: 'rubber' })).rejects.toMatchObject({ code: 'invalid_input' });
     expect(await count('SELECT COUNT(*) AS n FROM runs')).toBe(before);
+  });
+});
+
+// Issue 14: the same joint, method, lubricant and seed scattered differently on the Record page and
+// in the Classroom (two adapters with different nut-factor scatter). Expected: the run Record
+// stores equals, step by step, the run the Classroom simulates (and saves) for the same library
+// rows, medium gasket and seed — for each of the demo library's lubricants (dry, copper, MoS₂).
+describe('Record and Classroom simulate the same run', () => {
+  it('gives the same loads after every step through both paths for every lubricant', async () => {
+    const library = await classroomLibrary(instructor);
+    const joint = library.joints.find((j) => j.id === ids.joint)!;
+    const method = library.methods.find((m) => m.id === ids.method)!;
+    expect(library.lubricants.length).toBeGreaterThanOrEqual(3);
+    for (const lubricant of library.lubricants) {
+      const saved = await saveSimulatedRun(trainee, input(trainee.id, 90210, lubricant.id));
+      created.push(saved.runId);
+      const classroom = simulateSide(sideForRealRun(joint, method, lubricant), joint, 90210);
+      const readings = await sequelize.query<{ step_order: number; position: number; load_n: number }>(
+        'SELECT s.step_order, g.position, g.load_n FROM tightening_steps s JOIN readings g ON g.step_id = s.id WHERE s.run_id = ? ORDER BY s.step_order, g.position',
+        { type: QueryTypes.SELECT, replacements: [saved.runId] },
+      );
+      expect(readings).toHaveLength(classroom.steps.length * joint.studCount);
+      for (const r of readings) {
+        const expected = classroom.steps[Number(r.step_order) - 1]!.loadsN[Number(r.position) - 1]!;
+        // Relative to the target: loads of studs not yet tightened may be 0.
+        expect(Math.abs(Number(r.load_n) - expected) / joint.targetLoadN, `${lubricant.name}, step ${r.step_order}, position ${r.position}`).toBeLessThan(1e-12);
+      }
+      const [row] = await sequelize.query<{ final_loads_json: string }>('SELECT final_loads_json FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [saved.runId] });
+      expect(row!.final_loads_json).toBe(JSON.stringify(classroom.steps.at(-1)!.loadsN));
+    }
   });
 });

@@ -29,3 +29,17 @@ export async function mailTo(address: string) {
     { type: QueryTypes.SELECT, replacements: [address.toLowerCase()] },
   );
 }
+
+/**
+ * A server action's answer as the browser would see it: the form state it returned, or where it
+ * sent the browser (Next's `redirect()` throws an error whose digest carries the address).
+ */
+export async function actionOutcome<S>(call: Promise<S>): Promise<S | { redirectedTo: string }> {
+  try {
+    return await call;
+  } catch (error) {
+    const digest = (error as { digest?: unknown } | null)?.digest;
+    if (typeof digest === 'string' && digest.startsWith('NEXT_REDIRECT;')) return { redirectedTo: digest.split(';')[2]! };
+    throw error;
+  }
+}

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { placeAmongSimulated, sceneFigures } from '@/lib/classroom/figures';
-import { findMethod, lubricantForSim, moveScene, parseSceneOrder, sceneSetup, seedFamily, simulateSide, toggleScene, type Library } from '@/lib/classroom/scenes';
+import { findMethod, moveScene, parseSceneOrder, sceneSetup, seedFamily, simulateSide, toggleScene, type Library } from '@/lib/classroom/scenes';
+import { lubricantForSim } from '@/lib/sim/from-library';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 
 // A 5/8-11 B7 joint at 50 % of 105 ksi on As = 0.226 in² (docs/REFERENCE.md §1 ✓ [EE-AREA], §2 ✓ [NANL]), computed.
@@ -69,8 +70,8 @@ describe('scene end figures (over 30 simulated runs each)', () => {
     expect(f.basis).toBe('over 30 simulated runs each');
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
     expect(f.sides[0]!.meanDriftPercent).toBeLessThan(f.sides[1]!.meanDriftPercent);
-    expect(f.cvReading).toMatch(/^Mean run CV differs between these methods at the 5 % level \(Welch's ANOVA/);
-    expect(f.scatterReading).toMatch(/^Scatter differs between these methods at the 5 % level \(Levene W/);
+    expect(f.cvReading).toMatch(/^Run CV differs between these methods at the 5 % level \(Welch's ANOVA on ln run CV/);
+    expect(f.scatterReading).toMatch(/^Within-run scatter differs between these methods at the 5 % level \(Welch's ANOVA on within-run SD/);
   });
   it('shows a cross pass more even than a circular one (the simulator’s flange rotation term, lib/sim/MODEL.md)', () => {
     const f = figuresOf('pattern');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { in2ToMm2, ksiToMpa, lbfToN } from '@/lib/calc/units';
-import { gradeIdOf, gradeStoredName, jointTarget, parseJointForm, positionPoint, threadChoiceOf, threadSeriesNote } from '@/lib/joints/joint-input';
+import { jointTarget, parseJointForm, positionPoint, threadChoiceOf, threadSeriesNote } from '@/lib/joints/joint-input';
 
 const rel = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected);
 
@@ -65,12 +65,6 @@ describe('thread helpers', () => {
     expect(threadChoiceOf({ system: 'metric', diameterMm: 20, pitchMm: 2.5 })).toBe('M20');
     expect(threadChoiceOf({ system: 'metric', diameterMm: 20, pitchMm: 1.5 })).toBe('custom');
   });
-
-  it('reads the stored trade name of the demo seed as a grade id', () => {
-    expect(gradeIdOf('ASTM A193 B7')).toBe('A193-B7');
-    expect(gradeIdOf('A193-B16')).toBe('A193-B16');
-    expect(gradeIdOf('Unobtainium')).toBeNull();
-  });
 });
 
 describe('positionPoint (numbered clockwise from 1 at the top, docs/REFERENCE.md §6 ✓ [KNM])', () => {
@@ -131,11 +125,3 @@ describe('parseJointForm', () => {
   });
 });
 
-describe('gradeStoredName', () => {
-  it('stores grades as the trade names the demo seed uses, and reads them back', () => {
-    expect(gradeStoredName('A193-B7')).toBe('ASTM A193 B7');
-    for (const id of ['A193-B7', 'A193M-B7', 'A193-B7M', 'A193-B16', 'A193-B8-CL1', 'A193-B8-CL2'] as const) {
-      expect(gradeIdOf(gradeStoredName(id))).toBe(id);
-    }
-  });
-});

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { criteriaSchema, DEFAULT_CRITERIA, type AssessmentCriteria } from '@/lib/assessment/criteria';
-import { gradeIdFromLabel, judgeRun, type JudgeRunInput, type JudgeRunStep } from '@/lib/assessment/judge-run';
+import { judgeRun, type JudgeRunInput, type JudgeRunStep } from '@/lib/assessment/judge-run';
 import type { MethodPass } from '@/models/method';
 
 // Cross order for 8 studs 1-5-3-7-2-6-4-8 (docs/REFERENCE.md §6, from memory, unverified; the same as
@@ -180,19 +180,6 @@ describe('judgeRun: overall', () => {
 
   it('refuses a run with the wrong number of final loads', () => {
     expect(() => judgeRun(input({ finalLoadsN: [100e3, 100e3] }))).toThrow(/one final load per stud \(8\), got 2/);
-  });
-});
-
-describe('gradeIdFromLabel', () => {
-  it.each([
-    ['ASTM A193 B7', 'A193-B7'],
-    ['A193-B7', 'A193-B7'],
-    ['ASTM A193M B7', 'A193M-B7'],
-    ['ASTM A193 B7M', 'A193-B7M'],
-    ['A193 B8 Class 2', 'A193-B8-CL2'],
-    ['something else', null],
-  ])('maps %s to %s', (label, id) => {
-    expect(gradeIdFromLabel(label)).toBe(id);
   });
 });
 

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
-import { assertTextFile } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { JointForImport } from '@/lib/ingest/normalise';
 import type { HttpSession } from './http-session';

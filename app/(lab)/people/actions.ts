@@ -1,35 +1,25 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
-import { failureState, type ActionState } from '@/lib/http/form-state';
+import { okState } from '@/lib/http/form-state';
+import { withActionRole } from '@/lib/http/server-action';
 import { changeRole, endSessionsOf, setActive } from '@/lib/data/people';
-import { getSessionUser } from '@/lib/auth/session';
 
-export async function changeRoleAction(userId: number, _previous: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    await changeRole(await getSessionUser(), userId, form.get('role'));
-    revalidatePath('/people');
-    return { ok: true, message: 'Role changed. They are signed out and sign in again with the new role.' };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+const ADMIN = ['admin'] as const;
 
-export async function setActiveAction(userId: number, active: boolean, _previous: ActionState, _form: FormData): Promise<ActionState> {
-  try {
-    await setActive(await getSessionUser(), userId, active);
-    revalidatePath('/people');
-    return { ok: true, message: active ? 'Account reactivated.' : 'Account deactivated: it is signed out and can no longer sign in.' };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+export const changeRoleAction = withActionRole(ADMIN, async (user, form, userId: number) => {
+  await changeRole(user, userId, form.get('role'));
+  revalidatePath('/people');
+  return okState('Role changed. They are signed out and sign in again with the new role.');
+});
 
-export async function endSessionsAction(userId: number, _previous: ActionState, _form: FormData): Promise<ActionState> {
-  try {
-    await endSessionsOf(await getSessionUser(), userId);
-    return { ok: true, message: 'Signed out everywhere: every open session of this account has ended.' };
-  } catch (error) {
-    return failureState(error);
-  }
-}
+export const setActiveAction = withActionRole(ADMIN, async (user, _form, userId: number, active: boolean) => {
+  await setActive(user, userId, active);
+  revalidatePath('/people');
+  return okState(active ? 'Account reactivated.' : 'Account deactivated: it is signed out and can no longer sign in.');
+});
+
+export const endSessionsAction = withActionRole(ADMIN, async (user, _form, userId: number) => {
+  await endSessionsOf(user, userId);
+  return okState('Signed out everywhere: every open session of this account has ended.');
+});

@@ -4,24 +4,20 @@ import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { RECORD_ROLES } from '@/lib/data/record';
 import { createStreamToken, revokeStreamToken } from '@/lib/data/stream-tokens';
-import { isAppError } from '@/lib/http/errors';
 import { finishRecording, startRecording } from '@/lib/data/runs/live-stream';
 import { saveManualRun } from '@/lib/data/runs/manual-run';
 import { saveSimulatedRun } from '@/lib/data/runs/simulated-run';
-import type { RecordActionState } from '@/lib/record/action-state';
-import { assertRole, getSessionUser } from '@/lib/auth/session';
+import { okState, type FormState } from '@/lib/http/form-state';
+import { parseFields, withActionRole } from '@/lib/http/server-action';
 
-
-function failure(error: unknown): RecordActionState {
-  if (isAppError(error)) {
-    const fieldErrors = (error.details.fieldErrors ?? {}) as Record<string, string[] | undefined>;
-    const row = typeof error.details.row === 'number' ? error.details.row : undefined;
-    const column = typeof error.details.column === 'string' ? error.details.column : undefined;
-    return { ok: false, message: error.message, errors: fieldErrors, ...(row && column ? { cell: { row, column } } : {}) };
-  }
-  console.error('[record] unexpected error', error);
-  return { ok: false, message: 'Something went wrong on our side; nothing was saved. Try again.', errors: {} };
+/** What the Record page's forms show after a success: the run to open, or a new bridge token (shown once). */
+export interface RecordResult {
+  runId?: number;
+  token?: { id: number; value: string; jointId: number };
 }
+export type RecordFormState = FormState<RecordResult>;
+
+const INSTRUCTOR = ['instructor'] as const;
 
 function payloadOf(formData: FormData): unknown {
   const raw = formData.get('payload');
@@ -34,62 +30,37 @@ function payloadOf(formData: FormData): unknown {
 }
 
 /** Saves the hand-entry grid as one run. */
-export async function saveManualRunAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, RECORD_ROLES);
-    const { runId, stepCount } = await saveManualRun(user, payloadOf(formData));
-    revalidatePath('/runs');
-    revalidatePath('/record');
-    return { ok: true, message: `Saved run ${runId} with ${stepCount} steps.`, errors: {}, runId };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const saveManualRunAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
+  const { runId, stepCount } = await saveManualRun(user, payloadOf(form));
+  revalidatePath('/runs');
+  revalidatePath('/record');
+  return okState(`Saved run ${runId} with ${stepCount} steps.`, { runId });
+});
 
 /** Simulates one run of the header's joint, method and lubricant and saves it (source simulated). */
-export async function saveSimulatedRunAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, RECORD_ROLES);
-    const { runId, stepCount } = await saveSimulatedRun(user, payloadOf(formData));
-    revalidatePath('/runs');
-    return { ok: true, message: `Simulated and saved run ${runId} with ${stepCount} steps.`, errors: {}, runId };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const saveSimulatedRunAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
+  const { runId, stepCount } = await saveSimulatedRun(user, payloadOf(form));
+  revalidatePath('/runs');
+  return okState(`Simulated and saved run ${runId} with ${stepCount} steps.`, { runId });
+});
 
 /** Creates an empty run in status recording for the bridge. */
-export async function startRecordingAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, RECORD_ROLES);
-    const { runId } = await startRecording(user, (payloadOf(formData) as { header?: unknown } | null)?.header);
-    revalidatePath('/record');
-    return { ok: true, message: `Recording run ${runId}. Start the bridge with --run ${runId}.`, errors: {}, runId };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const startRecordingAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
+  const { runId } = await startRecording(user, (payloadOf(form) as { header?: unknown } | null)?.header);
+  revalidatePath('/record');
+  return okState(`Recording run ${runId}. Start the bridge with --run ${runId}.`, { runId });
+});
 
 const runIdSchema = z.object({ runId: z.coerce.number().int().positive() });
 
 /** Finishes a recording: derives the steps and marks the run complete. */
-export async function finishRecordingAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, RECORD_ROLES);
-    const parsed = runIdSchema.safeParse({ runId: formData.get('runId') });
-    if (!parsed.success) return { ok: false, message: 'Choose the recording to finish.', errors: z.flattenError(parsed.error).fieldErrors };
-    const { stepCount } = await finishRecording(user, parsed.data.runId);
-    revalidatePath('/runs');
-    revalidatePath('/record');
-    return { ok: true, message: `Run ${parsed.data.runId} is complete: ${stepCount} steps derived from the stream.`, errors: {}, runId: parsed.data.runId };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const finishRecordingAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
+  const { runId } = parseFields(runIdSchema, { runId: form.get('runId') }, 'Choose the recording to finish.');
+  const { stepCount } = await finishRecording(user, runId);
+  revalidatePath('/runs');
+  revalidatePath('/record');
+  return okState(`Run ${runId} is complete: ${stepCount} steps derived from the stream.`, { runId });
+});
 
 const tokenSchema = z.object({
   jointId: z.coerce.number({ error: 'Choose a joint.' }).int().positive('Choose a joint.'),
@@ -97,31 +68,17 @@ const tokenSchema = z.object({
 });
 
 /** Creates a bridge token for a joint (instructors); the token is shown once. */
-export async function createStreamTokenAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, ['instructor']);
-    const parsed = tokenSchema.safeParse({ jointId: formData.get('jointId'), label: formData.get('label') });
-    if (!parsed.success) return { ok: false, message: 'The token needs a joint and a name.', errors: z.flattenError(parsed.error).fieldErrors };
-    const { id, token } = await createStreamToken(user, parsed.data.jointId, parsed.data.label);
-    revalidatePath('/record');
-    return { ok: true, message: 'Token created. Copy it now: it is shown only once.', errors: {}, token: { id, value: token, jointId: parsed.data.jointId } };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const createStreamTokenAction = withActionRole(INSTRUCTOR, async (user, form): Promise<RecordFormState> => {
+  const { jointId, label } = parseFields(tokenSchema, { jointId: form.get('jointId'), label: form.get('label') }, 'The token needs a joint and a name.');
+  const { id, token } = await createStreamToken(user, jointId, label);
+  revalidatePath('/record');
+  return okState('Token created. Copy it now: it is shown only once.', { token: { id, value: token, jointId } });
+});
 
 /** Revokes a bridge token this instructor created. */
-export async function revokeStreamTokenAction(_prev: RecordActionState, formData: FormData): Promise<RecordActionState> {
-  try {
-    const user = await getSessionUser();
-    assertRole(user, ['instructor']);
-    const parsed = z.object({ tokenId: z.coerce.number().int().positive() }).safeParse({ tokenId: formData.get('tokenId') });
-    if (!parsed.success) return { ok: false, message: 'Choose the token to revoke.', errors: z.flattenError(parsed.error).fieldErrors };
-    await revokeStreamToken(user, parsed.data.tokenId);
-    revalidatePath('/record');
-    return { ok: true, message: 'Token revoked: the bridge using it is now refused.', errors: {} };
-  } catch (error) {
-    return failure(error);
-  }
-}
+export const revokeStreamTokenAction = withActionRole(INSTRUCTOR, async (user, form): Promise<RecordFormState> => {
+  const { tokenId } = parseFields(z.object({ tokenId: z.coerce.number().int().positive() }), { tokenId: form.get('tokenId') }, 'Choose the token to revoke.');
+  await revokeStreamToken(user, tokenId);
+  revalidatePath('/record');
+  return okState('Token revoked: the bridge using it is now refused.');
+});

@@ -15,7 +15,8 @@ import { z } from 'zod';
 import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { createStepDeriver } from '@/lib/ingest/derive-steps';
-import { resolveRunHeader, stabilityLimitOf } from '@/lib/data/record';
+import { resolveRunHeader } from '@/lib/data/record';
+import { maxBelievableStudLoad } from '@/lib/joints/joint-properties';
 import { runScope } from '@/lib/data/scope';
 import { STREAM_MAX_READINGS } from '@/lib/record/limits';
 import type { NormalisedRun } from '@/lib/record/run-types';
@@ -47,7 +48,7 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
   if (!run || run.jointId !== jointId) throw new AppError('not_found', `Run ${runId} does not exist or is not on this token's joint.`);
   if (run.status !== 'recording') throw new AppError('conflict', `Run ${runId} is ${run.status === 'set_aside' ? 'set aside' : run.status}, not recording; start a new recording on the Record page.`);
   const joint = await Joint.findByPk(jointId);
-  const { maxStudLoadN, source } = stabilityLimitOf(joint!);
+  const { maxStudLoadN, source } = maxBelievableStudLoad(joint!);
   const floorN = -0.05 * run.targetLoadN;
   const readings: Array<{ t: number; stud: number; load: number }> = [];
   const lines = body.split(/\r?\n/);

@@ -8,7 +8,7 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { AppError } from '@/lib/http/errors';
-import { assertTextFile } from '@/lib/ingest/detect';
+import { assertTextFile } from '@/lib/ingest/text-file';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { ParseJob, ParseReply } from './parse-upload-protocol';
 

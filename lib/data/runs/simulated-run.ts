@@ -5,7 +5,8 @@ import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { runHeaderSchema } from '@/lib/record/run-header-schema';
 import type { SessionUser } from '@/lib/auth/session';
-import { simulateRun, type SimTool } from '@/lib/sim/simulate-run';
+import { studDiameterM } from '@/lib/joints/joint-properties';
+import { lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
 import { Joint, Lubricant, Method } from '@/models';
 import { storeRun } from './store-run';
 
@@ -16,24 +17,9 @@ export const simulatedRunSchema = z.object({
 });
 
 /**
- * The stud-to-stud scatter of K the simulator draws for a lubricant, from its nominal K: drier,
- * higher-K conditions scatter more. Invented model values in the spirit of docs/REFERENCE.md §5
- * (torque dry ±35 %, lubricated ±25 % ✓ [SPRING]); not measurements.
- */
-export function kScatterFor(nominalK: number): number {
-  return nominalK >= 0.18 ? 0.1 : nominalK >= 0.14 ? 0.06 : 0.05;
-}
-
-const TOOL: Record<string, SimTool> = {
-  manual_torque_wrench: 'manual_torque_wrench',
-  hydraulic_torque_wrench: 'hydraulic_torque_wrench',
-  hydraulic_tensioner: 'hydraulic_tensioner',
-  other: 'manual_torque_wrench',
-};
-
-/**
- * Simulates one run of the chosen joint, method and lubricant with the tightening simulator
- * (lib/sim, see MODEL.md) and stores it as an ordinary run (source 'simulated') in one transaction.
+ * Simulates one run of the chosen joint, method and lubricant through the library adapter
+ * (lib/sim/from-library.ts, the same as the Classroom's: same rows, gasket and seed, same run) and
+ * stores it as an ordinary run (source 'simulated') in one transaction.
  */
 export async function saveSimulatedRun(user: SessionUser, input: unknown): Promise<{ runId: number; stepCount: number }> {
   const parsed = simulatedRunSchema.safeParse(input);
@@ -49,19 +35,17 @@ export async function saveSimulatedRun(user: SessionUser, input: unknown): Promi
     Lubricant.findByPk(resolved.header.lubricantId),
   ]);
   if (!joint || !method || !lubricant) throw new AppError('not_found', 'The joint, method or lubricant no longer exists.');
-  const studCount = joint.studCount;
-  const passes = method.passes.map((pass, index) => {
-    const order = pass.orderByStudCount[String(studCount)];
-    if (!order) throw new AppError('invalid_input', `The method "${method.name}" has no stud order for ${studCount} studs in pass ${index + 1}. Add one on the Joints page.`, { field: 'methodId', fieldErrors: { methodId: [`No order for ${studCount} studs in pass ${index + 1}.`] } });
-    return { percentOfTarget: pass.percentOfTarget, order: [...order] };
-  });
-  const diameterM = joint.threadSystem === 'inch' ? joint.threadDiameter * 0.0254 : joint.threadDiameter / 1000;
-  const { run } = simulateRun({
-    studCount,
-    targetLoadN: joint.targetLoadN,
-    studDiameterM: diameterM,
-    method: { tool: TOOL[method.toolKind] ?? 'manual_torque_wrench', passes, checkPasses: method.checkPasses },
-    lubricant: { nominalK: lubricant.nominalNutFactor, kScatterCv: kScatterFor(lubricant.nominalNutFactor), runToRunCv: 0.03 },
+  const missing = passWithoutOrder(method, joint.studCount);
+  if (missing !== null) {
+    throw new AppError('invalid_input', `The method "${method.name}" has no stud order for ${joint.studCount} studs in pass ${missing}. Add one on the Joints page.`, {
+      field: 'methodId',
+      fieldErrors: { methodId: [`No order for ${joint.studCount} studs in pass ${missing}.`] },
+    });
+  }
+  const { run } = simulateLibraryRun({
+    joint: { studCount: joint.studCount, targetLoadN: joint.targetLoadN, studDiameterM: studDiameterM(joint) },
+    method: methodForSim(method, joint.studCount),
+    lubricant: lubricantForSim(lubricant),
     gasketStiffness: gasket,
     seed,
   });

@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 
 /** Bytes per row of `upload_chunks`: well under MariaDB's default max_allowed_packet (16 MB). */
 export const UPLOAD_CHUNK_BYTES = BYTES_PER_MB;

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
-import { BYTES_PER_MB } from '@/lib/ingest/detect';
+import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 import { parseColumnMapping } from '@/lib/ingest/parse-text';
 import { rememberMapping, resolveRunHeader } from '@/lib/data/record';
 import { runScope } from '@/lib/data/scope';

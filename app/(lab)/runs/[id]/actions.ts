@@ -1,27 +1,17 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
-import { isAppError } from '@/lib/http/errors';
+import { z } from 'zod';
+import { okState, type FieldErrors } from '@/lib/http/form-state';
+import { withActionRole } from '@/lib/http/server-action';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
-import { getSessionUser } from '@/lib/auth/session';
-
-export interface CommentFormState {
-  message: string | null;
-  errors: { body?: string[] };
-  ok: boolean;
-}
 
 /** Adds an instructor's comment to a run (bound to the run id on the page). */
-export async function addCommentAction(runId: number, _previous: CommentFormState, formData: FormData): Promise<CommentFormState> {
-  const parsed = commentSchema.safeParse({ body: formData.get('body') });
-  if (!parsed.success) return { ok: false, message: null, errors: parsed.error.flatten().fieldErrors };
-  try {
-    await addRunComment(await getSessionUser(), runId, parsed.data.body);
-  } catch (error) {
-    if (isAppError(error)) return { ok: false, message: error.message, errors: {} };
-    console.error('[addCommentAction]', error);
-    return { ok: false, message: 'The comment could not be saved. Try again.', errors: {} };
-  }
+export const addCommentAction = withActionRole(['instructor', 'admin'], async (user, form, runId: number) => {
+  const parsed = commentSchema.safeParse({ body: form.get('body') });
+  // The field's own message says what is wrong; the form adds none of its own.
+  if (!parsed.success) return { status: 'error', code: 'invalid_input', message: null, fieldErrors: z.flattenError(parsed.error).fieldErrors as FieldErrors };
+  await addRunComment(user, runId, parsed.data.body);
   revalidatePath(`/runs/${runId}`);
-  return { ok: true, message: 'Comment saved. The trainee sees it on this report.', errors: {} };
-}
+  return okState('Comment saved. The trainee sees it on this report.');
+});

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { buildDemoScenario, methodForStudCount, tensileStressAreaIn2 } from '@/lib/sim/demo-scenario';
+import { tensileStressAreaIn2 } from '@/lib/demo/demo-library';
+import { buildDemoScenario } from '@/lib/demo/demo-scenario';
+import { methodForSim } from '@/lib/sim/from-library';
 import { validatePassOrder } from '@/lib/sim/patterns';
 import { finalLoadsN } from '@/lib/sim/simulate-run';
 import { SimInputError } from '@/lib/sim/errors';
-import { mean, sampleCv } from './support';
+import { mean, sampleCv } from '../sim/support';
 
 const scenario = buildDemoScenario();
 const N_PER_LBF = 4.4482216152605;
@@ -105,7 +107,7 @@ describe('buildDemoScenario: joints, methods, lubricants', () => {
     }
     for (const m of scenario.methods) {
       for (const j of scenario.joints) {
-        for (const pass of methodForStudCount(m, j.studCount).passes) expect(validatePassOrder(pass.order, j.studCount).message).toBeNull();
+        for (const pass of methodForSim({ ...m, toolKind: m.tool }, j.studCount).passes) expect(validatePassOrder(pass.order, j.studCount).message).toBeNull();
       }
     }
     const threePass = scenario.methods.find((m) => m.key === 'three-pass-cross-check');
