@@ -30,7 +30,3 @@ export function okState<T = undefined>(message: string, data?: T): FormState<T> 
   return data === undefined ? { status: 'ok', message } : { status: 'ok', message, data };
 }
 
-/** True when the state marks at least one field (the form then shows the field's message, not its own). */
-export function hasFieldErrors(state: Pick<FormState<unknown>, 'fieldErrors'>): boolean {
-  return Object.values(state.fieldErrors ?? {}).some((messages) => Boolean(messages?.length));
-}
