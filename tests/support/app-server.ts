@@ -25,7 +25,7 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   let output = '';
   child.stdout?.on('data', (chunk) => (output += String(chunk)));
   child.stderr?.on('data', (chunk) => (output += String(chunk)));
-  const deadline = Date.now() + 60_000;
+  const deadline = Date.now() + 150_000;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`the app server exited early:\n${output}`);
     try {
@@ -36,7 +36,7 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
     }
     await new Promise((resolve) => setTimeout(resolve, 250));
   }
-  if (Date.now() >= deadline) throw new Error(`the app did not become healthy within 60 s:\n${output}`);
+  if (Date.now() >= deadline) throw new Error(`the app did not become healthy within 150 s:\n${output}`);
   return {
     baseUrl,
     pid: child.pid ?? 0,
