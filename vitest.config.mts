@@ -31,7 +31,7 @@ export default defineConfig({
           include: ['tests/{integration,api}/**/*.test.ts'],
           fileParallelism: false,
           testTimeout: 60_000,
-          hookTimeout: 120_000,
+          hookTimeout: 180_000,
         },
       },
       {
