@@ -8,7 +8,8 @@ export interface SeedContext {
 }
 export type Seeder = MigrationFn<SeedContext>;
 
-const root = path.resolve(__dirname, '..');
+// The repository root (this file is lib/platform/migrator.ts).
+const root = path.resolve(__dirname, '../..');
 
 /**
  * Loads a migration file with this module's own `import()`, so whichever loader runs us (tsx for
