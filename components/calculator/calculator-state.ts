@@ -13,7 +13,7 @@ import { NUT_FACTOR_SUGGESTIONS } from '@/lib/calc/nut-factors';
 import type { LtfRule } from '@/lib/calc/tensioner';
 import { STANDARD_THREADS, type ThreadSpec } from '@/lib/calc/thread';
 import { formatInputValue, fromInputUnit, inToMm, toInputUnit, type Quantity, type UnitSystem } from '@/lib/calc/units';
-import { parseNumberText } from './number-field';
+import { parseNumberText } from '@/lib/format/parse-number';
 
 /** A field whose unit depends on the unit system. */
 export interface QuantityField {

@@ -4,8 +4,6 @@ import { useId, type ReactNode } from 'react';
 import { CONTROL_CLASS, FieldLabel } from '../ui/form-fields';
 
 export { CONTROL_CLASS };
-/** What a user typed, read by the one number parser ("1,500" is 1500, "1,5" is 1.5); empty or unreadable text gives NaN. */
-export { parseNumberText } from '@/lib/format/parse-number';
 
 export interface NumberFieldProps {
   label: string;

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { formatNumber } from '@/lib/calc/units';
+import { formatDecimals, formatNumber } from '@/lib/calc/units';
 import type { Planner } from '@/lib/analysis/compare-types';
 import { runsPerGroupForCvRatio } from '@/lib/stats/runs-per-group-for-cv-ratio';
 
@@ -27,7 +27,7 @@ export function ComparePlanner({ planner }: { planner: Planner | null }) {
           </label>
           <p className="mt-2 font-medium" data-testid="planner-sentence">
             {plan
-              ? `To tell a ${Number(ratio.toFixed(2))}× difference in CV apart, plan about ${plan.perGroup} runs per group.`
+              ? `To tell a ${formatDecimals(ratio, 2, 0)}× difference in CV apart, plan about ${plan.perGroup} runs per group.`
               : 'Choose a difference above 1× to see how many runs it needs.'}
           </p>
           <p className="mt-1 text-xs text-muted">

@@ -7,7 +7,7 @@ import { pooledSdLogCv, runCvPairs, runLevelTests, type RawTest, type RunLevelGr
 import { traineeBlocks } from './compare-trainee-blocks';
 import type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary } from './compare-types';
 import type { BoxSummary, ComparisonGroupData } from './types';
-import { formatDecimals } from '@/lib/calc/units';
+import { formatDecimals, formatInputValue } from '@/lib/calc/units';
 
 export type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary, PairComparison } from './compare-types';
 
@@ -35,7 +35,7 @@ export const DEFAULT_PLANNED: ComparisonTestId = 'welch-ln-cv';
 
 const safeMean = (values: number[]) => (values.length ? mean(values) : null);
 const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
-const formatP = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${Number(p.toPrecision(2))}`);
+const formatP = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${formatInputValue(p, 2)}`);
 
 /** A run's own figures (% of target), or null when it has fewer than two final loads. */
 function runProfile(run: ComparedRun): { meanPercent: number; sdPercent: number; cv: number } | null {
@@ -65,8 +65,8 @@ function componentsOf(loadsPercentByRun: number[][]): GroupSummary['components']
 
 /** The reading of a test in words, on its Holm-adjusted p-value. */
 function readingOf(test: RawTest, adjusted: number, subject: string, alpha: number): string {
-  const level = `${Number((alpha * 100).toPrecision(3))} % level`;
-  const numbers = `${test.name}: ${test.statistic.toFixed(2)}, df ${test.df}, ${formatP(test.pValue)}; Holm-adjusted ${formatP(adjusted)}`;
+  const level = `${formatInputValue(alpha * 100, 3)} % level`;
+  const numbers = `${test.name}: ${formatDecimals(test.statistic, 2)}, df ${test.df}, ${formatP(test.pValue)}; Holm-adjusted ${formatP(adjusted)}`;
   return adjusted < alpha
     ? `${capitalise(test.measure)} differs between ${subject} at the ${level} (${numbers}).`
     : `No evidence at the ${level} that ${test.measure} differs between ${subject} (${numbers}).`;

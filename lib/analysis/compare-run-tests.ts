@@ -10,6 +10,7 @@ import { welchAnova } from '../stats/welch-anova';
 import { welchTTest } from '../stats/welch-t-test';
 import type { ComparisonTest, EffectSize, PairComparison } from './compare-types';
 import { TEST_QUESTIONS } from './compare-types';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** One group's run-level values (one value per run). */
 export interface RunLevelGroup {
@@ -79,7 +80,7 @@ export function runLevelTests(groups: readonly RunLevelGroup[], attempt: (name: 
   for (const m of means) {
     attempt(`Welch's ANOVA of ${m.on}`, () => {
       const r = welchAnova(m.values);
-      tests.push({ id: m.ids[0], question: TEST_QUESTIONS[m.ids[0]], name: `Welch's ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin.toFixed(1)}`, measure: m.measure, effect: m.effect() });
+      tests.push({ id: m.ids[0], question: TEST_QUESTIONS[m.ids[0]], name: `Welch's ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`, measure: m.measure, effect: m.effect() });
     });
     attempt(`The one-way ANOVA of ${m.on}`, () => {
       const r = oneWayAnova(m.values);

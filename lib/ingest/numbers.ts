@@ -51,3 +51,12 @@ export function decimalSeparatorOf(cell: string): 'comma' | 'point' | null {
   if (c.includes('.')) return readNumber(c, 'point').kind === 'number' ? 'point' : null;
   return null;
 }
+
+/** A cell's value read with either decimal separator (point first), for guesses such as the load unit; null when it is not a number. */
+export function valueInEitherConvention(cell: string): number | null {
+  for (const rule of ['point', 'comma'] as const) {
+    const reading = readNumber(cell, rule);
+    if (reading.kind === 'number') return reading.value;
+  }
+  return null;
+}

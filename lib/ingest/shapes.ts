@@ -12,7 +12,7 @@
 import { z } from 'zod';
 import { AppError } from '@/lib/http/errors';
 import { LOAD_UNITS, TORQUE_UNITS, type LoadUnit, type TorqueUnit } from './units';
-import { isNumericText } from './numbers';
+import { valueInEitherConvention } from './numbers';
 import { quoteInput } from './text-limits';
 
 /** The table shapes we import. */
@@ -209,8 +209,8 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
     let max = 0;
     for (const row of sampleRows)
       for (const i of idx) {
-        const c = (row[i] ?? '').trim().replace(',', '.');
-        if (isNumericText(c)) max = Math.max(max, Math.abs(Number(c)));
+        const value = valueInEitherConvention(row[i] ?? '');
+        if (value !== null) max = Math.max(max, Math.abs(value));
       }
     loadUnit = max < 2000 ? 'kN' : 'N';
     notes.push(`No load unit in the headers; assumed ${loadUnit} from the size of the values (largest ${max}). Check it.`);

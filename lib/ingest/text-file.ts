@@ -4,13 +4,14 @@
  * widget's web worker and the server run the same checks.
  */
 import { AppError } from '@/lib/http/errors';
+import { formatDecimals } from '@/lib/calc/units';
 
 /** Bytes in one MB as used in size messages (1 MB = 1,048,576 bytes, as most upload limits are set). */
 export const BYTES_PER_MB = 1024 * 1024;
 
 function formatMb(bytes: number): string {
   const mb = bytes / BYTES_PER_MB;
-  return `${Number.isInteger(mb) ? mb : mb.toFixed(1)} MB`;
+  return `${formatDecimals(mb, Number.isInteger(mb) ? 0 : 1)} MB`;
 }
 
 /** Offset of the first byte that breaks UTF-8 (RFC 3629: no overlongs, no surrogates, ≤ U+10FFFF), or -1. */

@@ -46,6 +46,12 @@ async function caught(fn: () => Promise<unknown>): Promise<AppError> {
   throw new Error('expected an AppError');
 }
 
+async function saveManualRunRows(unit: 'kN' | 'N', rows: string[][]): Promise<number> {
+  const { runId } = await saveManualRun(instructor, { header: header(jointId, instructor.id, ids), unit, rows });
+  created.push(runId);
+  return runId;
+}
+
 describe('saveManualRun', () => {
   it('saves one run with the method order and loads converted from kN to N', async () => {
     const plan = planSteps(method, 8);
@@ -89,5 +95,14 @@ describe('saveManualRun', () => {
   it('names the limit for an absurd load (a kN value typed while N was chosen the other way round)', async () => {
     const err = await caught(() => saveManualRun(instructor, { header: header(jointId, instructor.id, ids), unit: 'kN', rows: [Array(8).fill(90000)] }));
     expect(err.message).toMatch(/^Row 1 .*stud 1: the load 90000 kN is above the limit of/);
+  });
+
+  it('reads typed text by the decimal-comma rule of lib/format/parse-number.ts and names an unclear cell', async () => {
+    // "1,500" N is fifteen hundred newtons and "1,5" kN one and a half kilonewtons (issue 14's rule).
+    const typed = await saveManualRunRows('N', [Array(8).fill('1,500')]);
+    expect((await storedSteps(typed))[0]!.loadsN).toEqual(Array(8).fill(1500));
+    const err = await caught(() => saveManualRunRows('kN', [['0,500', ...Array(7).fill('1,5')]]));
+    expect(err.message).toMatch(/^Row 1, stud 1: "0,500" is unclear/);
+    expect(err.details).toMatchObject({ row: 1, column: 'Stud 1' });
   });
 });

@@ -7,6 +7,7 @@ import type { JointForImport } from './types';
 import { readNumberCell } from '../numbers';
 import { quoteInput } from '../text-limits';
 import { loadToN, type LoadUnit, type StrainConversion } from '../units';
+import { formatInputValue } from '@/lib/calc/units';
 
 /** An `invalid_input` error naming the file line and the column. */
 export function cellError(line: number, column: string, message: string): AppError {
@@ -16,7 +17,7 @@ export function cellError(line: number, column: string, message: string): AppErr
 
 /** A load in N for messages: kN from 1000 N up, six significant figures. */
 export function formatLoadN(n: number): string {
-  return Math.abs(n) >= 1000 ? `${+(n / 1000).toPrecision(6)} kN` : `${+n.toPrecision(6)} N`;
+  return Math.abs(n) >= 1000 ? `${formatInputValue(n / 1000, 6)} kN` : `${formatInputValue(n, 6)} N`;
 }
 
 /** Stud positions for messages, e.g. `2, 5`. */
