@@ -49,6 +49,7 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
   const missing = points.length - finite.length;
 
   const options = basePlotOptions({
+    marginTop: 34,
     x: {
       label: 'Stud position',
       domain: points.map((p) => p.position),
@@ -67,12 +68,13 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
         ariaDescription: 'band',
       }),
       Plot.ruleY([target], { stroke: THEME.ink, strokeWidth: 1.5, ariaDescription: 'target' }),
+      // Named above the plot (top right, in the margin) so the name never sits under a stud's dot.
       Plot.text([target], {
-        y: (d: number) => d,
-        frameAnchor: 'right',
+        frameAnchor: 'top-right',
         textAnchor: 'end',
-        dy: -7,
-        text: () => `Target ${chartForceText(targetLoadN, units)} ± ${percentText(bandPercent)}`,
+        lineAnchor: 'bottom',
+        dy: -8,
+        text: () => `Target ${chartForceText(targetLoadN, units)} ± ${percentText(bandPercent)} (line and band)`,
         fill: THEME.muted,
         ariaDescription: 'target label',
       }),
