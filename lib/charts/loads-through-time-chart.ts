@@ -148,7 +148,11 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
 
   const passLabels = [...(firstLabel ? [firstLabel] : []), ...boundaries];
   const yMax = niceCeil(Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load)));
-  const fit: ChartFit = (opts, frame) => ({ ...opts, marks: [...marks, ...labelMarks(opts, frame, passLabels, endLabels)] });
+  const fit: ChartFit = (opts, frame) => {
+    // Room above the frame for two rows of pass names at the drawn font size.
+    const sized = { ...opts, marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10) };
+    return { ...sized, marks: [...marks, ...labelMarks(sized, frame, passLabels, endLabels)] };
+  };
 
   const passCount = new Set(steps.map((s) => s.pass)).size;
   const description =
@@ -197,9 +201,9 @@ export function niceCeil(value: number): number {
   return Math.ceil(value / step - 1e-9) * step;
 }
 
-/** Gap between stud numbers at the line ends (px): their 11 px font plus 1. */
+/** Gap between stud numbers at the line ends (px): the line box of their 11 px font (about 1.3 em) plus 1. */
 const STUD_LABEL_FONT = 11;
-const STUD_LABEL_GAP = STUD_LABEL_FONT + 1;
+const STUD_LABEL_GAP = Math.ceil(STUD_LABEL_FONT * 1.3) + 1;
 
 /**
  * The pass names in the top margin (shortened or in two rows when passes are narrow) and the stud

@@ -55,7 +55,7 @@ export function passSummaryChart(passes: readonly PassSummary[]): ChartSpec {
         ticks: rows.map((r) => r.pass),
         tickFormat: label,
       },
-      y: { label: 'Percent (%)', grid: true, nice: true, labelArrow: 'none' },
+      y: { label: 'Percent (%)', grid: true, nice: true, labelArrow: 'none', insetTop: 26 },
       marks: [
         Plot.rectY(rows, {
           x1: (r: PassRow) => r.pass - 0.22,

@@ -16,7 +16,7 @@ import { DEMO_ACCOUNTS } from '../support/http-session';
 
 const WIDTHS = [1280, 390] as const;
 const TOLERANCE_PX = 1;
-const SHOTS = process.env.EVENLOAD_CHART_SHOTS; // a folder: also keep a screenshot of each page
+const SHOTS = process.env.EVENLOAD_CHART_SHOTS; // a folder: also keep a screenshot of each chart
 
 /** Eight group names long enough to smear into each other under narrow columns. */
 const LONG_NAMES = [
@@ -125,7 +125,10 @@ async function openAt(role: keyof typeof DEMO_ACCOUNTS, width: number): Promise<
 async function measure(page: Page, count: number, name: string): Promise<Overlap[]> {
   await expect.poll(() => page.locator('[data-testid="plot-container"] > svg, [data-testid="plot-container"] > figure svg').count(), { timeout: 30_000 }).toBeGreaterThanOrEqual(count);
   await page.waitForTimeout(400); // ResizeObserver → redraw at the measured width
-  if (SHOTS) await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true });
+  if (SHOTS) {
+    const figures = page.locator('figure:has([data-testid="plot-container"])');
+    for (let i = 0; i < (await figures.count()); i += 1) await figures.nth(i).screenshot({ path: path.join(SHOTS, `${name}-${i + 1}.png`) });
+  }
   return overlaps(page);
 }
 
@@ -171,10 +174,10 @@ const CASES: { name: string; role: keyof typeof DEMO_ACCOUNTS; charts: number; o
     charts: 2,
     open: async (page) => {
       await page.goto(`${server.baseUrl}/classroom`);
-      await page.getByRole('button', { name: 'Start here' }).first().click();
-      await page.locator('h1').first().waitFor();
+      await page.locator('li', { hasText: 'One pass or several' }).getByRole('button', { name: 'Start here' }).click();
+      await page.getByTestId('side-status').first().waitFor({ timeout: 90_000 });
       await page.keyboard.press('End');
-      await page.getByTestId('end-figures').waitFor();
+      await page.getByTestId('end-figures').waitFor({ timeout: 90_000 });
     },
   },
 ];
@@ -187,7 +190,8 @@ describe('chart labels in Chromium', () => {
         await c.open(page);
         const found = await measure(page, c.charts, `${c.name}-${width}`);
         await page.context().close();
-        expect(found.map((o) => `${o.chart}: "${o.a}" over "${o.b}"`)).toEqual([]);
+        const lines = found.map((o) => `${o.chart}: "${o.a}" over "${o.b}"`);
+        expect(lines, `${lines.length} overlaps:\n${lines.join('\n')}`).toEqual([]);
       });
     }
   }
