@@ -3,7 +3,7 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import * as Plot from '@observablehq/plot';
 import type { PlotOptions } from '@observablehq/plot';
-import type { ChartLegend, ChartTable } from '@/lib/charts/chart-spec';
+import type { ChartFit, ChartLegend, ChartTable } from '@/lib/charts/chart-spec';
 import { ChartLegendView } from './chart-legend';
 
 export interface PlotFigureProps {
@@ -15,6 +15,8 @@ export interface PlotFigureProps {
   /** The numbers behind the chart, offered under "Show the numbers". */
   table?: ChartTable;
   legend?: ChartLegend;
+  /** Places the labels for the drawn width (from the chart builder). */
+  fit?: ChartFit;
   /** Classroom projector: larger type and marks. */
   large?: boolean;
   className?: string;
@@ -28,7 +30,7 @@ const DEFAULT_WIDTH = 640;
  * (never in render); the plot is removed on clean-up. Use as `<PlotFigure {...chart} />` with a
  * builder result from lib/charts held in useMemo.
  */
-export function PlotFigure({ options, title, description, table, legend, large = false, className = '' }: PlotFigureProps) {
+export function PlotFigure({ options, title, description, table, legend, fit, large = false, className = '' }: PlotFigureProps) {
   const ref = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState<number | undefined>(undefined);
   const titleId = useId();
@@ -49,17 +51,21 @@ export function PlotFigure({ options, title, description, table, legend, large =
     const node = ref.current;
     if (!node) return;
     const style = typeof options.style === 'object' && options.style !== null ? options.style : {};
-    const plot = Plot.plot({
+    const sized: PlotOptions = {
       ...options,
       width: options.width ?? width ?? DEFAULT_WIDTH,
       height: large && options.height ? Math.round(options.height * 1.35) : options.height,
       style: large ? { ...style, fontSize: '20px' } : options.style,
+    };
+    const fontPx = large ? 20 : Number.parseFloat(String((style as { fontSize?: string }).fontSize ?? '13')) || 13;
+    const plot = Plot.plot({
+      ...(fit ? fit(sized, { width: sized.width!, fontPx }) : sized),
       ariaLabel: title,
       ariaDescription: description,
     });
     node.replaceChildren(plot);
     return () => plot.remove();
-  }, [options, width, large, title, description]);
+  }, [options, fit, width, large, title, description]);
 
   return (
     <figure aria-labelledby={titleId} className={`rounded-card border border-rule bg-panel p-4 text-ink ${className}`}>

@@ -118,3 +118,77 @@ export function simulateDichromacy(hex: string, kind: Dichromacy): string {
   const out = m.map((row) => row[0] * lin[0] + row[1] * lin[1] + row[2] * lin[2]) as unknown as Rgb;
   return toHex(linearToSrgb(out));
 }
+
+export type Lab = readonly [number, number, number];
+
+/** CIE 1976 L*a*b* of a hex colour under D65 (sRGB matrix of IEC 61966-2-1, white Xn = 0.95047, Zn = 1.08883). */
+export function hexToLab(hex: string): Lab {
+  const [r, g, b] = srgbToLinear(parseHex(hex));
+  const x = (0.4124564 * r + 0.3575761 * g + 0.1804375 * b) / 0.95047;
+  const y = 0.2126729 * r + 0.7151522 * g + 0.072175 * b;
+  const z = (0.0193339 * r + 0.119192 * g + 0.9503041 * b) / 1.08883;
+  const f = (t: number) => (t > 216 / 24389 ? Math.cbrt(t) : (24389 / 27 * t + 16) / 116);
+  const [fx, fy, fz] = [f(x), f(y), f(z)];
+  return [116 * fy - 16, 500 * (fx - fy), 200 * (fy - fz)];
+}
+
+const deg = (rad: number) => (rad * 180) / Math.PI;
+const rad = (d: number) => (d * Math.PI) / 180;
+
+/**
+ * CIEDE2000 colour difference ΔE00 between two CIELAB colours (kL = kC = kH = 1), implemented as in
+ * G. Sharma, W. Wu, E. N. Dalal, "The CIEDE2000 color-difference formula: implementation notes,
+ * supplementary test data, and mathematical observations", Color Research & Application 30 (2005)
+ * 21–30, equations (1)–(22), including their notes on the mean hue and hue difference.
+ */
+export function ciede2000(lab1: Lab, lab2: Lab): number {
+  const [L1, a1, b1] = lab1;
+  const [L2, a2, b2] = lab2;
+  const C1 = Math.hypot(a1, b1);
+  const C2 = Math.hypot(a2, b2);
+  const Cbar7 = ((C1 + C2) / 2) ** 7;
+  const G = 0.5 * (1 - Math.sqrt(Cbar7 / (Cbar7 + 25 ** 7)));
+  const a1p = (1 + G) * a1;
+  const a2p = (1 + G) * a2;
+  const C1p = Math.hypot(a1p, b1);
+  const C2p = Math.hypot(a2p, b2);
+  const hue = (b: number, a: number) => (b === 0 && a === 0 ? 0 : (deg(Math.atan2(b, a)) + 360) % 360);
+  const h1p = hue(b1, a1p);
+  const h2p = hue(b2, a2p);
+  const dLp = L2 - L1;
+  const dCp = C2p - C1p;
+  let dhp = 0;
+  if (C1p * C2p !== 0) {
+    dhp = h2p - h1p;
+    if (dhp > 180) dhp -= 360;
+    else if (dhp < -180) dhp += 360;
+  }
+  const dHp = 2 * Math.sqrt(C1p * C2p) * Math.sin(rad(dhp / 2));
+  const Lbarp = (L1 + L2) / 2;
+  const Cbarp = (C1p + C2p) / 2;
+  let hbarp = h1p + h2p;
+  if (C1p * C2p !== 0) {
+    if (Math.abs(h1p - h2p) <= 180) hbarp = (h1p + h2p) / 2;
+    else hbarp = h1p + h2p < 360 ? (h1p + h2p + 360) / 2 : (h1p + h2p - 360) / 2;
+  }
+  const T =
+    1 - 0.17 * Math.cos(rad(hbarp - 30)) + 0.24 * Math.cos(rad(2 * hbarp)) + 0.32 * Math.cos(rad(3 * hbarp + 6)) - 0.2 * Math.cos(rad(4 * hbarp - 63));
+  const dTheta = 30 * Math.exp(-(((hbarp - 275) / 25) ** 2));
+  const Cbarp7 = Cbarp ** 7;
+  const RC = 2 * Math.sqrt(Cbarp7 / (Cbarp7 + 25 ** 7));
+  const SL = 1 + (0.015 * (Lbarp - 50) ** 2) / Math.sqrt(20 + (Lbarp - 50) ** 2);
+  const SC = 1 + 0.045 * Cbarp;
+  const SH = 1 + 0.015 * Cbarp * T;
+  const RT = -Math.sin(rad(2 * dTheta)) * RC;
+  return Math.sqrt((dLp / SL) ** 2 + (dCp / SC) ** 2 + (dHp / SH) ** 2 + RT * (dCp / SC) * (dHp / SH));
+}
+
+/** ΔE00 between two hex colours. */
+export const hexDeltaE2000 = (a: string, b: string): number => ciede2000(hexToLab(a), hexToLab(b));
+
+/** A colour drawn with `opacity` over `background`, composited in sRGB as browsers do for SVG fill-opacity. */
+export function overBackground(hex: string, background: string, opacity: number): string {
+  const f = parseHex(hex);
+  const g = parseHex(background);
+  return toHex([0, 1, 2].map((i) => f[i]! * opacity + g[i]! * (1 - opacity)) as unknown as Rgb);
+}

@@ -4,6 +4,7 @@ import type { ChartSpec } from './chart-spec';
 import { percentText } from './chart-format';
 import { groupColour, THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
+import { groupSwatches } from './group-distribution';
 
 interface DriftPoint {
   key: string;
@@ -49,7 +50,7 @@ export function compareDriftByPositionChart(groups: readonly ComparisonGroupData
         }),
       ],
     }),
-    legend: { kind: 'swatches', items: groups.map((g) => ({ label: g.label, colour: groupColour(g.colourIndex), shape: 'line' as const })) },
+    legend: { kind: 'swatches', items: groupSwatches(groups, 'line') },
     table: {
       columns: ['Position', ...groups.map((g) => `${g.label} (%)`)],
       rows: positions.map((position) => [

@@ -2,8 +2,9 @@ import * as Plot from '@observablehq/plot';
 import type { ComparisonGroupData } from '@/lib/analysis/types';
 import type { ChartSpec } from './chart-spec';
 import { percentText } from './chart-format';
-import { columnScale, distributionMarks, distributionTable } from './group-distribution';
-import { groupColour, THEME } from './palette';
+import { columnScale, distributionMarks, distributionTable, fitGroupColumns, groupSwatches } from './group-distribution';
+import { textWidth } from './label-layout';
+import { THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
 
 export interface CompareFinalLoadsOptions {
@@ -40,21 +41,24 @@ export function compareFinalLoadsChart(
   return {
     title: 'Final loads by group (% of target)',
     description,
+    fit: fitGroupColumns(dist),
     options: basePlotOptions({
       height: 380,
+      // The band labels sit in the right margin, beside their lines and clear of the dots.
+      marginRight: Math.ceil(12 + Math.max(...bandLines.map((b) => textWidth(b.label, 13)))),
       x: columnScale(dist),
       y: { label: 'Final load (% of target)', grid: true, nice: true, labelArrow: 'none' },
       marks: [
         Plot.ruleY([100], { stroke: THEME.ink, strokeWidth: 1.25, ariaDescription: 'target' }),
         Plot.ruleY(bandLines, { y: 'y', stroke: THEME.muted, strokeDasharray: '4 3', ariaDescription: 'band lines' }),
-        Plot.text(bandLines, { y: 'y', text: 'label', frameAnchor: 'right', textAnchor: 'end', dy: -6, fill: THEME.muted, ariaDescription: 'band labels' }),
+        Plot.text(bandLines, { y: 'y', text: 'label', frameAnchor: 'right', textAnchor: 'start', dx: 6, fill: THEME.muted, ariaDescription: 'band labels' }),
         ...marks,
       ],
     }),
     legend: {
       kind: 'swatches',
       items: [
-        ...groups.map((g) => ({ label: g.label, colour: groupColour(g.colourIndex), shape: 'dot' as const })),
+        ...groupSwatches(groups, 'dot'),
         { label: `Band 100 ± ${percentText(bandPercent)}`, colour: THEME.muted, shape: 'dashed-line' as const },
       ],
     },

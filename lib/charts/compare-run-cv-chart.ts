@@ -1,8 +1,7 @@
 import type { ComparisonGroupData } from '@/lib/analysis/types';
 import type { ChartSpec } from './chart-spec';
 import { percentText } from './chart-format';
-import { columnScale, distributionMarks, distributionTable } from './group-distribution';
-import { groupColour } from './palette';
+import { columnScale, distributionMarks, distributionTable, fitGroupColumns, groupSwatches } from './group-distribution';
 import { basePlotOptions } from './plot-theme';
 
 /**
@@ -21,13 +20,14 @@ export function compareRunCvChart(groups: readonly ComparisonGroupData[]): Chart
   return {
     title: 'Scatter of runs by group (CV)',
     description,
+    fit: fitGroupColumns(dist),
     options: basePlotOptions({
       height: 360,
       x: columnScale(dist),
       y: { label: 'Run CV (%)', grid: true, nice: true, zero: true, labelArrow: 'none' },
       marks,
     }),
-    legend: { kind: 'swatches', items: groups.map((g) => ({ label: g.label, colour: groupColour(g.colourIndex), shape: 'dot' as const })) },
+    legend: { kind: 'swatches', items: groupSwatches(groups, 'dot') },
     table: distributionTable(dist, boxes),
   };
 }

@@ -1,7 +1,8 @@
 import * as Plot from '@observablehq/plot';
 import type { UnitSystem } from '@/lib/calc/units';
 import type { RunAnalysis } from '@/lib/analysis/types';
-import type { ChartSpec } from './chart-spec';
+import type { ChartFit, ChartSpec } from './chart-spec';
+import { textWidth, wrapWords } from './label-layout';
 import { chartForceText, forceUnit, percentText, toChartForce } from './chart-format';
 import { deviationColour, THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
@@ -48,7 +49,10 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
   const highest = finite.length ? finite.reduce((a, b) => (b.load > a.load ? b : a)) : undefined;
   const missing = points.length - finite.length;
 
+  const targetText = `Target ${chartForceText(targetLoadN, units)} ± ${percentText(bandPercent)} (line and band)`;
+  const yLabel = `Final load (${unit})`;
   const options = basePlotOptions({
+    marginTop: 34,
     x: {
       label: 'Stud position',
       domain: points.map((p) => p.position),
@@ -57,7 +61,7 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
       labelAnchor: 'center',
       labelArrow: 'none',
     },
-    y: { label: `Final load (${unit})`, domain: yDomain, grid: true, labelArrow: 'none', nice: false },
+    y: { label: yLabel, domain: yDomain, grid: true, labelArrow: 'none', nice: false },
     marks: [
       Plot.rectY([{ y1: bandLow, y2: bandHigh }], {
         y1: 'y1',
@@ -67,15 +71,6 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
         ariaDescription: 'band',
       }),
       Plot.ruleY([target], { stroke: THEME.ink, strokeWidth: 1.5, ariaDescription: 'target' }),
-      Plot.text([target], {
-        y: (d: number) => d,
-        frameAnchor: 'right',
-        textAnchor: 'end',
-        dy: -7,
-        text: () => `Target ${chartForceText(targetLoadN, units)} ± ${percentText(bandPercent)}`,
-        fill: THEME.muted,
-        ariaDescription: 'target label',
-      }),
       Plot.ruleX(finite, {
         x: 'position',
         y1: () => target,
@@ -97,6 +92,18 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
     ],
   });
 
+  // The target is named above the plot (top right, in the margin) so the name never sits under a
+  // stud's dot; on a narrow chart it wraps so it stays clear of the axis label at the top left.
+  const targetLabel = (text: string) =>
+    Plot.text([target], { frameAnchor: 'top-right', textAnchor: 'end', lineAnchor: 'bottom', dy: -8, text: () => text, fill: THEME.muted, ariaDescription: 'target label' });
+  options.marks = [...(options.marks ?? []), targetLabel(targetText)];
+  const fit: ChartFit = (opts, { width, fontPx }) => {
+    const room = width - (opts.marginRight ?? 0) - textWidth(yLabel, fontPx) - 24;
+    const lines = textWidth(targetText, fontPx) <= room ? [targetText] : wrapWords(targetText, Math.max(room, 80), fontPx);
+    const marks = (opts.marks ?? []).filter((m) => (m as { ariaDescription?: string }).ariaDescription !== 'target label');
+    return { ...opts, marginTop: Math.max(opts.marginTop ?? 0, Math.ceil(14 + lines.length * fontPx * 1.1)), marks: [...marks, targetLabel(lines.join('\n'))] };
+  };
+
   const description =
     finite.length === 0
       ? `No final loads were recorded for ${points.length} studs.`
@@ -109,6 +116,7 @@ export function finalLoadsChart(run: FinalLoadsInput, { units }: FinalLoadsOptio
 
   return {
     title: 'Final loads against the band',
+    fit,
     description,
     options,
     legend: { kind: 'deviation', bandPercent },

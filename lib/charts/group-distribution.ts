@@ -1,5 +1,6 @@
 import * as Plot from '@observablehq/plot';
-import type { ChartTable } from './chart-spec';
+import type { ChartFit, ChartTable, LegendSwatch } from './chart-spec';
+import { fitColumnLabels, groupKey } from './label-layout';
 import { boxStats, type BoxStats } from './box-stats';
 import { jitter } from './jitter';
 import { groupColour, THEME } from './palette';
@@ -88,14 +89,43 @@ export function distributionMarks(groups: readonly DistributionGroup[]) {
   return { dots, boxes, marks };
 }
 
-/** The x scale for one column per group. */
-export function columnScale(groups: readonly DistributionGroup[]) {
+/** A group's name with its key as the axis and the legend show it: "A · Dry". */
+export function keyedLabel(label: string, index: number): string {
+  return `${groupKey(index)} · ${label}`;
+}
+
+/** Legend swatches for the groups, each named with its key. */
+export function groupSwatches(groups: readonly { label: string; colourIndex: number }[], shape: LegendSwatch['shape']): LegendSwatch[] {
+  return groups.map((g, i) => ({ label: keyedLabel(g.label, i), colour: groupColour(g.colourIndex), shape }));
+}
+
+/**
+ * The x scale for one column per group. Each tick is the group's key (A, B, …) with its whole name
+ * wrapped under it when the names fit the columns (`ticks` from `fitColumnLabels`), else the key
+ * alone and the legend spells the names out.
+ */
+export function columnScale(groups: readonly DistributionGroup[], ticks?: readonly string[]) {
   return {
     label: null,
     domain: [-0.6, Math.max(groups.length - 1, 0) + 0.6],
     ticks: groups.map((_, i) => i),
-    tickFormat: (i: number) => groups[i]?.label ?? '',
+    tickFormat: (i: number) => ticks?.[i] ?? groupKey(i),
     tickSize: 0,
+  };
+}
+
+/** Lines of a multi-line tick label are 1 em apart (Plot's text default). */
+const LINE_EM = 1;
+
+/** Fits the group names under their columns for the drawn width (wrapped whole names, or keys). */
+export function fitGroupColumns(groups: readonly DistributionGroup[]): ChartFit {
+  return (options, { width, fontPx }) => {
+    const plotWidth = width - (options.marginLeft ?? 0) - (options.marginRight ?? 0);
+    const columnWidth = plotWidth / Math.max(1.2, groups.length + 0.2);
+    const names = fitColumnLabels(groups.map((g) => g.label), columnWidth, fontPx, { maxLines: 3 });
+    const ticks = groups.map((_, i) => (names.mode === 'wrapped' ? `${groupKey(i)}\n${names.ticks[i]}` : names.ticks[i]!));
+    const lines = names.mode === 'wrapped' ? names.lineCount + 1 : 1;
+    return { ...options, marginBottom: Math.ceil(16 + lines * fontPx * LINE_EM), x: columnScale(groups, ticks) };
   };
 }
 

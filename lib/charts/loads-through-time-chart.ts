@@ -2,10 +2,11 @@ import * as Plot from '@observablehq/plot';
 import type { UnitSystem } from '@/lib/calc/units';
 import type { RunAnalysis } from '@/lib/analysis/types';
 import { AppError } from '@/lib/http/errors';
-import type { ChartSpec } from './chart-spec';
+import type { ChartFit, ChartSpec } from './chart-spec';
 import { chartForceText, forceUnit, numberText, passLabel, percentText, toChartForce } from './chart-format';
 import { THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
+import { dodge, layoutRowLabels, textWidth } from './label-layout';
 
 export type LoadsThroughTimeInput = Pick<RunAnalysis, 'steps' | 'passes' | 'targetLoadN' | 'bandPercent'>;
 
@@ -103,16 +104,6 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
     Plot.ruleY([target], { stroke: THEME.ink, strokeWidth: 1, strokeDasharray: '4 3', ariaDescription: 'target' }),
     Plot.ruleY([0], { stroke: THEME.ink, strokeWidth: 1, ariaDescription: 'zero' }),
     Plot.ruleX(boundaries, { x: 'x', stroke: THEME.muted, strokeWidth: 1, ariaDescription: 'pass boundaries' }),
-    Plot.text([...(firstLabel ? [firstLabel] : []), ...boundaries], {
-      x: 'x',
-      text: 'label',
-      frameAnchor: 'top',
-      textAnchor: 'start',
-      dx: 4,
-      dy: -14,
-      fill: THEME.muted,
-      ariaDescription: 'pass labels',
-    }),
     Plot.lineY(done, {
       x: 'step',
       y: 'load',
@@ -150,20 +141,18 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
       title: 'title',
       ariaDescription: 'tightened stud',
     }),
-    Plot.text(endLabels, {
-      x: 'step',
-      y: 'load',
-      text: (d: StudLoadPoint) => String(d.position),
-      dx: 10,
-      textAnchor: 'start',
-      fill: THEME.muted,
-      fontSize: 11,
-      ariaDescription: 'stud numbers',
-    }),
   );
   if (currentStep !== undefined) {
     marks.push(Plot.ruleX([currentStep], { stroke: THEME.accent, strokeWidth: 2, ariaDescription: 'current step' }));
   }
+
+  const passLabels = [...(firstLabel ? [firstLabel] : []), ...boundaries];
+  const yMax = niceCeil(Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load)));
+  const fit: ChartFit = (opts, frame) => {
+    // Room above the frame for two rows of pass names at the drawn font size.
+    const sized = { ...opts, marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10) };
+    return { ...sized, marks: [...marks, ...labelMarks(sized, frame, passLabels, endLabels)] };
+  };
 
   const passCount = new Set(steps.map((s) => s.pass)).size;
   const description =
@@ -177,14 +166,15 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
 
   return {
     title: 'Loads through the run',
+    fit,
     description,
     options: basePlotOptions({
       height: 360,
       marginTop: 40,
       marginRight: 36,
       x: { label: 'Step', domain: [0.5, lastStep + 0.5], tickFormat: 'd', labelArrow: 'none', labelAnchor: 'center' },
-      y: { label: `Stud load (${unit})`, grid: true, labelArrow: 'none', domain: [0, Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load))], nice: true },
-      marks,
+      y: { label: `Stud load (${unit})`, grid: true, labelArrow: 'none', domain: [0, yMax] },
+      marks: [...marks, ...labelMarks({ width: 640, height: 360, marginTop: 40, marginRight: 36, marginLeft: 64, marginBottom: 44, x: { domain: [0.5, lastStep + 0.5] }, y: { domain: [0, yMax] } }, { width: 640, fontPx: 13 }, passLabels, endLabels)],
     }),
     legend: {
       kind: 'swatches',
@@ -200,4 +190,92 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
       rows: steps.map((s) => [s.order, s.pass, s.position, ...s.loadsN.map((n) => numberText(toChartForce(n, units)))]),
     },
   };
+}
+
+/** The smallest 1, 2 or 5 × 10^k multiple (for about 8 ticks) at or above a positive value. */
+export function niceCeil(value: number): number {
+  if (!(value > 0)) return 1;
+  const raw = value / 8;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw)!;
+  return Math.ceil(value / step - 1e-9) * step;
+}
+
+/** Gap between stud numbers at the line ends (px): the line box of their 11 px font (about 1.3 em) plus 1. */
+const STUD_LABEL_FONT = 11;
+const STUD_LABEL_GAP = Math.ceil(STUD_LABEL_FONT * 1.3) + 1;
+
+/**
+ * The pass names in the top margin (shortened or in two rows when passes are narrow) and the stud
+ * numbers at the line ends, dodged apart along y with a short leader to their line, for the drawn
+ * size. Pixel positions come from the options' domains, size and margins (linear scales).
+ */
+function labelMarks(
+  opts: Plot.PlotOptions,
+  { width, fontPx }: { width: number; fontPx: number },
+  passLabels: readonly { x: number; label: string }[],
+  endLabels: readonly StudLoadPoint[],
+): Plot.Markish[] {
+  const [ml, mr, mt, mb] = [opts.marginLeft ?? 0, opts.marginRight ?? 0, opts.marginTop ?? 0, opts.marginBottom ?? 0];
+  const height = opts.height ?? 360;
+  const [x0, x1] = ((opts.x as { domain?: number[] } | undefined)?.domain ?? [0, 1]) as [number, number];
+  const [y0, y1] = ((opts.y as { domain?: number[] } | undefined)?.domain ?? [0, 1]) as [number, number];
+  const xPx = (x: number) => ml + ((x - x0) / (x1 - x0)) * (width - ml - mr);
+  const yPx = (y: number) => height - mb - ((y - y0) / (y1 - y0)) * (height - mt - mb);
+  const yData = (px: number) => y0 + ((height - mb - px) / (height - mt - mb)) * (y1 - y0);
+
+  const placed = layoutRowLabels(
+    passLabels.map((p) => ({ start: xPx(p.x) + 4, variants: passLabelVariants(p.label) })),
+    fontPx,
+    width,
+  );
+  const rows = passLabels.map((p, i) => ({ x: p.x, label: p.label, text: placed[i]!.text, row: placed[i]!.row }));
+  const rowMark = (row: number) =>
+    Plot.text(rows.filter((r) => r.row === row), {
+      x: 'x',
+      text: 'text',
+      frameAnchor: 'top',
+      textAnchor: 'start',
+      lineAnchor: 'bottom',
+      dx: 4,
+      dy: -4 - row * (fontPx + 2),
+      fill: THEME.muted,
+      ariaDescription: 'pass labels',
+    });
+
+  // Stud numbers: dodged along y (px) within the frame, in as many columns as they need.
+  const top = mt + STUD_LABEL_GAP / 2;
+  const bottom = height - mb - STUD_LABEL_GAP / 2;
+  const perColumn = Math.max(1, Math.floor((bottom - top) / STUD_LABEL_GAP) + 1);
+  const columns = Math.ceil(endLabels.length / perColumn);
+  const sorted = [...endLabels].sort((a, b) => b.load - a.load);
+  const stepPx = (width - ml - mr) / Math.max(1e-9, x1 - x0);
+  const numbers = sorted.flatMap((_, column) => {
+    const inColumn = sorted.filter((__, i) => i % columns === column);
+    if (column >= columns || inColumn.length === 0) return [];
+    const ys = dodge(inColumn.map((p) => yPx(p.load)), STUD_LABEL_GAP, top, bottom);
+    const leader = (10 + column * (textWidth('00', STUD_LABEL_FONT) + 6)) / stepPx;
+    return inColumn.map((p, i) => ({ ...p, labelX: p.step + leader, labelY: yData(ys[i]!) }));
+  });
+  return [
+    rowMark(0),
+    rowMark(1),
+    Plot.link(numbers, { x1: 'step', y1: 'load', x2: 'labelX', y2: 'labelY', stroke: THEME.muted, strokeWidth: 0.75, ariaDescription: 'stud number leaders' }),
+    Plot.text(numbers, {
+      x: 'labelX',
+      y: 'labelY',
+      text: (d: StudLoadPoint) => String(d.position),
+      dx: 2,
+      textAnchor: 'start',
+      fill: THEME.muted,
+      fontSize: STUD_LABEL_FONT,
+      ariaDescription: 'stud numbers',
+    }),
+  ];
+}
+
+/** "Pass 2 (60 %)" → ["Pass 2 (60 %)", "Pass 2", "P2"]. */
+function passLabelVariants(label: string): string[] {
+  const short = label.replace(/\s*\(.*\)$/, '');
+  return [...new Set([label, short, short.replace(/^Pass\s+/, 'P')])];
 }

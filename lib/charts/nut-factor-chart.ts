@@ -3,6 +3,7 @@ import type { ChartSpec } from './chart-spec';
 import { numberText } from './chart-format';
 import { groupColour, THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
+import { textWidth, wrapWords } from './label-layout';
 
 /** A fitted nut factor for one lubricant, with its confidence interval. */
 export interface NutFactorRow {
@@ -25,12 +26,30 @@ export function nutFactorChart(rows: readonly NutFactorRow[], options: { confide
       : `Fitted nut factor K for ${rows.length} lubricants (${level} % intervals): ` +
         rows.map((r) => `${r.label} ${numberText(r.k)} (${numberText(r.low)} to ${numberText(r.high)}, n = ${r.n})`).join('; ') +
         '. A lower K gives more preload for the same torque.';
+  const counts = rows.map((r) => `n = ${r.n}`);
   return {
     title: 'Nut factor K by lubricant',
+    // Whole lubricant names: wrapped onto lines no wider than about a third of the chart, with the
+    // left margin as wide as the longest line.
+    fit: (opts, { width, fontPx }) => {
+      const room = Math.max(80, Math.min(240, width * 0.34));
+      const wrapped = rows.map((r) => wrapWords(r.label, room, fontPx));
+      const widest = Math.max(0, ...wrapped.flat().map((line) => textWidth(line, fontPx)));
+      const lines = Math.max(1, ...wrapped.map((w) => w.length));
+      const byLabel = new Map(rows.map((r, i) => [r.label, wrapped[i]!.join('\n')]));
+      return {
+        ...opts,
+        height: Math.max(160, 60 + rows.length * Math.max(48, (lines + 1.5) * fontPx)),
+        marginLeft: Math.ceil(widest + 16),
+        marginRight: Math.ceil(16 + Math.max(0, ...counts.map((c) => textWidth(c, fontPx)))),
+        y: { ...(opts.y ?? {}), tickFormat: (label: string) => byLabel.get(label) ?? label },
+      };
+    },
     description,
     options: basePlotOptions({
       height: Math.max(160, 60 + rows.length * 48),
       marginLeft: 140,
+      marginRight: 64,
       x: { label: `Nut factor K (no unit), ${level} % interval`, grid: true, nice: true, labelArrow: 'none', labelAnchor: 'center' },
       y: { label: null, domain: rows.map((r) => r.label), padding: 0.4 },
       marks: [

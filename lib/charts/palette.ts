@@ -4,16 +4,19 @@ import { mixOklab } from './colour-math';
 /**
  * Evenload's chart colours.
  *
- * Group colours (`GROUP_COLOURS`): eight slots of our own, chosen by a search over OKLCH colours
- * (lightness 0.50–0.76, chroma ≥ 0.09) and then ordered by hand, under these computed conditions
- * (checked in tests/charts/palette.test.ts, with the formulas in lib/charts/colour-math.ts):
+ * Group colours (`GROUP_COLOURS`): eight slots of our own, chosen by a max-min search over OKLCH
+ * colours (lightness 0.50–0.77, chroma 0.08–0.20) under these computed conditions (checked in
+ * tests/charts/palette.test.ts with the formulas of lib/charts/colour-math.ts):
  * - every slot has a WCAG 2 contrast ratio ≥ 3 (non-text graphics, WCAG 2.2 SC 1.4.11) against the
  *   paper and panel of both themes (#f6f3ec, #fffdf8 light; #151c26, #1c2531 dark), so one fixed hex
  *   works in light and dark without theme variables;
- * - neighbouring slots, and any two of the first four (most comparisons have two to four groups),
- *   differ by ΔE_OK ≥ 0.13, and any two slots by ≥ 0.07, for normal vision and for protanopia and
- *   deuteranopia as simulated by Viénot, Brettel & Mollon (1999); the slot order was picked to
- *   maximise the smallest of those distances, alternating lighter and darker where it could;
+ * - any two slots differ by CIEDE2000 ΔE00 ≥ 15 as solid colours (lines, boxes, legend swatches),
+ *   ≥ 10 as the 55 %-opacity dots of the comparison charts composited over each theme's panel, and
+ *   ≥ 8 for protanopia and deuteranopia as simulated by Viénot, Brettel & Mollon (1999). The old
+ *   palette's closest pair was ΔE00 8.8 (two purples); ΔE00 ≈ 1 is a just-noticeable difference
+ *   for large patches side by side, and small, scattered marks need several times more, so 15 and
+ *   10 leave a wide margin and are what the search could reach for eight colours in the narrow
+ *   lightness range that the two-theme contrast allows;
  * - every slot stays ≥ 0.1 ΔE_OK from the deviation hues and the accent of both themes, so a group
  *   colour is never read as "below target", "above target" or "the active stud".
  * Hex values (not CSS variables) because a group colour means the same in both themes.
@@ -28,14 +31,14 @@ import { mixOklab } from './colour-math';
 
 /** Eight categorical colours for comparison groups (slot = ComparisonGroupData.colourIndex). */
 export const GROUP_COLOURS = [
-  '#9a53aa', // purple (darker)
-  '#9477fc', // periwinkle (lighter)
-  '#bc7580', // dusty pink (lighter)
-  '#7e6f08', // olive (darker)
-  '#be67b7', // orchid (lighter)
-  '#449d2e', // green (lighter)
-  '#7c63d6', // violet (darker)
-  '#b24f63', // rose (darker)
+  '#9550bb', // purple
+  '#7c9217', // olive green
+  '#f04b64', // coral red
+  '#457cfd', // bright blue
+  '#3f9a6f', // sea green
+  '#996179', // mauve
+  '#4692a5', // steel teal
+  '#88723a', // bronze
 ] as const;
 
 /** The colour of a group's slot (wraps after eight). */

@@ -4,6 +4,7 @@ import type { ChartSpec } from './chart-spec';
 import { passLabel, percentText } from './chart-format';
 import { THEME } from './palette';
 import { basePlotOptions } from './plot-theme';
+import { fitColumnLabels } from './label-layout';
 
 interface PassRow {
   pass: number;
@@ -33,8 +34,19 @@ export function passSummaryChart(passes: readonly PassSummary[]): ChartSpec {
       : `CV after each of ${rows.length} passes: ${rows.map((r) => `${r.label} ${percentText(r.cvPercent)}`).join('; ')}. ` +
         `Mean change of the studs tightened in each pass by its end: ${rows.map((r) => percentText(r.meanLossPercent, { signed: true })).join(', ')}.`;
   const label = (pass: number) => rows.find((r) => r.pass === pass)?.label ?? `Pass ${pass}`;
+  const names = rows.map((r) => r.label);
   return {
     title: 'Scatter and load loss pass by pass',
+    // Pass names wrap under their columns, or shrink to the pass number when the columns are narrow.
+    fit: (opts, { width, fontPx }) => {
+      const plotWidth = width - (opts.marginLeft ?? 0) - (opts.marginRight ?? 0);
+      const fitted = fitColumnLabels(names, plotWidth / Math.max(1, rows.length), fontPx, { maxLines: 2, keys: rows.map((r) => String(r.pass)) });
+      return {
+        ...opts,
+        marginBottom: Math.ceil(20 + fitted.lineCount * fontPx + (fitted.mode === 'keyed' ? fontPx + 4 : 0)),
+        x: { ...(opts.x ?? {}), tickFormat: (pass: number) => fitted.ticks[rows.findIndex((r) => r.pass === pass)] ?? '', label: fitted.mode === 'keyed' ? 'Pass' : null, labelAnchor: 'center', labelArrow: 'none' },
+      };
+    },
     description,
     options: basePlotOptions({
       x: {
@@ -43,7 +55,7 @@ export function passSummaryChart(passes: readonly PassSummary[]): ChartSpec {
         ticks: rows.map((r) => r.pass),
         tickFormat: label,
       },
-      y: { label: 'Percent (%)', grid: true, nice: true, labelArrow: 'none' },
+      y: { label: 'Percent (%)', grid: true, nice: true, labelArrow: 'none', insetTop: 26 },
       marks: [
         Plot.rectY(rows, {
           x1: (r: PassRow) => r.pass - 0.22,
@@ -69,7 +81,7 @@ export function passSummaryChart(passes: readonly PassSummary[]): ChartSpec {
           x: 'pass',
           y: 'cvPercent',
           text: (r: PassRow) => percentText(r.cvPercent),
-          dy: -12,
+          dy: -15,
           fill: THEME.ink,
           ariaDescription: 'CV labels',
         }),

@@ -37,7 +37,10 @@ describe('compareFinalLoadsChart', () => {
   it('puts one column per group with its label and draws band lines at 100 ± band', () => {
     const x = chart.options.x as { ticks: number[]; tickFormat: (i: number) => string };
     expect(x.ticks).toEqual([0, 1]);
-    expect(x.ticks.map(x.tickFormat)).toEqual(['Dry', 'Moly paste']);
+    // Before the drawn width is known the columns carry their keys; fit() adds the whole names.
+    expect(x.ticks.map(x.tickFormat)).toEqual(['A', 'B']);
+    const wide = chart.fit!(chart.options, { width: 900, fontPx: 13 }).x as { tickFormat: (i: number) => string };
+    expect([0, 1].map(wide.tickFormat)).toEqual(['A\nDry', 'B\nMoly paste']);
     expect(markNamed(chart.options, 'target').data).toEqual([100]);
     expect((markNamed(chart.options, 'band lines').data as { y: number }[]).map((b) => b.y)).toEqual([95, 105]);
     expect(chart.options.y?.label).toBe('Final load (% of target)');
@@ -70,8 +73,8 @@ describe('compareFinalLoadsChart', () => {
     expect(chart.legend?.kind).toBe('swatches');
     if (chart.legend?.kind !== 'swatches') return;
     expect(chart.legend.items.slice(0, 2)).toEqual([
-      { label: 'Dry', colour: GROUP_COLOURS[0], shape: 'dot' },
-      { label: 'Moly paste', colour: GROUP_COLOURS[3], shape: 'dot' },
+      { label: 'A · Dry', colour: GROUP_COLOURS[0], shape: 'dot' },
+      { label: 'B · Moly paste', colour: GROUP_COLOURS[3], shape: 'dot' },
     ]);
   });
 

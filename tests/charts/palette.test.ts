@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import {
+  ciede2000,
   contrastRatio,
+  hexDeltaE2000,
+  hexToLab,
+  overBackground,
   hexToOklab,
   mixOklab,
   oklabDistance,
@@ -51,6 +55,31 @@ describe('colour maths', () => {
   });
 });
 
+describe('CIELAB and CIEDE2000', () => {
+  it('CIELAB of white is (100, 0, 0) and of sRGB red (53.24, 80.09, 67.20) (D65; values from memory, common practice)', () => {
+    const [L, a, b] = hexToLab('#ffffff');
+    expect(L).toBeCloseTo(100, 3);
+    expect(Math.abs(a) + Math.abs(b)).toBeLessThan(1e-3);
+    const red = hexToLab('#ff0000');
+    expect(red[0]).toBeCloseTo(53.24, 1);
+    expect(red[1]).toBeCloseTo(80.09, 1);
+    expect(red[2]).toBeCloseTo(67.2, 1);
+  });
+  // Sharma, Wu & Dalal (2005), Table 1 test pairs 1, 7 and 17 (values from memory of the table).
+  it.each([
+    [[50, 2.6772, -79.7751], [50, 0, -82.7485], 2.0425],
+    [[50, 0, 0], [50, -1, 2], 2.3669],
+    [[50, 2.5, 0], [73, 25, -18], 27.1492],
+  ] as const)('ΔE00 of %j and %j is %f', (p, q, expected) => {
+    expect(ciede2000(p, q)).toBeCloseTo(expected, 4);
+    expect(ciede2000(q, p)).toBeCloseTo(expected, 4);
+  });
+  it('composites a colour over a background as SVG fill-opacity does (sRGB mix)', () => {
+    expect(overBackground('#000000', '#ffffff', 0.5)).toBe('#808080');
+    expect(overBackground('#457cfd', '#1c2531', 1)).toBe('#457cfd');
+  });
+});
+
 describe('group palette', () => {
   it('has eight distinct hex colours and wraps slots', () => {
     expect(GROUP_COLOURS).toHaveLength(8);
@@ -63,18 +92,25 @@ describe('group palette', () => {
     for (const c of GROUP_COLOURS) expect(contrastRatio(c, bg)).toBeGreaterThanOrEqual(3);
   });
 
-  it('neighbouring slots differ by ΔE_OK ≥ 0.13 for normal, protan and deutan vision', () => {
-    for (let i = 0; i < GROUP_COLOURS.length - 1; i += 1) {
-      expect(worstDistance(GROUP_COLOURS[i]!, GROUP_COLOURS[i + 1]!)).toBeGreaterThanOrEqual(0.13);
-    }
+  // Thresholds and their reasons: lib/charts/palette.ts. The panels are app/globals.css's --el-panel.
+  const PANELS = { light: '#fffdf8', dark: '#1c2531' } as const;
+  const pairs = () => GROUP_COLOURS.flatMap((a, i) => GROUP_COLOURS.slice(i + 1).map((b) => [a, b] as const));
+
+  it('any two of the eight slots differ by CIEDE2000 ΔE00 ≥ 15 as solid colours', () => {
+    const smallest = Math.min(...pairs().map(([a, b]) => hexDeltaE2000(a, b)));
+    expect(smallest).toBeGreaterThanOrEqual(15);
   });
 
-  it('any two slots differ by ΔE_OK ≥ 0.07 and the first four by ≥ 0.13 under all three visions', () => {
-    for (let i = 0; i < 8; i += 1)
-      for (let j = i + 1; j < 8; j += 1) {
-        const d = worstDistance(GROUP_COLOURS[i]!, GROUP_COLOURS[j]!);
-        expect(d).toBeGreaterThanOrEqual(i < 4 && j < 4 ? 0.13 : 0.07);
-      }
+  it.each(Object.entries(PANELS))('any two slots differ by ΔE00 ≥ 10 as 55 %% dots over the %s panel', (_, panel) => {
+    const smallest = Math.min(...pairs().map(([a, b]) => hexDeltaE2000(overBackground(a, panel, 0.55), overBackground(b, panel, 0.55))));
+    expect(smallest).toBeGreaterThanOrEqual(10);
+  });
+
+  it('any two slots differ by ΔE00 ≥ 8 for protan and deutan vision (Viénot et al. 1999 simulation)', () => {
+    for (const kind of ['protanopia', 'deuteranopia'] as const) {
+      const smallest = Math.min(...pairs().map(([a, b]) => hexDeltaE2000(simulateDichromacy(a, kind), simulateDichromacy(b, kind))));
+      expect(smallest).toBeGreaterThanOrEqual(8);
+    }
   });
 
   it('no group colour is close to the deviation hues or the accent (ΔE_OK ≥ 0.1)', () => {

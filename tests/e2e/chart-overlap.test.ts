@@ -1,0 +1,198 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { sequelize } from '@/lib/platform/db';
+import { startAppServer, type AppServer } from '../support/app-server';
+import { launchBrowser, signInThroughForm } from '../support/browser';
+import { DEMO_ACCOUNTS } from '../support/http-session';
+
+/**
+ * Every chart of the product, drawn in Chromium at 1280 px and 390 px wide: no two <text> labels in
+ * one chart's <svg> overlap (beyond 1 px), and no label overlaps a dot (<circle>) of the chart.
+ * The boxes are the browser's own (getBoundingClientRect), not estimates.
+ */
+
+const WIDTHS = [1280, 390] as const;
+const TOLERANCE_PX = 1;
+const SHOTS = process.env.EVENLOAD_CHART_SHOTS; // a folder: also keep a screenshot of each chart
+
+/** Eight group names long enough to smear into each other under narrow columns. */
+const LONG_NAMES = [
+  'Molybdenum disulphide paste, heavy coat',
+  'Copper-graphite anti-seize compound',
+  'Nickel anti-seize for high temperature',
+  'Light machine oil, brushed on threads only',
+  'PTFE dry film spray on nut faces',
+  'As-supplied zinc flake coating, no lubricant',
+  'Graphite in petroleum grease, thin coat',
+  'Food-grade white grease on threads and nut faces',
+];
+
+let server: AppServer;
+let browser: Browser;
+let demoRun: number;
+const lubricantIds: number[] = [];
+const copiedRuns: number[] = [];
+
+beforeAll(async () => {
+  server = await startAppServer();
+  browser = await launchBrowser();
+  const [run] = await sequelize.query<{ id: number }>(
+    `SELECT r.id FROM runs r JOIN cohorts c ON c.id = r.cohort_id JOIN users i ON i.id = c.instructor_id
+     WHERE i.email = ? AND r.status = 'complete' AND r.pass_count > 1 ORDER BY r.id LIMIT 1`,
+    { type: QueryTypes.SELECT, replacements: [DEMO_ACCOUNTS.instructor] },
+  );
+  demoRun = run!.id;
+  // Eight lubricants with long names, each given copies of three complete demo runs (the runs row
+  // carries the per-run figures a comparison reads).
+  const sources = await sequelize.query<{ id: number }>(
+    "SELECT id FROM runs WHERE status = 'complete' AND final_loads_json IS NOT NULL ORDER BY source = 'simulated', id LIMIT 24",
+    { type: QueryTypes.SELECT },
+  );
+  const columns = (
+    await sequelize.query<{ name: string }>(
+      "SELECT COLUMN_NAME AS name FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = 'runs' AND COLUMN_NAME NOT IN ('id', 'lubricant_id') ORDER BY ORDINAL_POSITION",
+      { type: QueryTypes.SELECT },
+    )
+  ).map((c) => `\`${c.name}\``);
+  for (const [i, name] of LONG_NAMES.entries()) {
+    const [id] = await sequelize.query('INSERT INTO lubricants (name, nominal_nut_factor, notes, created_at, updated_at) VALUES (?, 0.15, NULL, NOW(), NOW())', {
+      replacements: [`${name} (chart check)`],
+    });
+    lubricantIds.push(Number(id));
+    for (const source of sources.slice(i * 3, i * 3 + 3)) {
+      const [runId] = await sequelize.query(
+        `INSERT INTO runs (lubricant_id, ${columns.join(', ')}) SELECT ?, ${columns.join(', ')} FROM runs WHERE id = ?`,
+        { replacements: [Number(id), source.id] },
+      );
+      copiedRuns.push(Number(runId));
+    }
+  }
+  if (SHOTS) mkdirSync(SHOTS, { recursive: true });
+});
+
+afterAll(async () => {
+  if (copiedRuns.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [copiedRuns] });
+  if (lubricantIds.length) await sequelize.query('DELETE FROM lubricants WHERE id IN (?)', { replacements: [lubricantIds] });
+  await browser?.close();
+  await server?.stop();
+  await sequelize.close();
+});
+
+interface Overlap {
+  chart: string;
+  a: string;
+  b: string;
+}
+
+/** The overlaps in every chart on the page (each plot's <svg>, legends' swatch svgs have no text). */
+async function overlaps(page: Page): Promise<Overlap[]> {
+  return page.evaluate((tolerance) => {
+    const found: { chart: string; a: string; b: string }[] = [];
+    const hit = (p: DOMRect, q: DOMRect) =>
+      Math.min(p.right, q.right) - Math.max(p.left, q.left) > tolerance && Math.min(p.bottom, q.bottom) - Math.max(p.top, q.top) > tolerance;
+    for (const container of document.querySelectorAll('[data-testid="plot-container"]')) {
+      const chart = container.closest('figure')?.querySelector('figcaption')?.textContent ?? 'chart';
+      for (const svg of container.querySelectorAll('svg')) {
+        const texts = [...svg.querySelectorAll('text')]
+          .filter((t) => (t.textContent ?? '').trim() !== '')
+          .map((t) => ({ label: t.textContent!.trim(), box: t.getBoundingClientRect() }))
+          .filter((t) => t.box.width > 0 && t.box.height > 0);
+        const dots = [...svg.querySelectorAll('circle')].map((c) => c.getBoundingClientRect()).filter((b) => b.width > 0);
+        for (let i = 0; i < texts.length; i += 1) {
+          for (let j = i + 1; j < texts.length; j += 1) {
+            if (hit(texts[i]!.box, texts[j]!.box)) found.push({ chart, a: texts[i]!.label, b: texts[j]!.label });
+          }
+          const dot = dots.find((d) => hit(texts[i]!.box, d));
+          if (dot) found.push({ chart, a: texts[i]!.label, b: `dot at ${Math.round(dot.x)},${Math.round(dot.y)}` });
+        }
+      }
+    }
+    return found;
+  }, TOLERANCE_PX);
+}
+
+async function openAt(role: keyof typeof DEMO_ACCOUNTS, width: number): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width, height: 900 } });
+  const page = await context.newPage();
+  await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
+  return page;
+}
+
+/** Waits for at least `count` drawn charts and for their sizes to settle, then measures. */
+async function measure(page: Page, count: number, name: string): Promise<Overlap[]> {
+  await expect.poll(() => page.locator('[data-testid="plot-container"] > svg, [data-testid="plot-container"] > figure svg').count(), { timeout: 30_000 }).toBeGreaterThanOrEqual(count);
+  await page.waitForTimeout(400); // ResizeObserver → redraw at the measured width
+  if (SHOTS) {
+    const figures = page.locator('figure:has([data-testid="plot-container"])');
+    for (let i = 0; i < (await figures.count()); i += 1) await figures.nth(i).screenshot({ path: path.join(SHOTS, `${name}-${i + 1}.png`) });
+  }
+  return overlaps(page);
+}
+
+const CASES: { name: string; role: keyof typeof DEMO_ACCOUNTS; charts: number; open: (page: Page) => Promise<void> }[] = [
+  {
+    name: 'run-report',
+    role: 'instructor',
+    charts: 4,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/runs/${demoRun}`);
+      await page.getByRole('heading', { name: 'The figures' }).waitFor();
+    },
+  },
+  {
+    name: 'compare-eight-long-names',
+    role: 'researcher',
+    charts: 3,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/compare?by=lubricant&ids=${lubricantIds.join(',')}`);
+      await page.getByRole('heading', { name: 'Is the difference real?' }).waitFor();
+    },
+  },
+  {
+    name: 'compare-lubricants-nut-factor',
+    role: 'researcher',
+    charts: 4,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/compare?by=lubricant`);
+      await page.getByRole('heading', { name: 'Nut factor by lubricant' }).waitFor();
+    },
+  },
+  {
+    name: 'progress',
+    role: 'trainee',
+    charts: 1,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/progress`);
+    },
+  },
+  {
+    name: 'classroom-end',
+    role: 'instructor',
+    charts: 2,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/classroom`);
+      await page.locator('li', { hasText: 'One pass or several' }).getByRole('button', { name: 'Start here' }).click();
+      await page.getByTestId('side-status').first().waitFor({ timeout: 90_000 });
+      await page.keyboard.press('End');
+      await page.getByTestId('end-figures').waitFor({ timeout: 90_000 });
+    },
+  },
+];
+
+describe('chart labels in Chromium', () => {
+  for (const width of WIDTHS) {
+    for (const c of CASES) {
+      it(`${c.name} at ${width} px: no label overlaps another label or a dot`, async () => {
+        const page = await openAt(c.role, width);
+        await c.open(page);
+        const found = await measure(page, c.charts, `${c.name}-${width}`);
+        await page.context().close();
+        const lines = found.map((o) => `${o.chart}: "${o.a}" over "${o.b}"`);
+        expect(lines, `${lines.length} overlaps:\n${lines.join('\n')}`).toEqual([]);
+      });
+    }
+  }
+});
