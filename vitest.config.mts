@@ -21,6 +21,8 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/components/**/*.test.tsx'],
           setupFiles: ['tests/support/component-setup.ts'],
+          // jsdom renders of Plot charts take seconds on a busy 2-core machine; not a speed check.
+          testTimeout: 30_000,
         },
       },
       {

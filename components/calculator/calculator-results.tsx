@@ -71,8 +71,8 @@ export function CalculatorResults({ result: r, units, nutFactorText }: { result:
       </dl>
       <Warnings warnings={r.warnings} />
       <p className="mt-3 text-xs text-muted">
-        Square brackets name the sources on the project reference sheet; ✓ means checked against a stored copy.
-        Torque from a nut factor scatters widely on real joints.
+        Torque from a nut factor scatters widely on real joints. Targets here are for training; on plant follow the
+        owner&rsquo;s procedures, local codes and qualified engineering judgement.
       </p>
     </section>
   );
