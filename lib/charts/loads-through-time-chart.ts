@@ -149,8 +149,12 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
   const passLabels = [...(firstLabel ? [firstLabel] : []), ...boundaries];
   const yMax = niceCeil(Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load)));
   const fit: ChartFit = (opts, frame) => {
-    // Room above the frame for two rows of pass names at the drawn font size.
-    const sized = { ...opts, marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10) };
+    // Room above the frame for two rows of pass names, below it for the ticks and the axis label.
+    const sized = {
+      ...opts,
+      marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10),
+      marginBottom: Math.max(opts.marginBottom ?? 0, Math.ceil(2.4 * frame.fontPx + 14)),
+    };
     return { ...sized, marks: [...marks, ...labelMarks(sized, frame, passLabels, endLabels)] };
   };
 
