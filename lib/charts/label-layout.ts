@@ -134,30 +134,39 @@ export interface PlacedRowLabel {
 /**
  * Places labels that start at fixed x positions (such as pass names at pass boundaries) so none
  * overlaps the next or runs past `right`: the longest variant that fits in one row; failing that,
- * two rows (each label in the lower row when it fits there); failing that, the shortest variant in
- * two rows.
+ * two rows (each label in the lower row when it fits there); failing that, the shortest variant
+ * where it fits and no text (an empty string) for a label that fits nowhere. `freeFrom` gives, per
+ * row, where the row becomes free (e.g. past an axis label drawn in the same band).
  */
-export function layoutRowLabels(labels: readonly RowLabel[], fontPx: number, right: number, gap = 6): PlacedRowLabel[] {
+export function layoutRowLabels(
+  labels: readonly RowLabel[],
+  fontPx: number,
+  right: number,
+  gap = 6,
+  freeFrom: readonly [number, number] = [-Infinity, -Infinity],
+): PlacedRowLabel[] {
   const levels = Math.max(1, ...labels.map((l) => l.variants.length));
   const variant = (l: RowLabel, v: number) => l.variants[Math.min(v, l.variants.length - 1)]!;
-  const tryRows = (v: number, rows: number): PlacedRowLabel[] | null => {
-    const ends = new Array<number>(rows).fill(-Infinity);
+  const place = (v: number, rows: number, dropMisfits: boolean): PlacedRowLabel[] | null => {
+    const ends = freeFrom.slice(0, rows).map((x) => x - gap);
     const placed: PlacedRowLabel[] = [];
     for (const label of labels) {
       const text = variant(label, v);
       const end = label.start + textWidth(text, fontPx);
-      if (end > right) return null;
-      const row = ends.findIndex((e) => e + gap <= label.start);
-      if (row < 0) return null;
+      const row = end > right ? -1 : ends.findIndex((e) => e + gap <= label.start);
+      if (row < 0) {
+        if (!dropMisfits) return null;
+        placed.push({ text: '', row: 0 });
+        continue;
+      }
       ends[row] = end;
       placed.push({ text, row });
     }
     return placed;
   };
   for (const rows of [1, 2]) for (let v = 0; v < levels; v += 1) {
-    const placed = tryRows(v, rows);
+    const placed = place(v, rows, false);
     if (placed) return placed;
   }
-  const shortest = levels - 1;
-  return labels.map((l, i) => ({ text: variant(l, shortest), row: i % 2 }));
+  return place(levels - 1, 2, true)!;
 }

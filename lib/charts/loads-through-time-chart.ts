@@ -149,8 +149,12 @@ export function loadsThroughTimeChart(run: LoadsThroughTimeInput, options: Loads
   const passLabels = [...(firstLabel ? [firstLabel] : []), ...boundaries];
   const yMax = niceCeil(Math.max(target * (1 + (2 * bandPercent) / 100), ...points.map((p) => p.load)));
   const fit: ChartFit = (opts, frame) => {
-    // Room above the frame for two rows of pass names at the drawn font size.
-    const sized = { ...opts, marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10) };
+    // Room above the frame for two rows of pass names, below it for the ticks and the axis label.
+    const sized = {
+      ...opts,
+      marginTop: Math.max(opts.marginTop ?? 0, 2 * (frame.fontPx + 2) + 10),
+      marginBottom: Math.max(opts.marginBottom ?? 0, Math.ceil(2.4 * frame.fontPx + 14)),
+    };
     return { ...sized, marks: [...marks, ...labelMarks(sized, frame, passLabels, endLabels)] };
   };
 
@@ -224,10 +228,14 @@ function labelMarks(
   const yPx = (y: number) => height - mb - ((y - y0) / (y1 - y0)) * (height - mt - mb);
   const yData = (px: number) => y0 + ((height - mb - px) / (height - mt - mb)) * (y1 - y0);
 
+  // The y-axis label sits at the top left of the upper row's band: that row starts after it.
+  const yLabel = String((opts.y as { label?: string } | undefined)?.label ?? '');
   const placed = layoutRowLabels(
     passLabels.map((p) => ({ start: xPx(p.x) + 4, variants: passLabelVariants(p.label) })),
     fontPx,
     width,
+    6,
+    [-Infinity, textWidth(yLabel, fontPx) + 8],
   );
   const rows = passLabels.map((p, i) => ({ x: p.x, label: p.label, text: placed[i]!.text, row: placed[i]!.row }));
   const rowMark = (row: number) =>
@@ -255,12 +263,15 @@ function labelMarks(
     if (column >= columns || inColumn.length === 0) return [];
     const ys = dodge(inColumn.map((p) => yPx(p.load)), STUD_LABEL_GAP, top, bottom);
     const leader = (10 + column * (textWidth('00', STUD_LABEL_FONT) + 6)) / stepPx;
-    return inColumn.map((p, i) => ({ ...p, labelX: p.step + leader, labelY: yData(ys[i]!) }));
+    // At the run's end the numbers sit just past the line ends; in a replay the lines go on
+    // (dimmed), so the numbers move to the right edge, at the height of each stud's load now.
+    const from = (p: StudLoadPoint) => (p.step >= x1 - 0.5 ? p.step : x1);
+    return inColumn.map((p, i) => ({ ...p, fromX: from(p), fromY: from(p) === p.step ? p.load : yData(ys[i]!), labelX: from(p) + leader, labelY: yData(ys[i]!) }));
   });
   return [
     rowMark(0),
     rowMark(1),
-    Plot.link(numbers, { x1: 'step', y1: 'load', x2: 'labelX', y2: 'labelY', stroke: THEME.muted, strokeWidth: 0.75, ariaDescription: 'stud number leaders' }),
+    Plot.link(numbers, { x1: 'fromX', y1: 'fromY', x2: 'labelX', y2: 'labelY', stroke: THEME.muted, strokeWidth: 0.75, ariaDescription: 'stud number leaders' }),
     Plot.text(numbers, {
       x: 'labelX',
       y: 'labelY',

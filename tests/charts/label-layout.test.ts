@@ -80,4 +80,18 @@ describe('layoutRowLabels', () => {
     const tight = layoutRowLabels([{ start: 0, variants: ['Pass 1'] }, { start: 20, variants: ['Pass 2'] }], 13, 600);
     expect(tight.map((p) => p.row)).toEqual([0, 1]);
   });
+  it('keeps a row clear of a blocked start and leaves out a label that fits nowhere', () => {
+    // "P1" is 1.3 em = 16.9 px wide; "P2" at 20 needs 6 px of gap, so it belongs in the upper row,
+    // which is free only from x = 100: it is left out. Without the block it goes up.
+    const two = [{ start: 0, variants: ['P1'] }, { start: 20, variants: ['P2'] }];
+    expect(layoutRowLabels(two, 13, 600, 6, [-Infinity, 100])).toEqual([{ text: 'P1', row: 0 }, { text: '', row: 0 }]);
+    expect(layoutRowLabels(two, 13, 600)).toEqual([{ text: 'P1', row: 0 }, { text: 'P2', row: 1 }]);
+    const crowded = layoutRowLabels(
+      [0, 4, 8].map((start, i) => ({ start, variants: [`P${i + 1}`] })),
+      13,
+      600,
+    );
+    expect(crowded).toEqual([{ text: 'P1', row: 0 }, { text: 'P2', row: 1 }, { text: '', row: 0 }]);
+    expect(layoutRowLabels([{ start: 590, variants: ['Pass 9'] }], 13, 600)).toEqual([{ text: '', row: 0 }]);
+  });
 });
