@@ -65,7 +65,7 @@ export async function classroomRealRuns(user: SessionUser, cohorts: readonly Cla
   assertRole(user, CLASSROOM_ROLES);
   const scope = await runScope(user);
   const rows = (await Run.findAll({
-    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }] },
+    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }, { stepCount: { [Op.gt]: 0 } }] },
     include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }, { model: Joint, as: 'joint', attributes: ['id', 'name'] }],
     order: [['recordedAt', 'DESC'], ['id', 'DESC']],
     limit: 40,

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, signInThroughForm } from '../support/browser';
+import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 /**
@@ -68,6 +68,8 @@ beforeAll(async () => {
         { replacements: [Number(id), source.id] },
       );
       copiedRuns.push(Number(runId));
+      // The copies carry no steps: dated a year back, they never become a page's latest run to replay.
+      await sequelize.query('UPDATE runs SET recorded_at = recorded_at - INTERVAL 1 YEAR WHERE id = ?', { replacements: [Number(runId)] });
     }
   }
   if (SHOTS) mkdirSync(SHOTS, { recursive: true });
@@ -117,6 +119,10 @@ async function overlaps(page: Page): Promise<Overlap[]> {
 async function openAt(role: keyof typeof DEMO_ACCOUNTS, width: number): Promise<Page> {
   const context = await browser.newContext({ viewport: { width, height: 900 } });
   const page = await context.newPage();
+  page.on('pageerror', (error) => console.error(`page error at ${width} px: ${error.message}`));
+  page.on('console', (message) => {
+    if (message.type() === 'error') console.error(`console error at ${width} px: ${message.text().slice(0, 2000)}`);
+  });
   await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
   return page;
 }
@@ -195,7 +201,12 @@ describe('chart labels in Chromium', () => {
     for (const c of CASES) {
       it(`${c.name} at ${width} px: no label overlaps another label or a dot`, async () => {
         const page = await openAt(c.role, width);
-        await c.open(page);
+        try {
+          await c.open(page);
+        } catch (error) {
+          await page.screenshot({ path: screenshotPath(`chart-overlap-${c.name}-${width}-failed`) });
+          throw error;
+        }
         const found = await measure(page, c.charts, `${c.name}-${width}`);
         await page.context().close();
         const lines = found.map((o) => `${o.chart}: "${o.a}" over "${o.b}"`);

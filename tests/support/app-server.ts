@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { appendFileSync } from 'node:fs';
+import { appendFileSync, createWriteStream } from 'node:fs';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '../..');
@@ -25,6 +25,11 @@ export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_POR
   let output = '';
   child.stdout?.on('data', (chunk) => (output += String(chunk)));
   child.stderr?.on('data', (chunk) => (output += String(chunk)));
+  if (process.env.EVENLOAD_TEST_SERVER_LOG) {
+    const log = createWriteStream(`${process.env.EVENLOAD_TEST_SERVER_LOG}-${port}.log`);
+    child.stdout?.pipe(log);
+    child.stderr?.pipe(log);
+  }
   const deadline = Date.now() + 150_000;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`the app server exited early:\n${output}`);

@@ -22,7 +22,8 @@ export default async function ClassroomPage({ searchParams }: { searchParams: Pr
   if (runId !== null) {
     try {
       const loaded = await loadRun(user, runId);
-      realRun = { id: loaded.header.id, label: realRuns.runs.find((r) => r.id === runId)?.label ?? `Run ${runId}`, jointId: loaded.header.joint.id, methodId: loaded.header.method.id, lubricantId: loaded.header.lubricant.id, bandPercent: loaded.header.bandPercent, run: loaded.run };
+      // A run without steps has nothing to replay (the scene would have no frames).
+      if (loaded.run.steps.length > 0) realRun = { id: loaded.header.id, label: realRuns.runs.find((r) => r.id === runId)?.label ?? `Run ${runId}`, jointId: loaded.header.joint.id, methodId: loaded.header.method.id, lubricantId: loaded.header.lubricant.id, bandPercent: loaded.header.bandPercent, run: loaded.run };
     } catch (error) {
       if (!isAppError(error)) throw error;
     }
