@@ -23,7 +23,7 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
         sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         contentType: { type: DataTypes.STRING(120), allowNull: false },
         parseReport: { type: DataTypes.JSON, allowNull: true },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'uploads', underscored: true, updatedAt: false },
     );
