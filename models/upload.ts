@@ -9,7 +9,8 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare sha256: string;
   declare sizeBytes: number;
   declare contentType: string;
-  declare parseReport: CreationOptional<unknown>;
+  /** What the server parse found (detection, mapping, warnings), as JSON. */
+  declare parseReport: CreationOptional<object | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {

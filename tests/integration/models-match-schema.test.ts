@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Model, type ModelStatic, type QueryInterfaceCreateTableOptions, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createSequelize, sequelize } from '@/lib/platform/db';
 import { env } from '@/lib/platform/env';
@@ -53,7 +53,8 @@ beforeAll(async () => {
   const qi = scratch.getQueryInterface();
   for (const model of MODELS) {
     // Foreign keys are left out: they need the referenced table first and are not what is compared.
-    await qi.createTable(model.getTableName(), model.getAttributes(), { withoutForeignKeyConstraints: true } as object, model);
+    const table = model as unknown as ModelStatic<Model>;
+    await qi.createTable(table.getTableName(), table.getAttributes(), { withoutForeignKeyConstraints: true } as QueryInterfaceCreateTableOptions);
   }
 });
 
