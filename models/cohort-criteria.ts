@@ -23,8 +23,8 @@ export class CohortCriteria extends Model<InferAttributes<CohortCriteria>, Infer
         maxYieldPercent: { type: DataTypes.DOUBLE, allowNull: false },
         updatedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'cohort_criteria', underscored: true },
     );

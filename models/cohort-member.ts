@@ -10,7 +10,7 @@ export class CohortMember extends Model<InferAttributes<CohortMember>, InferCrea
       {
         cohortId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
         userId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'cohort_members', underscored: true, updatedAt: false },
     );

@@ -19,8 +19,9 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
         site: { type: DataTypes.STRING(160), allowNull: false },
         startsOn: { type: DataTypes.DATEONLY, allowNull: false },
         endsOn: { type: DataTypes.DATEONLY, allowNull: false },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        instructorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'cohorts', underscored: true },
     );

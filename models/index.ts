@@ -3,6 +3,8 @@ import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
 import { CohortCriteria } from './cohort-criteria';
 import { CohortMember } from './cohort-member';
+import { ColumnMap } from './column-map';
+import { ComparisonCache } from './comparison-cache';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
 import { Lubricant } from './lubricant';
@@ -13,17 +15,20 @@ import { Run } from './run';
 import { RunComment } from './run-comment';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
+import { StreamSample } from './stream-sample';
+import { StreamToken } from './stream-token';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
 import { User } from './user';
 import { UserSession } from './user-session';
 
+/** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample] as const;
+
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
-    model.initModel(sequelize);
-  }
+  for (const model of MODELS) model.initModel(sequelize);
 
   Cohort.belongsTo(User, { as: 'instructor', foreignKey: 'instructorId' });
   Cohort.belongsToMany(User, { through: CohortMember, as: 'members', foreignKey: 'cohortId', otherKey: 'userId' });
@@ -46,4 +51,4 @@ import { UserSession } from './user-session';
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -42,8 +42,8 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
         bandPercent: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 10 },
         notes: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'joints', underscored: true },
     );

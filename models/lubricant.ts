@@ -18,8 +18,8 @@ export class Lubricant extends Model<InferAttributes<Lubricant>, InferCreationAt
         nominalNutFactor: { type: DataTypes.DOUBLE, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'lubricants', underscored: true },
     );

@@ -43,8 +43,8 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
         checkPasses: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 0 },
         notes: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'methods', underscored: true },
     );

@@ -26,7 +26,7 @@ export class OneTimeToken extends Model<InferAttributes<OneTimeToken>, InferCrea
         createdById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         usedAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'one_time_tokens', underscored: true, updatedAt: false },
     );

@@ -14,7 +14,7 @@ export class RunComment extends Model<InferAttributes<RunComment>, InferCreation
         runId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         authorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         body: { type: DataTypes.TEXT, allowNull: false },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'run_comments', underscored: true, updatedAt: false },
     );

@@ -40,8 +40,8 @@ export class RunVerdict extends Model<InferAttributes<RunVerdict>, InferCreation
         signedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         signedAt: { type: DataTypes.DATE, allowNull: false },
         resultsSentAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'run_verdicts', underscored: true },
     );

@@ -28,6 +28,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare finalCv: CreationOptional<number | null>;
   declare finalMinN: CreationOptional<number | null>;
   declare finalMaxN: CreationOptional<number | null>;
+  /** JSON array of the final loads in N (index 0 = position 1). */
+  declare finalLoadsJson: CreationOptional<string | null>;
+  /** JSON array of each stud's drift in % since it was last tightened. */
+  declare driftJson: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -56,8 +60,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         finalCv: { type: DataTypes.DOUBLE, allowNull: true },
         finalMinN: { type: DataTypes.DOUBLE, allowNull: true },
         finalMaxN: { type: DataTypes.DOUBLE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        finalLoadsJson: { type: DataTypes.TEXT, allowNull: true },
+        driftJson: { type: DataTypes.TEXT, allowNull: true },
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'runs', underscored: true },
     );

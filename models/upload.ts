@@ -9,7 +9,8 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare sha256: string;
   declare sizeBytes: number;
   declare contentType: string;
-  declare parseReport: CreationOptional<unknown>;
+  /** What the server parse found (detection, mapping, warnings), as JSON. */
+  declare parseReport: CreationOptional<object | null>;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -23,7 +24,7 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
         sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         contentType: { type: DataTypes.STRING(120), allowNull: false },
         parseReport: { type: DataTypes.JSON, allowNull: true },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'uploads', underscored: true, updatedAt: false },
     );

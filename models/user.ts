@@ -30,8 +30,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         employerContact: { type: DataTypes.STRING(254), allowNull: true },
         isActive: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         sessionVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+        updatedAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'users', underscored: true },
     );

@@ -7,8 +7,7 @@ import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-pro
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
 import type { GradeId } from '@/lib/calc/grades';
-import { sequelize } from '@/lib/platform/db';
-import { Joint, JointPosition, Lubricant, Method, Run } from '@/models';
+import { Joint, JointPosition, Lubricant, Method, Run, sequelize } from '@/models';
 import type { MethodPass, ToolKind } from '@/models/method';
 import type { Role } from '@/models/user';
 import { assertRole, type SessionUser } from '../auth/session';

@@ -1,7 +1,6 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { maxBelievableStudLoad, STUD_YOUNGS_MODULUS_PA, tensileStressAreaM2Of } from '@/lib/joints/joint-properties';
 import type { JointForImport } from '@/lib/ingest/normalise';
@@ -11,7 +10,7 @@ import type { RunHeader } from '@/lib/data/runs/store-run';
 import { jointForImport } from '@/lib/record/joint-import';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { MethodPass } from '@/models/method';
-import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User } from '@/models';
+import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User, sequelize } from '@/models';
 import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
 import { formatDecimals } from '@/lib/calc/units';

@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { sequelize } from '@/lib/platform/db';
+import { sequelize } from '@/models';
 import { csvRows, type CsvValue } from '@/lib/export/write-csv';
 import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
 import type { SessionUser } from '../auth/session';

@@ -1,9 +1,8 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
-import { Joint } from '@/models';
+import { Joint, StreamToken, sequelize } from '@/models';
 import type { SessionUser } from '../auth/session';
 
 export interface StreamTokenRow {
@@ -46,19 +45,13 @@ export async function createStreamToken(user: SessionUser, jointId: number, labe
   const joint = await Joint.findByPk(jointId);
   if (!joint) throw new AppError('invalid_input', 'That joint does not exist. Choose one from the list.', { field: 'jointId', fieldErrors: { jointId: ['Choose a joint.'] } });
   const token = `evl_${randomBytes(24).toString('base64url')}`;
-  const [id] = await sequelize.query('INSERT INTO stream_tokens (joint_id, token_sha256, label, created_by_id, created_at) VALUES (?,?,?,?,?)', {
-    type: QueryTypes.INSERT,
-    replacements: [joint.id, sha256(token), label, user.id, new Date()],
-  });
-  return { id: Number(id), token };
+  const { id } = await StreamToken.create({ jointId: joint.id, tokenSha256: sha256(token), label, createdById: user.id });
+  return { id, token };
 }
 
 /** Revokes a token this instructor created. @throws AppError('not_found') for another's token. */
 export async function revokeStreamToken(user: SessionUser, tokenId: number): Promise<void> {
-  const [, meta] = await sequelize.query('UPDATE stream_tokens SET revoked_at = ? WHERE id = ? AND created_by_id = ? AND revoked_at IS NULL', {
-    replacements: [new Date(), tokenId, user.id],
-  });
-  const affected = (meta as { affectedRows?: number } | undefined)?.affectedRows ?? 0;
+  const [affected] = await StreamToken.update({ revokedAt: new Date() }, { where: { id: tokenId, createdById: user.id, revokedAt: null } });
   if (affected === 0) {
     const rows = await sequelize.query('SELECT 1 FROM stream_tokens WHERE id = ? AND created_by_id = ?', { type: QueryTypes.SELECT, replacements: [tokenId, user.id] });
     if (!rows.length) throw new AppError('not_found', 'That token does not exist or is not yours.');
@@ -81,6 +74,6 @@ export async function authenticateStreamToken(authorization: string | null): Pro
   const row = rows[0];
   if (!row) throw new AppError('unauthenticated', 'The bridge token is not known. Check it was copied whole, or create a new one on the Record page.');
   if (row.revoked_at) throw new AppError('forbidden', 'The bridge token was revoked. Create a new one on the Record page, under Stream live.');
-  await sequelize.query('UPDATE stream_tokens SET last_used_at = ? WHERE id = ?', { replacements: [new Date(), row.id] });
+  await StreamToken.update({ lastUsedAt: new Date() }, { where: { id: row.id } });
   return { tokenId: Number(row.id), jointId: Number(row.joint_id) };
 }

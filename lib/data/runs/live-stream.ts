@@ -12,7 +12,6 @@ import 'server-only';
  */
 import { Op, QueryTypes } from 'sequelize';
 import { z } from 'zod';
-import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { createStepDeriver } from '@/lib/ingest/derive-steps';
 import { resolveRunHeader } from '@/lib/data/record';
@@ -21,7 +20,7 @@ import { runScope } from '@/lib/data/scope';
 import { STREAM_MAX_READINGS } from '@/lib/record/limits';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
-import { Joint, Run } from '@/models';
+import { Joint, Run, sequelize } from '@/models';
 import { appendSteps, refreshRunFigures, storeRun } from './store-run';
 import { formatDecimals } from '@/lib/calc/units';
 
@@ -189,7 +188,7 @@ export async function finishRecording(user: SessionUser, runId: number): Promise
     };
     await appendSteps(runId, run, 0, transaction);
     await refreshRunFigures(runId, run, transaction);
-    await sequelize.query("UPDATE runs SET status = 'complete', updated_at = ? WHERE id = ?", { transaction, replacements: [new Date(), runId] });
+    await Run.update({ status: 'complete' }, { where: { id: runId }, transaction });
     return { runId, stepCount: run.steps.length };
   });
 }

@@ -1,5 +1,5 @@
 import 'server-only';
-import { sequelize } from '@/lib/platform/db';
+import { sequelize } from '@/models';
 import { AppError } from '@/lib/http/errors';
 import { loadToN } from '@/lib/ingest/units';
 import { resolveRunHeader } from '@/lib/data/record';

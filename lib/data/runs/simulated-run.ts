@@ -1,13 +1,12 @@
 import 'server-only';
 import { z } from 'zod';
 import { resolveRunHeader } from '@/lib/data/record';
-import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { runHeaderSchema } from '@/lib/record/run-header-schema';
 import type { SessionUser } from '@/lib/auth/session';
 import { studDiameterM } from '@/lib/joints/joint-properties';
 import { lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
-import { Joint, Lubricant, Method } from '@/models';
+import { Joint, Lubricant, Method, sequelize } from '@/models';
 import { storeRun } from './store-run';
 
 export const simulatedRunSchema = z.object({

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { AppError } from '../../http/errors';
 import type { NormalisedRun } from '../../record/run-types';
-import { sequelize } from '../../platform/db';
+import { Run, sequelize } from '../../../models';
 import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
 
@@ -41,26 +41,12 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
-  const figures = storedRunFigures(run);
-  const now = new Date();
-  const [runId] = await sequelize.query(
-    `INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status,
-       set_aside_reason, set_aside_by_id, recorded_at, notes, stud_count, step_count, pass_count,
-       final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at)
-     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
-    {
-      type: QueryTypes.INSERT,
-      transaction,
-      replacements: [
-        header.jointId, header.methodId, header.lubricantId, header.operatorId, header.cohortId, header.targetLoadN,
-        header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
-        header.recordedAt, header.notes ?? null, figures.studCount, figures.stepCount, figures.passCount,
-        figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, figures.finalLoadsJson, figures.driftJson, now, now,
-      ],
-    },
+  const { id: runId } = await Run.create(
+    { ...header, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
+    { transaction },
   );
-  await appendSteps(Number(runId), run, 0, transaction);
-  return Number(runId);
+  await appendSteps(runId, run, 0, transaction);
+  return runId;
 }
 
 /** The driver connection a Sequelize transaction holds (mariadb's, with its binary bulk `batch`). */
@@ -139,9 +125,6 @@ async function insertSteps(runId: number, studCount: number, steps: NormalisedRu
 
 /** Recomputes the stored per-run figures after a run's readings changed. */
 export async function refreshRunFigures(runId: number, run: NormalisedRun, transaction: Transaction): Promise<void> {
-  const f = storedRunFigures(run);
-  await sequelize.query(
-    `UPDATE runs SET step_count=?, pass_count=?, final_mean_n=?, final_sd_n=?, final_cv=?, final_min_n=?, final_max_n=?, final_loads_json=?, drift_json=?, updated_at=? WHERE id=?`,
-    { transaction, replacements: [f.stepCount, f.passCount, f.finalMeanN, f.finalSdN, f.finalCv, f.finalMinN, f.finalMaxN, f.finalLoadsJson, f.driftJson, new Date(), runId] },
-  );
+  const { studCount: _unchanged, ...figures } = storedRunFigures(run);
+  await Run.update(figures, { where: { id: runId }, transaction });
 }

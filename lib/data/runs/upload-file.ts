@@ -1,6 +1,6 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '@/lib/platform/db';
+import { UploadChunk, sequelize } from '@/models';
 import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 
 /** Bytes per row of `upload_chunks`: well under MariaDB's default max_allowed_packet (16 MB). */
@@ -13,7 +13,7 @@ export const UPLOAD_CHUNK_BYTES = BYTES_PER_MB;
 export async function storeUploadBytes(uploadId: number, bytes: Uint8Array, transaction: Transaction): Promise<void> {
   for (let index = 0, offset = 0; offset < bytes.length || index === 0; index++, offset += UPLOAD_CHUNK_BYTES) {
     const piece = Buffer.from(bytes.buffer, bytes.byteOffset + offset, Math.min(UPLOAD_CHUNK_BYTES, bytes.length - offset));
-    await sequelize.query('INSERT INTO upload_chunks (upload_id, chunk_index, bytes) VALUES ($1, $2, $3)', { type: QueryTypes.INSERT, transaction, bind: [uploadId, index, piece] });
+    await UploadChunk.create({ uploadId, chunkIndex: index, bytes: piece }, { transaction });
   }
 }
 

@@ -1,7 +1,6 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
-import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
 import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 import { parseColumnMapping } from '@/lib/ingest/parse-text';
@@ -9,7 +8,7 @@ import { rememberMapping, resolveRunHeader } from '@/lib/data/record';
 import { runScope } from '@/lib/data/scope';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
 import type { SessionUser } from '@/lib/auth/session';
-import { Run } from '@/models';
+import { Run, Upload, sequelize } from '@/models';
 import { parseUploadInWorker } from './parse-in-worker';
 import { storeRun } from './store-run';
 import { storeUploadBytes } from './upload-file';
@@ -91,19 +90,15 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
   try {
     return await sequelize.transaction(async (transaction) => {
       const runId = await storeRun(resolved.header, parsed.run, transaction);
-      const [uploadId] = await sequelize.query(
-        'INSERT INTO uploads (run_id, uploaded_by_id, file_name, sha256, size_bytes, content_type, parse_report, created_at) VALUES (?,?,?,?,?,?,?,?)',
-        {
-          type: QueryTypes.INSERT,
-          transaction,
-          replacements: [runId, user.id, input.fileName.slice(0, 255) || 'upload.csv', sha256, input.bytes.length, (input.contentType || 'text/csv').slice(0, 120), JSON.stringify(report), new Date()],
-        },
+      const { id: uploadId } = await Upload.create(
+        { runId, uploadedById: user.id, fileName: input.fileName.slice(0, 255) || 'upload.csv', sha256, sizeBytes: input.bytes.length, contentType: (input.contentType || 'text/csv').slice(0, 120), parseReport: report },
+        { transaction },
       );
-      await storeUploadBytes(Number(uploadId), input.bytes, transaction);
+      await storeUploadBytes(uploadId, input.bytes, transaction);
       await rememberMapping(user, resolved.joint.id, parsed.detection.headers, parsed.mapping, transaction);
       return {
         runId,
-        uploadId: Number(uploadId),
+        uploadId,
         stepCount: parsed.run.steps.length,
         readingCount: parsed.run.steps.length * parsed.run.studCount,
         derivedSteps: parsed.derivedSteps,
