@@ -46,13 +46,17 @@ mariadbd_bin() { command -v mariadbd 2>/dev/null || echo /usr/sbin/mariadbd; }
 haproxy_bin() { command -v haproxy 2>/dev/null || echo /usr/sbin/haproxy; }
 
 # --- stopping: every process by the pid file it wrote --------------------------------------------
+# setsid made each started process the leader of its own group (an app instance is tsx with its node
+# child), so the group is signalled by the leader's id; a pid that leads no group is signalled alone.
 stop_pid_file() { # $1 pid file
   [ -s "$1" ] || return 0
-  local pid; pid="$(cat "$1")"
-  if kill -0 "$pid" 2>/dev/null; then
-    kill -TERM "$pid" 2>/dev/null || true
-    for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-    kill -0 "$pid" 2>/dev/null && kill -KILL "$pid" 2>/dev/null || true
+  local pid target; pid="$(cat "$1")"
+  target="$pid"
+  [ "$(ps -o pgid= -p "$pid" 2>/dev/null | tr -d ' ')" = "$pid" ] && target="-$pid"
+  if kill -0 -- "$target" 2>/dev/null; then
+    kill -TERM -- "$target" 2>/dev/null || true
+    for _ in $(seq 1 100); do kill -0 -- "$target" 2>/dev/null || break; sleep 0.1; done
+    kill -0 -- "$target" 2>/dev/null && kill -KILL -- "$target" 2>/dev/null || true
   fi
   rm -f "$1"
 }

@@ -32,22 +32,34 @@ function pidOf(file: string): number {
   return Number(readFileSync(path.join(cluster.dir, file), 'utf8').trim());
 }
 
-/** Stops a process scale-check.sh started (by its pid file) and waits until it has gone. */
+const alive = (pid: number) => {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+};
+
+/**
+ * Stops a process scale-check.sh started (by its pid file) with its process group (setsid made it the
+ * leader: an app instance is tsx with its node child), and waits until they have gone.
+ */
 export async function stopProcess(file: string, signal: NodeJS.Signals): Promise<void> {
   const pid = pidOf(file);
-  process.kill(pid, signal);
+  try {
+    process.kill(-pid, signal);
+  } catch {
+    process.kill(pid, signal); // not a group leader
+  }
   for (let i = 0; i < 200; i++) {
-    try {
-      process.kill(pid, 0);
-    } catch {
-      return;
-    }
+    if (!alive(pid) && !alive(-pid)) return;
     await sleep(50);
   }
   throw new Error(`${file}: process ${pid} did not stop`);
 }
 
-export async function primaryRows<T>(sql: string, replacements: unknown[] = []): Promise<T[]> {
+export async function primaryRows<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
   return sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
 }
 

@@ -46,7 +46,7 @@ export function uniqueLoggerFile(): { bytes: Uint8Array; name: string } {
 /** POST /api/uploads as the Record page does (multipart form data). */
 export function uploadForm(testbed: Testbed, file: { bytes: Uint8Array; name: string }): FormData {
   const form = new FormData();
-  form.append('file', new Blob([file.bytes], { type: 'text/csv' }), file.name);
+  form.append('file', new Blob([new Uint8Array(file.bytes)], { type: 'text/csv' }), file.name);
   form.append('mapping', JSON.stringify(mappingFor(file.bytes, FOUR_STUD_JOINT)));
   form.append('header', JSON.stringify(header(testbed.jointId, testbed.instructorId, testbed.ids)));
   return form;
