@@ -142,6 +142,7 @@ start_app() { # $1 name, $2 port
   DB_READ_HOSTS="127.0.0.1:$SCALE_REPLICA_PORT" EVENLOAD_TRUSTED_PROXIES=127.0.0.1 EVENLOAD_OUTBOX=1 \
     setsid node_modules/.bin/tsx scripts/serve.ts -H 127.0.0.1 -p "$2" </dev/null >"$SCALE_DIR/$1.log" 2>&1 &
   echo $! >"$SCALE_DIR/$1.pid"
+  disown $! # killed on purpose by a check: no job report from bash
 }
 start_app app1 "$SCALE_APP1_PORT"
 start_app app2 "$SCALE_APP2_PORT"

@@ -30,11 +30,14 @@ export async function checkInstanceStopped(testbed: Testbed): Promise<CheckResul
       }
     }
   };
-  const uploadLoop = async () => {
+  const inFlightSince: number[] = [];
+  const uploadLoop = async (slot: number) => {
     while (running) {
       const file = uniqueLoggerFile();
       files.push(file);
+      inFlightSince[slot] = Date.now();
       const first = await upload(testbed.instructor, testbed, file).catch(() => ({ status: 0, runId: null }));
+      inFlightSince[slot] = 0;
       if (first.status === 201) {
         uploadOutcomes.firstTry += 1;
         continue;
@@ -46,13 +49,19 @@ export async function checkInstanceStopped(testbed: Testbed): Promise<CheckResul
       else uploadOutcomes.lost += 1;
     }
   };
-  const loops = [...Array.from({ length: readers }, readLoop), uploadLoop(), uploadLoop()];
+  const started = Date.now();
+  const loops = [...Array.from({ length: readers }, readLoop), uploadLoop(0), uploadLoop(1)];
   await sleep(3000);
+  // Kill while both uploads are being processed (one of them, most likely, on app1).
+  const bothUploading = () => [0, 1].every((slot) => inFlightSince[slot]! > 0 && Date.now() - inFlightSince[slot]! > 300);
+  for (let i = 0; i < 100 && !bothUploading(); i++) await sleep(50);
+  const uploadsInFlight = [0, 1].filter((slot) => inFlightSince[slot]! > 0).length;
   await stopProcess('app1.pid', 'SIGKILL');
   const killedAt = Date.now();
   await sleep(6000);
   running = false;
   await Promise.all(loops);
+  const ended = Date.now();
   const names = files.map((f) => f.name);
   const storedRuns = await primaryCount('SELECT COUNT(*) AS n FROM runs r JOIN uploads u ON u.run_id = r.id WHERE u.file_name IN (?)', [names]);
   const halfStored = await primaryCount(
@@ -67,12 +76,12 @@ export async function checkInstanceStopped(testbed: Testbed): Promise<CheckResul
     {
       check: 'app1 killed under load: no read lost at the balancer',
       ok: reads.failed === 0 && reads.ok > 0,
-      figures: `${reads.ok} reads 200, ${reads.failed} failed${failures ? ` (${failures})` : ''}; ${readers} readers, killed ${((killedAt - Date.now()) / -1000).toFixed(0)} s before the end`,
+      figures: `${reads.ok} reads 200, ${reads.failed} failed${failures ? ` (${failures})` : ''}; ${readers} readers; SIGKILL after ${((killedAt - started) / 1000).toFixed(1)} s, load went on ${((ended - killedAt) / 1000).toFixed(1)} s`,
     },
     {
       check: 'app1 killed under load: uploads stored once, none half-stored',
       ok: uploadOutcomes.lost === 0 && halfStored === 0 && storedRuns === files.length,
-      figures: `${files.length} files: ${uploadOutcomes.firstTry} stored first time, ${uploadOutcomes.retried} after the client's retry, ${uploadOutcomes.lost} lost; ${storedRuns} runs stored; ${halfStored} half-stored`,
+      figures: `${files.length} files (${uploadsInFlight} in flight at the kill): ${uploadOutcomes.firstTry} stored first time, ${uploadOutcomes.retried} after the client's retry, ${uploadOutcomes.lost} lost; ${storedRuns} runs stored; ${halfStored} half-stored`,
     },
   ];
 }
