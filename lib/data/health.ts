@@ -1,12 +1,13 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
 import { sequelize } from '@/models';
 
-/** Whether MariaDB answers a trivial query within the timeout. */
+/** Whether MariaDB (the primary, where writes go) answers a trivial query within the timeout. */
 export async function databaseReachable(timeoutMs = 2000): Promise<boolean> {
   let timer: NodeJS.Timeout | undefined;
   try {
     await Promise.race([
-      sequelize.query('SELECT 1 AS ok'),
+      sequelize.query('SELECT 1 AS ok', { type: QueryTypes.SELECT, useMaster: true }),
       new Promise((_, reject) => {
         timer = setTimeout(() => reject(new Error('timeout')), timeoutMs);
       }),
@@ -18,3 +19,6 @@ export async function databaseReachable(timeoutMs = 2000): Promise<boolean> {
     if (timer) clearTimeout(timer);
   }
 }
+
+/** Where reads go now: 'none' without replicas, 'replica', or 'primary' while the replicas do not answer. */
+export { replicaReadState } from '@/lib/platform/replica-routing';

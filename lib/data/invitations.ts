@@ -125,10 +125,11 @@ export interface TokenDescription {
 
 /** What a welcome or reset link stands for, for the page that shows its form. */
 export async function describeToken(value: string, purpose: TokenPurpose, now = new Date()): Promise<TokenDescription> {
-  const row = looksLikeToken(value) ? await OneTimeToken.findOne({ where: { tokenSha256: hashToken(value), purpose } }) : null;
+  // From the primary: the link is opened by someone else moments after it was written (a replica may lag).
+  const row = looksLikeToken(value) ? await OneTimeToken.findOne({ where: { tokenSha256: hashToken(value), purpose }, useMaster: true }) : null;
   const state = tokenState(row, now);
   if (!row || state !== 'valid') return { state, message: state === 'valid' ? null : TOKEN_STATE_MESSAGE[state], purpose: row?.purpose ?? null, email: null, name: null, cohortName: null };
-  const [account, cohort] = await Promise.all([User.findByPk(row.userId), row.cohortId ? Cohort.findByPk(row.cohortId) : null]);
+  const [account, cohort] = await Promise.all([User.findByPk(row.userId, { useMaster: true }), row.cohortId ? Cohort.findByPk(row.cohortId, { useMaster: true }) : null]);
   return { state, message: null, purpose: row.purpose, email: account?.email ?? null, name: account?.name ?? null, cohortName: cohort?.name ?? null };
 }
 

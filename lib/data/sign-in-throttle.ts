@@ -43,7 +43,7 @@ export function signInKeys(email: string, address: string): SignInKeys {
 const genericLimit = (key: string) => (key.startsWith('addr:') ? SIGN_IN_LIMIT.maxFailuresPerAddress : SIGN_IN_LIMIT.maxFailuresPerPair);
 
 export async function isLocked(keys: string[], now = new Date()): Promise<boolean> {
-  const locked = await SignInAttempt.count({ where: { attemptKey: keys, lockedUntil: { [Op.gt]: now } } });
+  const locked = await SignInAttempt.count({ where: { attemptKey: keys, lockedUntil: { [Op.gt]: now } }, useMaster: true });
   return locked > 0;
 }
 
@@ -68,7 +68,8 @@ async function countEvents(counters: Array<{ key: string; lockAfter: (failures: 
 
 /** Sign-in: locked when the pair or the address is locked, or the account is backing off and this address has failed for it. */
 export async function isSignInLocked(keys: SignInKeys, now = new Date()): Promise<boolean> {
-  const rows = await SignInAttempt.findAll({ where: { attemptKey: [keys.pair, keys.address, keys.account] } });
+  // The primary, never a replica: a lagging replica would let a client that drops cookies guess on.
+  const rows = await SignInAttempt.findAll({ where: { attemptKey: [keys.pair, keys.address, keys.account] }, useMaster: true });
   const live = (row: SignInAttempt) => now.getTime() - row.windowStartedAt.getTime() <= SIGN_IN_LIMIT.windowMs;
   const lockedNow = (row: SignInAttempt) => row.lockedUntil !== null && row.lockedUntil.getTime() > now.getTime();
   const byKey = new Map(rows.map((row) => [row.attemptKey, row]));

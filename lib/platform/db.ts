@@ -1,12 +1,14 @@
 import { Sequelize } from 'sequelize';
 import { env } from './env';
 import { mariadbDriver } from './mariadb-driver';
+import { installReplicaRouting } from './replica-routing';
 
 /**
  * The one Sequelize instance (cached on globalThis so dev reloads reuse the pool).
  * Pool size and acquire timeout are set deliberately (DB_POOL_MAX, DB_POOL_ACQUIRE_MS): a request
  * that cannot get a connection within the timeout fails fast with a clear 503 instead of queueing
- * for ever. With DB_READ_HOSTS set, Sequelize sends reads to the replicas and writes to DB_HOST.
+ * for ever. With DB_READ_HOSTS set, Sequelize sends reads to the replicas and writes to DB_HOST;
+ * replica-routing.ts adds read-your-writes and the fall-back to the primary when a replica is down.
  */
 export function createSequelize(database: string = env.DB_NAME, overrides: { port?: number } = {}): Sequelize {
   const common = { username: env.DB_USER, password: env.DB_PASSWORD, database };
@@ -18,7 +20,7 @@ export function createSequelize(database: string = env.DB_NAME, overrides: { por
       const [host, port] = entry.split(':');
       return { ...common, host: host ?? '127.0.0.1', port: Number(port ?? env.DB_PORT) };
     });
-  return new Sequelize(database, env.DB_USER, env.DB_PASSWORD, {
+  const instance = new Sequelize(database, env.DB_USER, env.DB_PASSWORD, {
     dialect: 'mariadb',
     dialectModule: mariadbDriver,
     host: env.DB_HOST,
@@ -33,6 +35,10 @@ export function createSequelize(database: string = env.DB_NAME, overrides: { por
       : {}),
     define: { underscored: true },
   });
+  if (readHosts.length) {
+    installReplicaRouting(instance, { readPrimaryAfterWriteMs: env.DB_READ_PRIMARY_AFTER_WRITE_MS, replicaRetryMs: env.DB_REPLICA_RETRY_MS });
+  }
+  return instance;
 }
 
 const globalForDb = globalThis as unknown as { evenloadSequelize?: Sequelize };

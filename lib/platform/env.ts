@@ -14,6 +14,10 @@ const schema = z.object({
   DB_PASSWORD: z.string().default('evenload-local'),
   /** Comma-separated host:port list of read replicas; reads may go there (Sequelize replication). */
   DB_READ_HOSTS: z.string().optional(),
+  /** With replicas: how long a browser reads from the primary after a write (read-your-writes), and
+   *  how long replicas are left alone after one did not answer (reads go to the primary meanwhile). */
+  DB_READ_PRIMARY_AFTER_WRITE_MS: z.coerce.number().int().min(0).max(600_000).default(5000),
+  DB_REPLICA_RETRY_MS: z.coerce.number().int().min(100).default(10_000),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(500).default(20),
   DB_POOL_ACQUIRE_MS: z.coerce.number().int().min(100).default(4000),
   NEXTAUTH_SECRET: z.string().min(16).optional(),

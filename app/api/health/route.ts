@@ -1,13 +1,14 @@
 import { NextResponse } from 'next/server';
-import { databaseReachable } from '@/lib/data/health';
+import { databaseReachable, replicaReadState } from '@/lib/data/health';
 
 export const dynamic = 'force-dynamic';
 
-// GET /api/health - 200 when the database answers, 503 when it does not (public: for load balancers)
+// GET /api/health - 200 when the database (the primary) answers, 503 when it does not (public: for load balancers)
 export async function GET() {
   const ok = await databaseReachable();
+  const reads = replicaReadState();
   return NextResponse.json(
-    ok ? { status: 'ok', database: 'reachable' } : { status: 'unavailable', database: 'unreachable', message: 'The database is not answering.' },
+    ok ? { status: 'ok', database: 'reachable', reads } : { status: 'unavailable', database: 'unreachable', reads, message: 'The database is not answering.' },
     { status: ok ? 200 : 503 },
   );
 }
