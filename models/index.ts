@@ -1,4 +1,5 @@
 import { sequelize } from '../lib/platform/db';
+import { AuditEntry } from './audit-entry';
 import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
 import { CohortCriteria } from './cohort-criteria';
@@ -21,7 +22,7 @@ import { UserSession } from './user-session';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, AuditEntry]) {
     model.initModel(sequelize);
   }
 
@@ -46,4 +47,4 @@ import { UserSession } from './user-session';
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, AuditEntry, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -19,6 +19,8 @@ export interface RunHeader {
   notes?: string | null;
   setAsideReason?: string | null;
   setAsideById?: number | null;
+  /** Who put the run in (the signed-in person); the way in is `source`. */
+  recordedById?: number | null;
 }
 
 /** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */
@@ -45,15 +47,15 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   const now = new Date();
   const [runId] = await sequelize.query(
     `INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status,
-       set_aside_reason, set_aside_by_id, recorded_at, notes, stud_count, step_count, pass_count,
+       set_aside_reason, set_aside_by_id, recorded_by_id, recorded_at, notes, stud_count, step_count, pass_count,
        final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at)
-     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
+     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
     {
       type: QueryTypes.INSERT,
       transaction,
       replacements: [
         header.jointId, header.methodId, header.lubricantId, header.operatorId, header.cohortId, header.targetLoadN,
-        header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
+        header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null, header.recordedById ?? null,
         header.recordedAt, header.notes ?? null, figures.studCount, figures.stepCount, figures.passCount,
         figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, figures.finalLoadsJson, figures.driftJson, now, now,
       ],
