@@ -16,6 +16,9 @@ export default async function PeoplePage() {
       <div>
         <h1 className="text-2xl font-semibold">People</h1>
         <p className="text-sm text-muted">Every account of the centre. A role change or a deactivation signs the person out everywhere within a minute; a deactivated account cannot sign in. Trainees join through their instructor&apos;s invitation.</p>
+        <p className="mt-2 text-sm">
+          <a href="/api/admin/audit-log" download className="underline underline-offset-4">Download the audit log (CSV)</a>: every change to runs, verdicts, criteria and accounts, with who, when, the reason, and the values before and after.
+        </p>
       </div>
       <table className="w-full rounded-card border border-rule bg-panel text-sm">
         <thead className="text-left text-muted">
