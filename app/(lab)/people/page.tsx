@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { PersonControls } from '@/components/people/person-controls';
+import { ResendInviteButton } from '@/components/cohorts/resend-invite-button';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { listPeople } from '@/lib/data/people';
 import { formatDate } from '@/lib/format/format-date';
@@ -30,7 +31,7 @@ export default async function PeoplePage() {
               <td className="px-3 py-1.5 font-medium">{p.name}</td>
               <td>{p.email}</td>
               <td>{ROLE_LABELS[p.role]}</td>
-              <td>{!p.isActive ? <span className="text-danger">deactivated</span> : p.pending ? <span className="text-caution">invited</span> : 'active'}</td>
+              <td>{!p.isActive ? <span className="text-danger">deactivated</span> : p.pending ? <><span className="text-caution">invited</span><div className="mt-1"><ResendInviteButton userId={p.id} cohortId={null} name={p.name} /></div></> : 'active'}</td>
               <td className="num">{formatDate(p.createdAt)}</td>
               <td className="py-1.5"><PersonControls userId={p.id} name={p.name} role={p.role} isActive={p.isActive} isSelf={p.id === user.id} /></td>
             </tr>

@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { CriteriaForm } from '@/components/cohorts/criteria-form';
 import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { InviteForm } from '@/components/cohorts/invite-form';
+import { ResendInviteButton } from '@/components/cohorts/resend-invite-button';
 import { SendResultsForm, SignOffForm } from '@/components/cohorts/verdict-forms';
 import { EmptyState } from '@/components/ui/empty-state';
 import { CRITERIA_LIMITS } from '@/lib/assessment/criteria';
@@ -60,7 +61,7 @@ export default async function CohortPage({ params }: { params: Promise<{ id: str
                 <tr key={m.id} className="border-t border-rule">
                   <td className="py-1.5 font-medium">{m.name}</td>
                   <td>{m.email}</td>
-                  <td>{!m.isActive ? <span className="text-muted">deactivated</span> : m.pending ? <span className="text-caution">{m.inviteExpired ? 'invitation expired — invite again' : 'invited, password not set'}</span> : 'active'}</td>
+                  <td>{!m.isActive ? <span className="text-muted">deactivated</span> : m.pending ? <span className="text-caution">{m.inviteExpired ? 'invitation expired' : 'invited, password not set'}</span> : 'active'}{m.pending && m.isActive ? <div className="mt-1"><ResendInviteButton userId={m.id} cohortId={cohort.id} name={m.name} /></div> : null}</td>
                   <td className="text-right">{m.attempts}</td>
                   <td className="text-right">{m.practiceRuns}</td>
                   <td className="text-right">{m.latestCv === null ? '—' : formatPercent(m.latestCv * 100)}</td>
