@@ -12,8 +12,8 @@ import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/te
 import { hashPassword } from '../auth/passwords';
 import { isLocked, recordFailure } from './sign-in-throttle';
 import { nameSchema } from '../validation/display-name';
-import type { SessionUser } from '../auth/session';
-import { manageableCohort } from './cohort-access';
+import { assertRole, type SessionUser } from '../auth/session';
+import { COHORT_ROLES, manageableCohort } from './cohort-access';
 import { endAllSessions } from './session-store';
 
 export const MAX_INVITES_AT_ONCE = 100;
@@ -101,6 +101,7 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
  * this person manages (the People page). The same hourly and daily limits apply.
  */
 export async function resendInvitation(user: SessionUser | null, userId: number, cohortId: number | null, now = new Date()): Promise<InviteOutcome> {
+  assertRole(user, COHORT_ROLES);
   const account = Number.isInteger(userId) && userId > 0 ? await User.findByPk(userId) : null;
   const memberships = account ? await CohortMember.findAll({ where: { userId: account.id, ...(cohortId === null ? {} : { cohortId }) }, order: [['cohortId', 'DESC']] }) : [];
   let cohort: Cohort | null = null;
