@@ -110,7 +110,7 @@ export async function resendInvitation(user: SessionUser | null, userId: number,
     if (cohort) break;
   }
   if (!account || !cohort) throw new AppError('not_found', 'That person is not in a cohort you manage.');
-  if (account.passwordHash !== null) throw new AppError('conflict', `${account.email} has already set a password; they sign in as usual (or use "Forgot password").`);
+  if (account.passwordHash !== null) throw new AppError('conflict', `${account.email} has already set a password, so no new invitation was sent; "Forgot password" gives them a new one if needed.`);
   return inviteToCohort(user, cohort.id, account.email, now);
 }
 
