@@ -1,4 +1,5 @@
 import { sequelize } from '../lib/platform/db';
+import { AuditEntry } from './audit-entry';
 import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
 import { CohortCriteria } from './cohort-criteria';
@@ -24,7 +25,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, AuditEntry] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -51,4 +52,4 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, AuditEntry, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -18,6 +18,11 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare status: RunStatus;
   declare setAsideReason: CreationOptional<string | null>;
   declare setAsideById: CreationOptional<number | null>;
+  /** Who put the run in (the way in is `source`); null only for rows older than the column. */
+  declare recordedById: CreationOptional<number | null>;
+  /** The cohort instructor (or admin) who confirmed a trainee-recorded run as a witnessed attempt. */
+  declare assessedConfirmedById: CreationOptional<number | null>;
+  declare assessedConfirmedAt: CreationOptional<Date | null>;
   declare recordedAt: Date;
   declare notes: CreationOptional<string | null>;
   declare studCount: number;
@@ -50,6 +55,9 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         status: { type: DataTypes.ENUM(...RUN_STATUSES), allowNull: false },
         setAsideReason: { type: DataTypes.STRING(400), allowNull: true },
         setAsideById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        recordedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        assessedConfirmedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        assessedConfirmedAt: { type: DataTypes.DATE, allowNull: true },
         recordedAt: { type: DataTypes.DATE, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: true },
         studCount: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false },

@@ -30,10 +30,12 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
     }
     const siteName = new Map(scenario.school.sites.map((s) => [s.key, `${scenario.school.name}, ${s.name}`]));
     const cohortId = new Map<string, number>();
+    const cohortInstructorId = new Map<string, number>();
     for (const cohort of scenario.cohorts) {
       const [id] = await q('INSERT INTO cohorts (name, site, starts_on, ends_on, instructor_id, created_at, updated_at) VALUES (?,?,?,?,?,?,?)',
         [cohort.name, siteName.get(cohort.siteKey) ?? cohort.siteKey, cohort.startsOn, cohort.endsOn, userId.get(cohort.instructorEmail), now, now]);
       cohortId.set(cohort.key, Number(id));
+      cohortInstructorId.set(cohort.key, userId.get(cohort.instructorEmail)!);
       for (const email of cohort.traineeEmails) {
         await q('INSERT INTO cohort_members (cohort_id, user_id, created_at) VALUES (?,?,?)', [Number(id), userId.get(email), now]);
       }
@@ -66,12 +68,16 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
     const researcherOrAdmin = userId.get(admin.email) ?? null;
     for (const demo of scenario.runs) {
       const joint = jointId.get(demo.jointKey)!;
+      const operatorId = userId.get(demo.operatorEmail)!;
+      // Cohort runs were recorded by the cohort's instructor (witnessed attempts); simulated and other runs by their operator.
+      const recordedById = demo.source === 'simulated' ? operatorId : (cohortInstructorId.get(demo.cohortKey) ?? operatorId);
       await storeRun(
         {
           jointId: joint.id,
           methodId: methodId.get(demo.methodKey)!,
           lubricantId: lubricantId.get(demo.lubricantKey)!,
-          operatorId: userId.get(demo.operatorEmail)!,
+          operatorId,
+          recordedById,
           cohortId: cohortId.get(demo.cohortKey) ?? null,
           targetLoadN: demo.run.targetLoadN,
           bandPercent: joint.bandPercent,

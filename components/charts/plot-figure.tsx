@@ -89,7 +89,7 @@ export function PlotFigure({ options, title, description, table, legend, fit, la
         </div>
       )}
       {table && table.rows.length > 0 && (
-        <details className="mt-3 text-sm">
+        <details className="no-print mt-3 text-sm">
           <summary className="cursor-pointer text-ink">Show the numbers</summary>
           <div className="mt-2 overflow-x-auto">
             <table className="num w-full border-collapse text-left">

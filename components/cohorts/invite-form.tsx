@@ -6,6 +6,7 @@ import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError } from '../ui/field-error';
 import { FormMessage } from '../ui/form-message';
+import { InviteLinks } from './invite-links';
 
 export function InviteForm({ cohortId }: { cohortId: number }) {
   const [state, action, pending] = useActionState(inviteAction.bind(null, cohortId), IDLE_FORM_STATE);
@@ -25,6 +26,7 @@ export function InviteForm({ cohortId }: { cohortId: number }) {
         </button>
         <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
       </div>
+      <InviteLinks links={state.data?.handOver} />
     </form>
   );
 }

@@ -12,7 +12,7 @@ export function CommentPanel({ comments, action }: { comments: RunCommentDto[]; 
     <section aria-labelledby="comments-heading" className="rounded-card border border-rule bg-panel p-4">
       <h2 id="comments-heading" className="text-lg font-semibold">Comments</h2>
       {comments.length === 0 ? (
-        <p className="mt-2 text-sm text-muted">No comments yet.{action ? ' Add one below; the trainee sees it on this report.' : ''}</p>
+        <p className="mt-2 text-sm text-muted">No comments yet.{action ? <span className="no-print"> Add one below; the trainee sees it on this report.</span> : null}</p>
       ) : (
         <ul className="mt-2 space-y-3">
           {comments.map((comment) => (

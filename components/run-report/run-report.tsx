@@ -10,6 +10,8 @@ import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';
 import { RunCharts } from './run-charts';
+import { ATTEMPT_KIND_LABEL, type AttemptKind } from '@/lib/qualification/attempt-kind';
+import { PrintHeader, PrintSignature } from '@/components/ui/print-signature';
 
 const TOOL_LABELS: Record<string, string> = {
   manual_torque_wrench: 'Manual torque wrench',
@@ -17,7 +19,6 @@ const TOOL_LABELS: Record<string, string> = {
   hydraulic_tensioner: 'Hydraulic tensioner',
   other: 'Other tool',
 };
-const SOURCE_LABELS: Record<string, string> = { upload: 'Logger file', manual: 'Entered by hand', simulated: 'Simulated', live: 'Streamed live' };
 const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
 
 interface Props {
@@ -26,10 +27,12 @@ interface Props {
   comments: RunCommentDto[];
   units: 'si' | 'us';
   role: Role;
+  /** How the run came in and whether it counts as an assessed attempt. */
+  attempt: { kind: AttemptKind; sourceLine: string };
   commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, commentAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -49,6 +52,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
 
   return (
     <article className="print-sheet space-y-6" aria-labelledby="run-title">
+      <PrintHeader title={`Run report ${header.id}`} printedOn={formatDateTime(new Date().toISOString())} />
       <header className="space-y-3">
         <div className="flex flex-wrap items-start gap-3">
           <div>
@@ -81,7 +85,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           <Item term="Lubricant" value={header.lubricant.name} detail={`Nominal nut factor K = ${formatNumber(header.lubricant.nominalNutFactor, 2)}`} />
           <Item term="Operator" value={header.operator.label} detail={header.cohort ? header.cohort.name : 'No cohort'} />
           <Item term="Target load" value={force(target)} detail={`Band ±${formatNumber(header.bandPercent, 2)} %: ${force(target * (1 - header.bandPercent / 100))} to ${force(target * (1 + header.bandPercent / 100))}`} />
-          <Item term="Source" value={SOURCE_LABELS[header.source] ?? header.source} detail={`Status: ${STATUS_LABELS[header.status] ?? header.status}`} />
+          <Item term="Source" value={attempt.sourceLine} detail={`${ATTEMPT_KIND_LABEL[attempt.kind]} · Status: ${STATUS_LABELS[header.status] ?? header.status}`} />
           <Item term="Steps" value={String(analysis.steps.length)} detail={`${analysis.passes.length} passes`} />
           {header.notes ? <Item term="Notes" value={header.notes} /> : null}
         </dl>
@@ -130,6 +134,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
       </section>
 
       {role === 'researcher' ? null : <CommentPanel comments={comments} action={commentAction} />}
+      <PrintSignature roles={['Trainee', 'Instructor']} />
     </article>
   );
 }

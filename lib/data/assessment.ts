@@ -12,6 +12,8 @@ import { Cohort, CohortCriteria, Joint, Method, Run, RunVerdict, User, sequelize
 import type { MethodPass } from '@/models/method';
 import { manageableCohort } from './cohort-access';
 import { nextVersion } from './optimistic-lock';
+import { writeAudit } from './audit-log';
+import { assertAssessedAttempt, attemptRow } from './qualification/attempts';
 
 export interface CohortCriteriaDto extends AssessmentCriteria {
   /** True while the cohort still uses the defaults (nothing saved yet). */
@@ -42,6 +44,8 @@ export async function saveCohortCriteria(user: SessionUser | null, cohortId: num
     const row = await CohortCriteria.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE });
     const version = nextVersion(row?.version ?? 0, sentVersion);
     await CohortCriteria.upsert({ cohortId: cohort.id, ...parsed.data, updatedById: user!.id, version }, { transaction });
+    const before = row ? { bandPercent: row.bandPercent, maxCvPercent: row.maxCvPercent, requirePattern: Boolean(row.requirePattern), maxYieldPercent: row.maxYieldPercent } : null;
+    await writeAudit(transaction, user, { objectType: 'criteria', objectId: cohort.id, action: row ? 'update' : 'create', before, after: parsed.data });
   });
   return parsed.data;
 }
@@ -113,6 +117,8 @@ export async function signOffRun(user: SessionUser | null, runId: number, rawCom
   const comment = typeof rawComment === 'string' ? rawComment.trim() : '';
   if (comment.length > 4000) throw new AppError('invalid_input', 'The comment is longer than 4,000 characters; shorten it.', { fieldErrors: { comment: ['The comment is longer than 4,000 characters; shorten it.'] } });
   if (run.status !== 'complete') throw new AppError('invalid_input', `Only complete runs can be signed off; this run is ${run.status.replace('_', ' ')}.`);
+  const facts = await attemptRow(run.id);
+  if (facts) assertAssessedAttempt(facts);
   try {
     return await sequelize.transaction(async (transaction) => {
       // Lock the run's own row (it exists), not the verdict's gap: simultaneous sign-offs queue
@@ -120,6 +126,10 @@ export async function signOffRun(user: SessionUser | null, runId: number, rawCom
       await Run.findByPk(run.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
       const existing = await RunVerdict.findOne({ where: { runId: run.id }, transaction });
       if (existing) throw alreadySignedOff(existing.signedAt);
+      // Read again under the lock: a confirmation or a set-aside may have landed since the check above.
+      const facts = await attemptRow(run.id, transaction);
+      if (!facts || facts.status !== 'complete') throw new AppError('invalid_input', 'Only complete runs can be signed off; this run has changed since you opened it.');
+      assertAssessedAttempt(facts);
       const { isDefault: _isDefault, version: _version, ...criteria } = await criteriaForCohort(cohort.id, transaction);
       const judgement = (await judgeRuns([run.id], criteria, transaction)).get(run.id);
       if (!judgement) throw new AppError('invalid_input', 'This run has no final loads for every stud, so it cannot be judged.');
@@ -128,6 +138,8 @@ export async function signOffRun(user: SessionUser | null, runId: number, rawCom
         { runId: run.id, cohortId: cohort.id, criteria, results: judgement.results, allMet: judgement.allMet, comment: comment || null, signedById: user!.id, signedAt: now },
         { transaction },
       );
+      await writeAudit(transaction, user, { objectType: 'verdict', objectId: verdict.id, action: 'sign_off', after: { runId: run.id, criteria, allMet: judgement.allMet, comment: comment || null } });
+      await writeAudit(transaction, user, { objectType: 'run', objectId: run.id, action: 'sign_off', after: { verdictId: verdict.id, allMet: judgement.allMet } });
       return { verdictId: verdict.id, allMet: judgement.allMet };
     });
   } catch (error) {

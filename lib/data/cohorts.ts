@@ -2,6 +2,7 @@ import 'server-only';
 import { z } from 'zod';
 import { Cohort, CohortMember, Joint, Method, OneTimeToken, Run, RunVerdict, User } from '@/models';
 import type { CriterionResult } from '../assessment/judge-run';
+import { attemptKind, runSourceLine, type AttemptKind } from '../qualification/attempt-kind';
 import { AppError } from '../http/errors';
 import { isoDateSchema } from '../validation/iso-date';
 import { nameSchema } from '../validation/display-name';
@@ -78,6 +79,10 @@ export interface CohortRunRow {
   methodName: string;
   jointName: string;
   status: string;
+  /** Assessed attempt, practice or simulated (lib/qualification/attempt-kind.ts). */
+  attemptKind: AttemptKind;
+  /** How the run came in and who recorded or confirmed it, for sheets. */
+  sourceLine: string;
   finalCv: number | null;
   /** The judgement now, against the cohort's current criteria (null when the run cannot be judged). */
   judgement: { results: CriterionResult[]; allMet: boolean } | null;
@@ -93,7 +98,10 @@ export interface CohortMemberRow {
   pending: boolean;
   inviteExpired: boolean;
   isActive: boolean;
+  /** Complete assessed attempts (witnessed by the cohort's instructor). */
   attempts: number;
+  /** Complete practice runs (recorded by the trainee and not confirmed). */
+  practiceRuns: number;
   latestRunId: number | null;
   latestCv: number | null;
   latestMet: number | null;
@@ -134,6 +142,9 @@ export async function cohortDetail(user: SessionUser | null, cohortId: number, n
     memberIds.length ? OneTimeToken.findAll({ where: { userId: memberIds, purpose: 'invite', usedAt: null } }) : [],
     RunVerdict.findAll({ where: { cohortId: cohort.id }, include: [{ model: User, as: 'signedBy', attributes: ['name'] }] }),
   ]);
+  const peopleIds = [...new Set(runs.flatMap((r) => [r.recordedById, r.assessedConfirmedById]).filter((id): id is number => id !== null))];
+  const people = new Map((peopleIds.length ? await User.findAll({ where: { id: peopleIds }, attributes: ['id', 'name'] }) : []).map((u) => [u.id, u.name]));
+  const nameOf = (id: number | null) => (id === null ? null : (people.get(id) ?? null));
   const judged = await judgeRuns(runs.filter((r) => r.status === 'complete').map((r) => r.id), criteria);
   const runRows: CohortRunRow[] = runs.map((run) => {
     const r = run as Run & { method: Method; joint: Joint; operator: User };
@@ -146,6 +157,8 @@ export async function cohortDetail(user: SessionUser | null, cohortId: number, n
       methodName: r.method.name,
       jointName: r.joint.name,
       status: r.status,
+      attemptKind: attemptKind({ source: r.source, cohortInstructorId: cohort.instructorId, recordedById: r.recordedById, assessedConfirmedById: r.assessedConfirmedById }),
+      sourceLine: runSourceLine(r.source, nameOf(r.recordedById), nameOf(r.assessedConfirmedById)),
       finalCv: r.finalCv,
       judgement: judged.get(r.id) ?? null,
       verdict: verdict
@@ -162,7 +175,8 @@ export async function cohortDetail(user: SessionUser | null, cohortId: number, n
     };
   });
   const members: CohortMemberRow[] = users.map((u) => {
-    const own = runRows.filter((r) => r.operatorId === u.id && r.status === 'complete');
+    const complete = runRows.filter((r) => r.operatorId === u.id && r.status === 'complete');
+    const own = complete.filter((r) => r.attemptKind === 'assessed');
     const latest = own[own.length - 1];
     const latestResults = latest?.verdict?.results ?? latest?.judgement?.results ?? null;
     const invite = invites.filter((i) => i.userId === u.id).sort((a, b) => b.expiresAt.getTime() - a.expiresAt.getTime())[0];
@@ -175,6 +189,7 @@ export async function cohortDetail(user: SessionUser | null, cohortId: number, n
       inviteExpired: u.passwordHash === null && (!invite || invite.expiresAt.getTime() <= now.getTime()),
       isActive: Boolean(u.isActive),
       attempts: own.length,
+      practiceRuns: complete.filter((r) => r.attemptKind === 'practice').length,
       latestRunId: latest?.id ?? null,
       latestCv: latest?.finalCv ?? null,
       latestMet: latestResults ? latestResults.filter((x) => x.met).length : null,

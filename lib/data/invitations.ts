@@ -12,8 +12,8 @@ import { addedToCohortMail, invitationMail, passwordResetMail } from '../mail/te
 import { hashPassword } from '../auth/passwords';
 import { isLocked, recordFailure } from './sign-in-throttle';
 import { nameSchema } from '../validation/display-name';
-import type { SessionUser } from '../auth/session';
-import { manageableCohort } from './cohort-access';
+import { assertRole, type SessionUser } from '../auth/session';
+import { COHORT_ROLES, manageableCohort } from './cohort-access';
 import { endAllSessions } from './session-store';
 
 export const MAX_INVITES_AT_ONCE = 100;
@@ -28,6 +28,8 @@ export interface InviteOutcome {
   alreadyMembers: string[];
   /** Addresses whose e-mail could not be sent (the rows are saved; send again later). */
   notSent: string[];
+  /** Invitation links whose e-mail could not be sent, for the instructor to hand over another way. */
+  handOver: Array<{ email: string; link: string }>;
 }
 
 /**
@@ -49,7 +51,8 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
     const message = `That is ${valid.length} addresses; invite at most ${MAX_INVITES_AT_ONCE} at a time.`;
     throw new AppError('invalid_input', message, { fieldErrors: { addresses: [message] } });
   }
-  const outcome: InviteOutcome = { invited: [], attached: [], alreadyMembers: [], notSent: [] };
+  const outcome: InviteOutcome = { invited: [], attached: [], alreadyMembers: [], notSent: [], handOver: [] };
+  const links = new Map<string, string>();
   const mails: OutgoingMail[] = [];
   const base = appBaseUrl();
   await sequelize.transaction(async (transaction) => {
@@ -71,7 +74,8 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
         const value = newTokenValue();
         const expiresAt = tokenExpiry('invite', now);
         await OneTimeToken.create({ tokenSha256: hashToken(value), purpose: 'invite', userId: account.id, cohortId: cohort.id, createdById: user!.id, expiresAt }, { transaction });
-        mails.push({ to: email, ...invitationMail({ cohortName: cohort.name, instructorName: user!.name, link: `${base}/welcome/${value}`, expiresAt }) });
+        links.set(email, `${base}/welcome/${value}`);
+        mails.push({ to: email, ...invitationMail({ cohortName: cohort.name, instructorName: user!.name, link: links.get(email)!, expiresAt }) });
         outcome.invited.push(email);
       } else {
         mails.push({ to: email, ...addedToCohortMail({ cohortName: cohort.name, instructorName: user!.name, signInLink: `${base}/sign-in` }) });
@@ -84,9 +88,30 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
       await sendMail(mail);
     } catch {
       outcome.notSent.push(mail.to);
+      const link = links.get(mail.to);
+      if (link) outcome.handOver.push({ email: mail.to, link });
     }
   }
   return outcome;
+}
+
+/**
+ * Sends a fresh invitation link to someone who has not set a password yet (the earlier links stop
+ * mattering once one is used). `cohortId` names the cohort; without it, the latest cohort of theirs
+ * this person manages (the People page). The same hourly and daily limits apply.
+ */
+export async function resendInvitation(user: SessionUser | null, userId: number, cohortId: number | null, now = new Date()): Promise<InviteOutcome> {
+  assertRole(user, COHORT_ROLES);
+  const account = Number.isInteger(userId) && userId > 0 ? await User.findByPk(userId) : null;
+  const memberships = account ? await CohortMember.findAll({ where: { userId: account.id, ...(cohortId === null ? {} : { cohortId }) }, order: [['cohortId', 'DESC']] }) : [];
+  let cohort: Cohort | null = null;
+  for (const membership of memberships) {
+    cohort = await manageableCohort(user, membership.cohortId).catch(() => null);
+    if (cohort) break;
+  }
+  if (!account || !cohort) throw new AppError('not_found', 'That person is not in a cohort you manage.');
+  if (account.passwordHash !== null) throw new AppError('conflict', `${account.email} has already set a password, so no new invitation was sent; "Forgot password" gives them a new one if needed.`);
+  return inviteToCohort(user, cohort.id, account.email, now);
 }
 
 /** Invitation links one instructor may send per hour, and one address may receive per day (from any instructor). */

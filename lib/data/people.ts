@@ -5,6 +5,7 @@ import { ROLES, type Role } from '@/models/user';
 import { AppError } from '../http/errors';
 import { assertRole, type SessionUser } from '../auth/session';
 import { endAllSessions } from './session-store';
+import { writeAudit } from './audit-log';
 
 export interface PersonRow {
   id: number;
@@ -34,7 +35,7 @@ export async function changeRole(user: SessionUser | null, userId: number, rawRo
   const role = roleSchema.safeParse(rawRole);
   if (!role.success) throw new AppError('invalid_input', role.error.issues[0]?.message ?? 'Choose a role.', { fieldErrors: { role: [role.error.issues[0]?.message ?? 'Choose a role.'] } });
   if (userId === user.id) throw new AppError('forbidden', 'You cannot change your own role; another admin can.');
-  await updateAccount(userId, (target) => (target.role === role.data ? null : { role: role.data }));
+  await updateAccount(user, userId, (target) => (target.role === role.data ? null : { role: role.data }));
 }
 
 /**
@@ -44,32 +45,35 @@ export async function changeRole(user: SessionUser | null, userId: number, rawRo
 export async function setActive(user: SessionUser | null, userId: number, active: boolean): Promise<void> {
   assertRole(user, ['admin']);
   if (userId === user.id) throw new AppError('forbidden', 'You cannot deactivate your own account; another admin can.');
-  await updateAccount(userId, (target) => (Boolean(target.isActive) === active ? null : { isActive: active }));
+  await updateAccount(user, userId, (target) => (Boolean(target.isActive) === active ? null : { isActive: active }));
 }
 
 /** "Sign out everywhere" for an account, by an admin (their own included). */
 export async function endSessionsOf(user: SessionUser | null, userId: number): Promise<void> {
   assertRole(user, ['admin']);
-  await updateAccount(userId, () => ({}));
+  await updateAccount(user, userId, () => ({}));
 }
 
 /** "Sign out everywhere" for the signed-in person: every session of theirs ends, this one too. */
 export async function endOwnSessions(user: SessionUser | null): Promise<void> {
   if (!user) throw new AppError('unauthenticated', 'Sign in to continue.');
-  await updateAccount(user.id, () => ({}));
+  await updateAccount(user, user.id, () => ({}));
 }
 
 /**
  * Applies a change to an account and ends all its sessions, in one transaction (the row is locked,
  * so two admins acting at once both take effect). A change of nothing (`null`) ends no session.
  */
-async function updateAccount(userId: number, change: (target: User) => Partial<Pick<User, 'role' | 'isActive'>> | null): Promise<void> {
+async function updateAccount(actor: SessionUser, userId: number, change: (target: User) => Partial<Pick<User, 'role' | 'isActive'>> | null): Promise<void> {
   await sequelize.transaction(async (transaction) => {
     const target = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!target) throw new AppError('not_found', 'That account does not exist.');
     const values = change(target);
     if (!values) return;
+    const before = { role: target.role, isActive: Boolean(target.isActive) };
     if (Object.keys(values).length) await target.update(values, { transaction });
     await endAllSessions(userId, transaction);
+    const action = 'role' in values ? 'role' : 'isActive' in values ? (values.isActive ? 'reactivate' : 'deactivate') : 'end_sessions';
+    await writeAudit(transaction, actor, { objectType: 'account', objectId: userId, action, before, after: { ...before, ...values } });
   });
 }

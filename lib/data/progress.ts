@@ -1,6 +1,7 @@
 import 'server-only';
 import { Cohort, Joint, Method, Run, RunComment, RunVerdict, User } from '@/models';
 import type { CriterionResult } from '../assessment/judge-run';
+import { attemptKind, type AttemptKind } from '../qualification/attempt-kind';
 import { largestDeviationFromTarget } from '../stats/largest-deviation-from-target';
 import { assertRole, type SessionUser } from '../auth/session';
 import { criteriaForCohort, judgeInputs, judgeRuns } from './assessment';
@@ -8,6 +9,8 @@ import { criteriaForCohort, judgeInputs, judgeRuns } from './assessment';
 export interface ProgressRun {
   id: number;
   attempt: number;
+  /** Assessed attempt (witnessed by the course's instructor), practice or simulated. */
+  kind: AttemptKind;
   recordedAt: string;
   cohortName: string | null;
   methodName: string;
@@ -32,7 +35,7 @@ export async function traineeProgress(user: SessionUser | null): Promise<Trainee
     include: [
       { model: Method, as: 'method', attributes: ['name'] },
       { model: Joint, as: 'joint', attributes: ['name'] },
-      { model: Cohort, as: 'cohort', attributes: ['id', 'name'] },
+      { model: Cohort, as: 'cohort', attributes: ['id', 'name', 'instructorId'] },
     ],
     order: [['recordedAt', 'ASC'], ['id', 'ASC']],
   });
@@ -52,6 +55,7 @@ export async function traineeProgress(user: SessionUser | null): Promise<Trainee
     return {
       id: r.id,
       attempt: index + 1,
+      kind: attemptKind({ source: r.source, cohortInstructorId: r.cohort?.instructorId ?? null, recordedById: r.recordedById, assessedConfirmedById: r.assessedConfirmedById }),
       recordedAt: r.recordedAt.toISOString(),
       cohortName: r.cohort?.name ?? null,
       methodName: r.method.name,

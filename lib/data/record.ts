@@ -179,6 +179,7 @@ export async function resolveRunHeader(user: SessionUser, input: unknown, source
       methodId: method.id,
       lubricantId: lubricant.id,
       operatorId: operator.id,
+      recordedById: user.id,
       cohortId: fields.cohortId,
       targetLoadN: joint.targetLoadN,
       bandPercent: joint.bandPercent,

@@ -12,7 +12,7 @@ import { verifyPassword } from '@/lib/auth/passwords';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { jointTarget, storeFixtureRun } from './run-fixture';
-import { count, mailTo, sessionUserFor, tableCounts } from './support';
+import { count, demoPeople, mailTo, tableCounts } from './support';
 
 const stamp = Date.now().toString(36);
 const newAddress = (label: string) => `${label}.${stamp}@test.evenload.test`;
@@ -31,11 +31,7 @@ const linkIn = (text: string, path: 'welcome' | 'reset') => {
 };
 
 beforeAll(async () => {
-  instructor = await sessionUserFor(DEMO_ACCOUNTS.instructor);
-  otherInstructor = await sessionUserFor('kwame.duchesne@demo.evenload.test');
-  trainee = await sessionUserFor(DEMO_ACCOUNTS.trainee);
-  researcher = await sessionUserFor(DEMO_ACCOUNTS.researcher);
-  admin = await sessionUserFor(DEMO_ACCOUNTS.admin);
+  ({ instructor, otherInstructor, trainee, researcher, admin } = await demoPeople());
   cohortId = await createCohort(instructor, { name: `Test cohort ${stamp}`, site: 'Test bay (invented)', startsOn: '2026-12-01', endsOn: '2026-12-05' });
 });
 

@@ -61,6 +61,11 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/record/actions.ts', name: 'createStreamTokenAction', allowed: ['instructor'], call: () => record.createStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'revokeStreamTokenAction', allowed: ['instructor'], call: () => record.revokeStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
+  // Issue 17. Empty reasons and an already assessed run: callers who get past the role check change nothing.
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'confirmAttemptAction', allowed: ['instructor'], call: () => comments.confirmAttemptAction(ids.run, idle, form()) },
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setAsideAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.setAsideAction(ids.run, idle, form()) },
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'restoreRunAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.restoreRunAction(ids.run, idle, form()) },
+  { file: 'app/(lab)/cohorts/actions.ts', name: 'resendInviteAction', allowed: ['instructor', 'admin'], call: () => cohorts.resendInviteAction(ids.trainee, ids.cohort, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'endSessionsAction', allowed: ['admin'], call: () => people.endSessionsAction(ids.trainee, idle, form()) },

@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
 import type { SessionUser } from '@/lib/auth/session';
+import { DEMO_ACCOUNTS } from '../support/http-session';
 
 export const count = async (sql: string, replacements: unknown[] = []) =>
   Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT, replacements }))[0]!.n);
@@ -42,4 +43,15 @@ export async function actionOutcome<S>(call: Promise<S>): Promise<S | { redirect
     if (typeof digest === 'string' && digest.startsWith('NEXT_REDIRECT;')) return { redirectedTo: digest.split(';')[2]! };
     throw error;
   }
+}
+
+/** The demo's signed-in people most tests need (a second instructor teaches other cohorts). */
+export async function demoPeople() {
+  return {
+    instructor: await sessionUserFor(DEMO_ACCOUNTS.instructor),
+    otherInstructor: await sessionUserFor('kwame.duchesne@demo.evenload.test'),
+    trainee: await sessionUserFor(DEMO_ACCOUNTS.trainee),
+    researcher: await sessionUserFor(DEMO_ACCOUNTS.researcher),
+    admin: await sessionUserFor(DEMO_ACCOUNTS.admin),
+  };
 }

@@ -78,7 +78,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
       {summary.role === 'trainee' ? (
         <>
           <div className="grid gap-4 md:grid-cols-3">
-            <StatCard label="Your attempts" value={String(summary.attempts)} />
+            <StatCard label="Your runs" value={String(summary.attempts)} />
             <StatCard label="Evenness of your latest run (CV)" value={cv(summary.latest?.finalCv ?? null)} hint="Lower is more even. CV is the spread of the final stud loads relative to their mean." />
             <StatCard label="Your most even run so far" value={cv(summary.bestCv)} />
           </div>

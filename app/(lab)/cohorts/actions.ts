@@ -2,12 +2,12 @@
 
 import { revalidatePath } from 'next/cache';
 import { redirect } from 'next/navigation';
-import { okState } from '@/lib/http/form-state';
+import { okState, type FormState } from '@/lib/http/form-state';
 import { withActionRole } from '@/lib/http/server-action';
 import { saveCohortCriteria, sendRunResults, signOffRun } from '@/lib/data/assessment';
 import { COHORT_ROLES } from '@/lib/data/cohort-access';
 import { createCohort } from '@/lib/data/cohorts';
-import { inviteToCohort } from '@/lib/data/invitations';
+import { inviteToCohort, resendInvitation, type InviteOutcome } from '@/lib/data/invitations';
 
 const text = (form: FormData, name: string) => String(form.get(name) ?? '');
 
@@ -20,14 +20,25 @@ export const createCohortAction = withActionRole(COHORT_ROLES, async (user, form
 export const inviteAction = withActionRole(COHORT_ROLES, async (user, form, cohortId: number) => {
   const outcome = await inviteToCohort(user, cohortId, text(form, 'addresses'));
   revalidatePath(`/cohorts/${cohortId}`);
+  return inviteState(outcome);
+});
+
+/** A fresh invitation link for someone who has not set a password (cohort page: that cohort; People page: their latest cohort). */
+export const resendInviteAction = withActionRole(COHORT_ROLES, async (user, _form, userId: number, cohortId: number | null) => {
+  const outcome = await resendInvitation(user, userId, cohortId);
+  revalidatePath(cohortId === null ? '/people' : `/cohorts/${cohortId}`);
+  return inviteState(outcome);
+});
+
+function inviteState(outcome: InviteOutcome): FormState<{ handOver: InviteOutcome['handOver'] }> {
   const parts = [
     outcome.invited.length ? `Invited ${outcome.invited.length}: ${outcome.invited.join(', ')}.` : null,
     outcome.attached.length ? `Added ${outcome.attached.length} existing account${outcome.attached.length === 1 ? '' : 's'}: ${outcome.attached.join(', ')}.` : null,
     outcome.alreadyMembers.length ? `Already in the cohort: ${outcome.alreadyMembers.join(', ')}.` : null,
-    outcome.notSent.length ? `The e-mail to ${outcome.notSent.join(', ')} could not be sent; the invitation is saved — invite again to resend.` : null,
+    outcome.notSent.length ? `The e-mail to ${outcome.notSent.join(', ')} could not be sent; the invitation is saved. Copy the link below and hand it over another way, or resend later.` : null,
   ].filter(Boolean);
-  return { status: outcome.notSent.length === 0 ? 'ok' : 'error', message: parts.join(' ') };
-});
+  return { status: outcome.notSent.length === 0 ? 'ok' : 'error', message: parts.join(' '), data: { handOver: outcome.handOver } };
+}
 
 export const saveCriteriaAction = withActionRole(COHORT_ROLES, async (user, form, cohortId: number) => {
   await saveCohortCriteria(user, cohortId, {

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { PersonControls } from '@/components/people/person-controls';
+import { ResendInviteButton } from '@/components/cohorts/resend-invite-button';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { listPeople } from '@/lib/data/people';
 import { formatDate } from '@/lib/format/format-date';
@@ -16,6 +17,9 @@ export default async function PeoplePage() {
       <div>
         <h1 className="text-2xl font-semibold">People</h1>
         <p className="text-sm text-muted">Every account of the centre. A role change or a deactivation signs the person out everywhere within a minute; a deactivated account cannot sign in. Trainees join through their instructor&apos;s invitation.</p>
+        <p className="mt-2 text-sm">
+          <a href="/api/admin/audit-log" download className="underline underline-offset-4">Download the audit log (CSV)</a>: every change to runs, verdicts, criteria and accounts, with who, when, the reason, and the values before and after.
+        </p>
       </div>
       <table className="w-full rounded-card border border-rule bg-panel text-sm">
         <thead className="text-left text-muted">
@@ -27,7 +31,7 @@ export default async function PeoplePage() {
               <td className="px-3 py-1.5 font-medium">{p.name}</td>
               <td>{p.email}</td>
               <td>{ROLE_LABELS[p.role]}</td>
-              <td>{!p.isActive ? <span className="text-danger">deactivated</span> : p.pending ? <span className="text-caution">invited</span> : 'active'}</td>
+              <td>{!p.isActive ? <span className="text-danger">deactivated</span> : p.pending ? <><span className="text-caution">invited</span><div className="mt-1"><ResendInviteButton userId={p.id} cohortId={null} name={p.name} /></div></> : 'active'}</td>
               <td className="num">{formatDate(p.createdAt)}</td>
               <td className="py-1.5"><PersonControls userId={p.id} name={p.name} role={p.role} isActive={p.isActive} isSelf={p.id === user.id} /></td>
             </tr>

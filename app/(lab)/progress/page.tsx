@@ -12,6 +12,7 @@ import { requirePageUser } from '@/lib/auth/session';
 export const metadata: Metadata = { title: 'Progress' };
 export const dynamic = 'force-dynamic';
 
+const KIND_LABELS = { assessed: 'Assessed attempt', practice: 'Practice', simulated: 'Simulated (practice)' } as const;
 const pct = (value: number | null) => (value === null ? '—' : formatPercent(value));
 
 export default async function ProgressPage() {
@@ -49,11 +50,15 @@ export default async function ProgressPage() {
         <>
           <section aria-labelledby="chart-heading" className="rounded-card border border-rule bg-panel p-4">
             <h2 id="chart-heading" className="sr-only">Evenness over attempts</h2>
+            <p className="mb-2 text-sm">
+              <strong className="num">{progress.runs.filter((r) => r.kind === 'assessed').length}</strong> assessed attempts (witnessed by your instructor) ·{' '}
+              <strong className="num">{progress.runs.filter((r) => r.kind !== 'assessed').length}</strong> practice or simulated runs. Only assessed attempts count towards your course outcome.
+            </p>
             <ProgressChart points={progress.runs.map((r) => ({ attempt: r.attempt, cvPercent: r.cvPercent, largestDeviationPercent: r.largestDeviationPercent }))} cvLimit={limit('cv')} bandLimit={limit('band')} />
             <table className="mt-3 w-full text-sm">
               <caption className="text-left text-xs text-muted">The chart&apos;s figures as a table.</caption>
               <thead className="text-left text-muted">
-                <tr><th className="py-1">Attempt</th><th>Recorded</th><th>Method</th><th className="text-right">CV of final loads</th><th className="text-right">Largest deviation from target</th><th className="pl-3">Verdict</th></tr>
+                <tr><th className="py-1">Attempt</th><th>Recorded</th><th>Method</th><th className="text-right">CV of final loads</th><th className="text-right">Largest deviation from target</th><th className="pl-3">Counts as</th><th className="pl-3">Verdict</th></tr>
               </thead>
               <tbody className="num">
                 {progress.runs.map((r) => (
@@ -63,6 +68,7 @@ export default async function ProgressPage() {
                     <td>{r.methodName}</td>
                     <td className="text-right">{pct(r.cvPercent)}</td>
                     <td className="text-right">{pct(r.largestDeviationPercent)}</td>
+                    <td className="pl-3">{KIND_LABELS[r.kind]}</td>
                     <td className="pl-3">{r.verdict ? <span className={r.verdict.allMet ? 'text-good' : 'text-danger'}>{r.verdict.allMet ? 'All criteria met' : 'Not all met'}</span> : <span className="text-muted">not signed off</span>}</td>
                   </tr>
                 ))}

@@ -19,6 +19,8 @@ export interface RunHeader {
   notes?: string | null;
   setAsideReason?: string | null;
   setAsideById?: number | null;
+  /** Who put the run in (the signed-in person); the way in is `source`. */
+  recordedById?: number | null;
 }
 
 /** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */

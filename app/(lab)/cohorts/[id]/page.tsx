@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { CriteriaForm } from '@/components/cohorts/criteria-form';
 import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { InviteForm } from '@/components/cohorts/invite-form';
+import { ResendInviteButton } from '@/components/cohorts/resend-invite-button';
 import { SendResultsForm, SignOffForm } from '@/components/cohorts/verdict-forms';
 import { EmptyState } from '@/components/ui/empty-state';
 import { CRITERIA_LIMITS } from '@/lib/assessment/criteria';
@@ -20,7 +21,7 @@ export default async function CohortPage({ params }: { params: Promise<{ id: str
   const { id } = await params;
   const cohort = await orNotFound(() => cohortDetail(user, Number(id)));
   const complete = cohort.runs.filter((r) => r.status === 'complete').reverse();
-  const awaiting = complete.filter((r) => !r.verdict);
+  const awaiting = complete.filter((r) => !r.verdict && r.attemptKind !== 'simulated');
   const signed = complete.filter((r) => r.verdict);
   const employerOf = new Map(cohort.members.map((m) => [m.id, m.employerContact]));
   return (
@@ -53,15 +54,16 @@ export default async function CohortPage({ params }: { params: Promise<{ id: str
         ) : (
           <table className="mt-2 w-full text-sm">
             <thead className="text-left text-muted">
-              <tr><th className="py-1">Trainee</th><th>E-mail</th><th>Account</th><th className="text-right">Attempts</th><th className="text-right">Latest CV</th><th className="text-right">Criteria met (latest)</th><th className="text-right">Sheet</th></tr>
+              <tr><th className="py-1">Trainee</th><th>E-mail</th><th>Account</th><th className="text-right">Assessed attempts</th><th className="text-right">Practice</th><th className="text-right">Latest CV</th><th className="text-right">Criteria met (latest)</th><th className="text-right">Sheet</th></tr>
             </thead>
             <tbody className="num">
               {cohort.members.map((m) => (
                 <tr key={m.id} className="border-t border-rule">
                   <td className="py-1.5 font-medium">{m.name}</td>
                   <td>{m.email}</td>
-                  <td>{!m.isActive ? <span className="text-muted">deactivated</span> : m.pending ? <span className="text-caution">{m.inviteExpired ? 'invitation expired — invite again' : 'invited, password not set'}</span> : 'active'}</td>
+                  <td>{!m.isActive ? <span className="text-muted">deactivated</span> : m.pending ? <span className="text-caution">{m.inviteExpired ? 'invitation expired' : 'invited, password not set'}</span> : 'active'}{m.pending && m.isActive ? <div className="mt-1"><ResendInviteButton userId={m.id} cohortId={cohort.id} name={m.name} /></div> : null}</td>
                   <td className="text-right">{m.attempts}</td>
+                  <td className="text-right">{m.practiceRuns}</td>
                   <td className="text-right">{m.latestCv === null ? '—' : formatPercent(m.latestCv * 100)}</td>
                   <td className="text-right">{m.latestMet === null ? '—' : `${m.latestMet} of ${m.latestOf}`}</td>
                   <td className="text-right"><Link href={`/cohorts/${cohort.id}/trainees/${m.id}`} className="underline underline-offset-4">Result sheet</Link></td>
@@ -84,7 +86,10 @@ export default async function CohortPage({ params }: { params: Promise<{ id: str
               <span className="text-muted">{run.jointName}</span>
               <Link href={`/runs/${run.id}`} className="ml-auto underline underline-offset-4">Run report</Link>
             </header>
-            {run.judgement ? (
+            <p className="mb-2 text-sm text-muted">{run.sourceLine}</p>
+            {run.attemptKind === 'practice' ? (
+              <p className="text-sm text-caution">Practice run: the trainee recorded it. If you witnessed it, confirm that on the <Link href={`/runs/${run.id}`} className="underline underline-offset-4">run report</Link>; then it can be signed off.</p>
+            ) : run.judgement ? (
               <>
                 <CriterionTable results={run.judgement.results} caption={`Judgement of run ${run.id}`} />
                 <p className={`mt-2 text-sm font-medium ${run.judgement.allMet ? 'text-good' : 'text-danger'}`}>{run.judgement.allMet ? 'Every criterion met.' : 'Not every criterion met.'}</p>

@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { okState, type FieldErrors } from '@/lib/http/form-state';
 import { withActionRole } from '@/lib/http/server-action';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
+import { changeRunStatus, confirmAttempt } from '@/lib/data/qualification/attempts';
 
 /** Adds an instructor's comment to a run (bound to the run id on the page). */
 export const addCommentAction = withActionRole(['instructor', 'admin'], async (user, form, runId: number) => {
@@ -14,4 +15,25 @@ export const addCommentAction = withActionRole(['instructor', 'admin'], async (u
   await addRunComment(user, runId, parsed.data.body);
   revalidatePath(`/runs/${runId}`);
   return okState('Comment saved. The trainee sees it on this report.');
+});
+
+/** The cohort's instructor confirms they witnessed a trainee-recorded run (it becomes an assessed attempt). */
+export const confirmAttemptAction = withActionRole(['instructor'], async (user, _form, runId: number) => {
+  await confirmAttempt(user, runId);
+  revalidatePath(`/runs/${runId}`);
+  return okState('Confirmed: this run now counts as an assessed attempt and can be signed off.');
+});
+
+/** Sets a run aside with a reason (instructor, researcher for their own research runs, admin). */
+export const setAsideAction = withActionRole(['instructor', 'researcher', 'admin'], async (user, form, runId: number) => {
+  await changeRunStatus(user, runId, 'set_aside', form.get('reason'));
+  revalidatePath(`/runs/${runId}`);
+  return okState('Set aside. The run is kept on record but left out of comparisons, progress and assessments.');
+});
+
+/** Restores a set-aside run with a reason. */
+export const restoreRunAction = withActionRole(['instructor', 'researcher', 'admin'], async (user, form, runId: number) => {
+  await changeRunStatus(user, runId, 'complete', form.get('reason'));
+  revalidatePath(`/runs/${runId}`);
+  return okState('Restored. The run counts again.');
 });

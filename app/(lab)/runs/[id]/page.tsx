@@ -6,7 +6,10 @@ import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
 import { requirePageUser } from '@/lib/auth/session';
-import { addCommentAction } from './actions';
+import { runAttempt } from '@/lib/data/qualification/attempts';
+import { AttemptPanel } from '@/components/run-report/attempt-panel';
+import { AuditHistory } from '@/components/audit/audit-history';
+import { addCommentAction, confirmAttemptAction, restoreRunAction, setAsideAction } from './actions';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -19,15 +22,28 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
     if (isAppError(error) && error.code === 'not_found') notFound();
     throw error;
   });
+  const attempt = await runAttempt(user, parsed.data);
   const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
+  const id = parsed.data;
   return (
+    <>
     <RunReport
       header={loaded.header}
       analysis={analysis}
       comments={loaded.comments}
       units={user.units}
       role={user.role}
+      attempt={{ kind: attempt.kind, sourceLine: attempt.sourceLine }}
       commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
     />
+    <div className="mt-6 space-y-6">
+      <AttemptPanel actions={{
+        confirm: attempt.canConfirm ? confirmAttemptAction.bind(null, id) : null,
+        setAside: attempt.canSetAside ? setAsideAction.bind(null, id) : null,
+        restore: attempt.canRestore ? restoreRunAction.bind(null, id) : null,
+      }} />
+      {user.role === 'instructor' || user.role === 'admin' ? <AuditHistory entries={attempt.history} title="History of this run" /> : null}
+    </div>
+    </>
   );
 }
