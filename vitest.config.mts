@@ -4,8 +4,11 @@ import path from 'node:path';
 
 const alias = { '@': path.resolve(import.meta.dirname), 'server-only': path.resolve(import.meta.dirname, 'tests/support/server-only-stub.ts') };
 
-// Four projects: pure units (node), components (jsdom), integration against the real MariaDB
-// the test command starts, and end-to-end against the built app in Debian's Chromium.
+// Five projects: pure units (node), components (jsdom), integration against the real MariaDB
+// the test command starts, faults (a MariaDB of their own) and end-to-end against the built app in
+// Debian's Chromium. Integration and e2e share one app server for the run (global-app-server.ts);
+// e2e also shares one Chromium (global-browser.ts).
+const sharedServer = 'tests/support/global-app-server.ts';
 export default defineConfig({
   test: {
     projects: [
@@ -31,6 +34,7 @@ export default defineConfig({
           name: 'integration',
           environment: 'node',
           include: ['tests/{integration,api}/**/*.test.ts'],
+          globalSetup: [sharedServer],
           fileParallelism: false,
           testTimeout: 60_000,
           hookTimeout: 180_000,
@@ -53,6 +57,7 @@ export default defineConfig({
           name: 'e2e',
           environment: 'node',
           include: ['tests/e2e/**/*.test.ts'],
+          globalSetup: [sharedServer, 'tests/support/global-browser.ts'],
           fileParallelism: false,
           testTimeout: 120_000,
           hookTimeout: 180_000,

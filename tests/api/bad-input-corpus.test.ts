@@ -1,7 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { BAD_INPUTS, type Caller } from './bad-inputs';
 
@@ -25,7 +26,7 @@ async function rowCounts(): Promise<Record<string, number>> {
 }
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   sessions.anonymous = anonymous(server.baseUrl);
   for (const role of ['admin', 'instructor', 'researcher', 'trainee'] as const) sessions[role] = await signInAs(server.baseUrl, DEMO_ACCOUNTS[role]);
   const [other] = await sequelize.query<{ id: number }>(
@@ -37,7 +38,6 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await server?.stop();
   await sequelize.close();
 });
 

@@ -10,7 +10,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import { SERVER_ACTION_BODY_LIMIT_BYTES } from '@/proxy';
 import { FOUR_STUD_JOINT } from '../ingest/joints';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { createTestJoint, dropTestJoints, firstIds, goodFile, header, mappingFor, tableCounts, userId } from '../support/record-fixtures';
 
@@ -19,14 +20,13 @@ let instructor: HttpSession;
 let jointId: number;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   instructor = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
   jointId = await createTestJoint(4, 'origin');
 });
 
 afterAll(async () => {
   await dropTestJoints([jointId]);
-  await server?.stop();
   await sequelize.close();
 });
 

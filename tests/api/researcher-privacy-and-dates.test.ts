@@ -4,7 +4,8 @@ import { sequelize } from '@/lib/platform/db';
 import type { CompareResponse } from '@/lib/data/compare';
 import type { LoadedRun } from '@/lib/data/run-report';
 import type { RunFilterOptions } from '@/lib/data/runs';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 
 // Issue 13 (low findings): researchers saw free text with real names and user ids; impossible
@@ -18,7 +19,7 @@ let savedNotes: string | null;
 const COMMENT_TAG = `itest-privacy-${Date.now()}`;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   researcher = await signInAs(server.baseUrl, DEMO_ACCOUNTS.researcher);
   instructor = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
   const [row] = await sequelize.query<{ id: number; operator_id: number; name: string; notes: string | null; instructor_id: number }>(
@@ -37,7 +38,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await sequelize.query('UPDATE runs SET notes = ? WHERE id = ?', { replacements: [savedNotes, runId] });
   await sequelize.query('DELETE FROM run_comments WHERE body LIKE ?', { replacements: [`${COMMENT_TAG}%`] });
-  await server?.stop();
   await sequelize.close();
 });
 

@@ -3,7 +3,8 @@ import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { EXEMPT_ROUTES, ROUTE_MATRIX, type Caller } from './route-matrix';
 
@@ -27,7 +28,7 @@ const placeholders: Record<string, string> = {};
 const resolvePath = (template: string) => template.replace(/\{(\w+)\}/g, (_, name: string) => placeholders[name] ?? `{${name}}`);
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   // A run of a trainee (not the demo trainee) in a cohort the demo instructor teaches.
   const [run] = await sequelize.query<{ id: number }>(
     `SELECT r.id FROM runs r JOIN cohorts c ON c.id = r.cohort_id JOIN users i ON i.id = c.instructor_id
@@ -42,7 +43,6 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await server?.stop();
   await sequelize.close();
 });
 

@@ -2,7 +2,8 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import type { RunPage } from '@/lib/data/runs';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 
 let server: AppServer;
@@ -14,14 +15,13 @@ const count = async (sql: string, replacements: unknown[] = []) =>
   Number((await sequelize.query<{ n: number }>(sql, { type: QueryTypes.SELECT, replacements }))[0]!.n);
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   researcher = await signInAs(server.baseUrl, DEMO_ACCOUNTS.researcher);
   trainee = await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee);
   instructor = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
 });
 
 afterAll(async () => {
-  await server?.stop();
   await sequelize.close();
 });
 

@@ -2,19 +2,19 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startAppServer, type AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 
 const root = path.resolve(__dirname, '../..');
 let server: AppServer;
 let httpsServer: AppServer;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   // The same build started as it would be behind TLS: cookies must then be Secure.
   httpsServer = await startAppServer(Number(process.env.EVENLOAD_TEST_PORT ?? 3100) + 7, { NEXTAUTH_URL: 'https://evenload.example.test' });
 });
 
 afterAll(async () => {
-  await server?.stop();
   await httpsServer?.stop();
 });
 

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SIGN_IN_LIMIT, signInKeys } from '@/lib/data/sign-in-throttle';
 import { sequelize } from '@/lib/platform/db';
 import { startAppServer, type AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_PASSWORD, signIn } from '../support/http-session';
 
 let server: AppServer;
@@ -10,7 +11,7 @@ let behindProxy: AppServer;
 let victim: string;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   // The same build as it runs behind a load balancer on loopback: X-Forwarded-For from 127.x is believed.
   behindProxy = await startAppServer(Number(process.env.EVENLOAD_TEST_PORT ?? 3100) + 9, { EVENLOAD_TRUSTED_PROXIES: '127.0.0.0/8' });
   const [row] = await sequelize.query<{ email: string }>(
@@ -23,7 +24,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await sequelize.query('DELETE FROM sign_in_attempts');
-  await server?.stop();
   await behindProxy?.stop();
   await sequelize.close();
 });

@@ -13,7 +13,8 @@ import { sequelize } from '@/lib/platform/db';
 import { createStreamToken, revokeStreamToken } from '@/lib/data/stream-tokens';
 import { finishRecording, startRecording } from '@/lib/data/runs/live-stream';
 import type { SessionUser } from '@/lib/auth/session';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { createTestJoint, dropTestJoints, firstIds, header, kN, storedSteps } from '../support/record-fixtures';
 import { sessionUserOf } from '../support/session-users';
@@ -27,7 +28,7 @@ let otherJointId: number;
 let ids: { methodId: number; lubricantId: number };
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   instructorHttp = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
   instructor = await sessionUserOf(DEMO_ACCOUNTS.instructor);
   jointId = await createTestJoint(4, 'stream');
@@ -37,7 +38,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await dropTestJoints([jointId, otherJointId]);
-  await server?.stop();
   await sequelize.close();
 });
 

@@ -7,7 +7,8 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { CORPUS_DIR, createTestJoint, dropTestJoints, firstIds, header, postUpload, tableCounts, userId } from '../support/record-fixtures';
 import { CORPUS_JOINT } from '../ingest/joints';
@@ -25,7 +26,7 @@ let jointId: number;
 let runHeader: ReturnType<typeof header>;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   instructor = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
   jointId = await createTestJoint(CORPUS_JOINT.studCount, 'corpus');
   runHeader = header(jointId, await userId(DEMO_ACCOUNTS.instructor), await firstIds());
@@ -33,7 +34,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await dropTestJoints([jointId]);
-  await server?.stop();
   await sequelize.close();
 });
 

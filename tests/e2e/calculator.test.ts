@@ -1,20 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
-import { DEMO_ACCOUNTS } from '../support/http-session';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 
 let server: AppServer;
 let browser: Browser;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
 });
 
 const row = (page: Page, label: string) => page.locator('dt', { hasText: label }).first().locator('xpath=following-sibling::dd[1]');
@@ -27,8 +26,7 @@ const numberIn = (text: string | null) => Number((text ?? '').replace(/[^0-9.]/g
 // = 297.6 N·m (computed).
 describe('the calculator in Chromium, in both unit systems', () => {
   it('computes the worked 3/4-10 B7 example in SI, then in US customary units after switching', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.trainee);
+    const page = await signedInPage(browser, server.baseUrl, 'trainee', { viewport: { width: 1280, height: 1000 } });
     await page.getByRole('link', { name: 'Calculator' }).click();
     await page.getByRole('heading', { name: 'Preload and torque calculator' }).waitFor();
 
@@ -49,6 +47,6 @@ describe('the calculator in Chromium, in both unit systems', () => {
     expect(Math.abs(numberIn(usTorque) - 219.5) / 219.5).toBeLessThan(0.005);
     await expect.poll(() => page.getByText('Caution', { exact: false }).count()).toBeGreaterThan(0);
     await page.screenshot({ path: screenshotPath('calculator-us'), fullPage: true });
-    await page.close();
+    await page.context().close();
   });
 });

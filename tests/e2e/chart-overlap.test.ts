@@ -4,8 +4,9 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 /**
@@ -37,7 +38,7 @@ const lubricantIds: number[] = [];
 const copiedRuns: number[] = [];
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
   const [run] = await sequelize.query<{ id: number }>(
     `SELECT r.id FROM runs r JOIN cohorts c ON c.id = r.cohort_id JOIN users i ON i.id = c.instructor_id
@@ -79,7 +80,6 @@ afterAll(async () => {
   if (copiedRuns.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [copiedRuns] });
   if (lubricantIds.length) await sequelize.query('DELETE FROM lubricants WHERE id IN (?)', { replacements: [lubricantIds] });
   await browser?.close();
-  await server?.stop();
   await sequelize.close();
 });
 
@@ -117,13 +117,15 @@ async function overlaps(page: Page): Promise<Overlap[]> {
 }
 
 async function openAt(role: keyof typeof DEMO_ACCOUNTS, width: number): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width, height: 900 } });
-  const page = await context.newPage();
-  page.on('pageerror', (error) => console.error(`page error at ${width} px: ${error.message}`));
-  page.on('console', (message) => {
-    if (message.type() === 'error') console.error(`console error at ${width} px: ${message.text().slice(0, 2000)}`);
+  const page = await signedInPage(browser, server.baseUrl, role, {
+    viewport: { width, height: 900 },
+    beforeSignIn: (page) => {
+      page.on('pageerror', (error) => console.error(`page error at ${width} px: ${error.message}`));
+      page.on('console', (message) => {
+        if (message.type() === 'error') console.error(`console error at ${width} px: ${message.text().slice(0, 2000)}`);
+      });
+    },
   });
-  await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
   return page;
 }
 

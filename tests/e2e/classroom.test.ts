@@ -1,39 +1,34 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
-import { DEMO_ACCOUNTS } from '../support/http-session';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 
 let server: AppServer;
 let browser: Browser;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
   await sequelize.close();
 });
 
 describe('the classroom in Chromium', () => {
   it('sends a trainee away from /classroom and shows no Classroom link', async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.trainee);
+    const page = await signedInPage(browser, server.baseUrl, 'trainee');
     expect(await page.getByRole('link', { name: 'Classroom', exact: true }).count()).toBe(0);
     await page.goto(`${server.baseUrl}/classroom`);
     await page.waitForURL(/notice=not-allowed/);
-    await context.close();
+    await page.context().close();
   });
 
   it('lets an instructor pick a scene and step through it with the keyboard to the figures and the reading', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 720 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+    const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 720 } });
     await page.getByRole('link', { name: 'Classroom', exact: true }).click();
     await page.waitForURL(`${server.baseUrl}/classroom`);
     // Reorder: move "Cross or circle" to the top; the order lands in the URL.
@@ -71,6 +66,6 @@ describe('the classroom in Chromium', () => {
     await page.getByText('all studs snug, nothing tightened yet').waitFor();
     await page.keyboard.press('n');
     await page.getByRole('heading', { name: 'Dry or lubricated', level: 1 }).waitFor();
-    await context.close();
+    await page.context().close();
   });
 });

@@ -3,8 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
 import { storeFixtureRun } from '../integration/run-fixture';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage, signInThroughForm } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 let server: AppServer;
@@ -43,13 +44,12 @@ function figures(loads: number[], target: number) {
 const asShown = (percent: number) => `${percent.toPrecision(3)}\u00a0%`;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
   if (cohortId) {
     await sequelize.query('DELETE FROM runs WHERE cohort_id = ?', { replacements: [cohortId] });
     await sequelize.query('DELETE FROM cohorts WHERE id = ?', { replacements: [cohortId] });
@@ -62,9 +62,8 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
   let instructorContext: BrowserContext;
 
   it('creates a cohort, refuses a list with a bad address, invites a new trainee', async () => {
-    instructorContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await instructorContext.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+    const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 900 } });
+    instructorContext = page.context();
     await page.getByRole('link', { name: 'Cohorts', exact: true }).click();
     await page.waitForURL(`${server.baseUrl}/cohorts`);
     await page.getByLabel('Course name').fill(cohortName);
@@ -171,15 +170,13 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
   });
 
   it('the trainee sees the progress page with the chart, criteria and the comment', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, traineeEmail, 'tight in three passes');
+    const page = await signedInPage(browser, server.baseUrl, { email: traineeEmail, password: 'tight in three passes' }, { viewport: { width: 1280, height: 900 } });
     await page.getByRole('link', { name: 'Progress', exact: true }).click();
     await page.waitForURL(`${server.baseUrl}/progress`);
     await page.locator('svg').filter({ has: page.locator('text') }).first().waitFor();
     await page.getByText('Stud 5 ended high').waitFor();
     await page.screenshot({ path: screenshotPath('cohort-progress'), fullPage: true });
-    await context.close();
+    await page.context().close();
   });
 
   it('hides the development outbox in a production build without EVENLOAD_OUTBOX=1', async () => {

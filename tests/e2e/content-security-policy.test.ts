@@ -9,9 +9,9 @@ import { QueryTypes } from 'sequelize';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, signInThroughForm } from '../support/browser';
-import { DEMO_ACCOUNTS } from '../support/http-session';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, signedInPage } from '../support/browser';
 import { createTestJoint, dropTestJoints, GOOD_DIR } from '../support/record-fixtures';
 
 let server: AppServer;
@@ -29,7 +29,7 @@ async function firstId(sql: string): Promise<number> {
 }
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
   jointId = await createTestJoint(4, 'csp');
   const [joint] = await sequelize.query<{ name: string }>('SELECT name FROM joints WHERE id = ?', { type: QueryTypes.SELECT, replacements: [jointId] });
@@ -50,7 +50,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
   await dropTestJoints([jointId]);
-  await server?.stop();
   await sequelize.close();
 });
 
@@ -87,9 +86,7 @@ describe('no CSP violation on any page', () => {
 
   for (const role of ['admin', 'instructor', 'researcher', 'trainee'] as const) {
     it(`as ${role}`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-      const page = await context.newPage();
-      await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
+      const page = await signedInPage(browser, server.baseUrl, role, { viewport: { width: 1280, height: 900 } });
       const charts: Record<string, number> = {};
       const found = await violationsOn(page, labPages, async (route) => {
         // Hydrated: React has attached to the page (a blocked script would leave it inert).
@@ -104,7 +101,7 @@ describe('no CSP violation on any page', () => {
       });
       expect(found).toEqual([]);
       for (const [route, count] of Object.entries(charts)) expect(count, `charts drawn on ${route}`).toBeGreaterThan(0);
-      await context.close();
+      await page.context().close();
     });
   }
 });

@@ -1,42 +1,37 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
-import { DEMO_ACCOUNTS } from '../support/http-session';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 
 let server: AppServer;
 let browser: Browser;
 const JOINT_NAME = `E2E 8-stud joint ${Date.now()}`;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
   await sequelize.query('DELETE FROM joints WHERE name = ?', { replacements: [JOINT_NAME] });
   await sequelize.close();
 });
 
 describe('the joint library in Chromium', () => {
   it('sends a trainee away from /joints with the not-allowed notice', async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.trainee);
+    const page = await signedInPage(browser, server.baseUrl, 'trainee');
     expect(await page.getByRole('link', { name: 'Joints', exact: true }).count()).toBe(0);
     await page.goto(`${server.baseUrl}/joints`);
     await page.waitForURL(/notice=not-allowed/);
     await page.getByText('That page is not open to your role').waitFor();
-    await context.close();
+    await page.context().close();
   });
 
   it('lets an instructor create an 8-stud 5/8-11 B7 joint at 50 % of yield and see it listed', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+    const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 900 } });
     await page.getByRole('link', { name: 'Joints', exact: true }).click();
     await page.waitForURL(`${server.baseUrl}/joints`);
     await page.getByRole('link', { name: 'New joint' }).click();
@@ -66,13 +61,11 @@ describe('the joint library in Chromium', () => {
     expect(await row.textContent()).toContain('5/8-11 UNC');
     expect(await row.textContent()).toContain('ASTM A193 B7');
     await page.screenshot({ path: screenshotPath('joints-library'), fullPage: true });
-    await context.close();
+    await page.context().close();
   });
 
   it('generates a cross order for a new method and names a repeated stud', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+    const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 900 } });
     await page.goto(`${server.baseUrl}/joints/methods/new`);
     await page.getByRole('button', { name: 'Generate cross order' }).click();
     const order8 = page.getByLabel('Order, 8 studs', { exact: true });
@@ -82,13 +75,11 @@ describe('the joint library in Chromium', () => {
     await order8.fill('1 5 3 7 2 6 4 4');
     await page.getByText('Pass order misses position 8; repeats position 4.').waitFor();
     await page.screenshot({ path: screenshotPath('joints-method-duplicate'), fullPage: true });
-    await context.close();
+    await page.context().close();
   });
 
   it('shows a joint with runs with its stud count fixed and the new-runs-only note', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.admin);
+    const page = await signedInPage(browser, server.baseUrl, 'admin', { viewport: { width: 1280, height: 900 } });
     await page.goto(`${server.baseUrl}/joints`);
     await page.getByRole('link', { name: /^Training flange A/ }).click();
     await page.waitForURL(/\/joints\/\d+$/);
@@ -98,6 +89,6 @@ describe('the joint library in Chromium', () => {
     await page.screenshot({ path: screenshotPath('joints-edit-with-runs'), fullPage: true });
     await page.goto(`${server.baseUrl}/joints/999999`);
     await page.getByRole('heading', { name: 'There is no such joint' }).waitFor();
-    await context.close();
+    await page.context().close();
   });
 });

@@ -3,8 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
 import { DEMO_NOTICE } from '@/lib/demo/notice';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 // Screens are projected in front of trainees and auditors: they must not carry notes meant for
@@ -40,7 +41,7 @@ async function firstId(sql: string, replacements: unknown[] = []): Promise<numbe
 }
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
   ids.joint = await firstId('SELECT id FROM joints ORDER BY id LIMIT 1');
   ids.lubricant = await firstId('SELECT id FROM lubricants ORDER BY id LIMIT 1');
@@ -54,7 +55,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
   await sequelize.close();
 });
 
@@ -120,9 +120,7 @@ function findingsIn(role: Role, url: string, text: string): Finding[] {
 describe('visible page text carries no developer notes', () => {
   for (const role of Object.keys(DEMO_ACCOUNTS) as Role[]) {
     it(`shows the ${role} no developer note on any page, and the demo-data line once`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-      const page = await context.newPage();
-      await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
+      const page = await signedInPage(browser, server.baseUrl, role, { viewport: { width: 1366, height: 900 } });
       const findings: Finding[] = [];
       let demoLines = 0;
       for (const url of pagesFor(role)) {
@@ -131,7 +129,7 @@ describe('visible page text carries no developer notes', () => {
           if (text.includes(DEMO_NOTICE)) demoLines += 1;
         }
       }
-      await context.close();
+      await page.context().close();
       expect(findings).toEqual([]);
       // The test database holds the demo data, so the footer line is on the pages.
       expect(demoLines).toBeGreaterThan(0);

@@ -10,9 +10,9 @@ import { QueryTypes } from 'sequelize';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
-import { DEMO_ACCOUNTS } from '../support/http-session';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { createTestJoint, dropTestJoints, GOOD_DIR } from '../support/record-fixtures';
 import { runBridge, wideFixtureAsStream } from '../support/stream-fixture';
 
@@ -23,19 +23,17 @@ let jointId: number;
 let jointName: string;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   jointId = await createTestJoint(4, 'e2e');
   const [row] = await sequelize.query<{ name: string }>('SELECT name FROM joints WHERE id = ?', { type: QueryTypes.SELECT, replacements: [jointId] });
   jointName = row!.name;
   browser = await launchBrowser();
-  page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
-  await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+  page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 1000 } });
 });
 
 afterAll(async () => {
   await browser?.close();
   await dropTestJoints([jointId]);
-  await server?.stop();
   await sequelize.close();
 });
 

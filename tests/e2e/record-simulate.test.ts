@@ -2,8 +2,9 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 let server: AppServer;
@@ -11,21 +12,19 @@ let browser: Browser;
 let savedRun: number | null = null;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   if (savedRun) await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [savedRun] });
   await browser?.close();
-  await server?.stop();
   await sequelize.close();
 });
 
 describe('Simulate on the record page', () => {
   it('lets a trainee simulate a run, save it, and open its report', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.trainee);
+    const page = await signedInPage(browser, server.baseUrl, 'trainee', { viewport: { width: 1280, height: 900 } });
     await page.goto(`${server.baseUrl}/record`);
     await page.getByRole('tab', { name: 'Simulate' }).click();
     await page.getByLabel('Seed').fill('31415');
@@ -38,6 +37,6 @@ describe('Simulate on the record page', () => {
     await page.screenshot({ path: screenshotPath('record-simulate'), fullPage: true });
     await page.getByRole('link', { name: `Open run ${savedRun}` }).click();
     await page.getByRole('heading', { name: 'How even were your final loads?' }).waitFor();
-    await page.close();
+    await page.context().close();
   });
 });

@@ -2,8 +2,9 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 let server: AppServer;
@@ -12,7 +13,7 @@ let othersRun: number; // a run of another trainee in the demo instructor's coho
 let ownRun: number; // a run of the demo trainee
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
   const [other] = await sequelize.query<{ id: number }>(
     `SELECT r.id FROM runs r JOIN cohorts c ON c.id = r.cohort_id JOIN users i ON i.id = c.instructor_id JOIN users o ON o.id = r.operator_id
@@ -29,7 +30,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
   await sequelize.close();
 });
 
@@ -37,13 +37,13 @@ afterAll(async () => {
 const cspViolations: string[] = [];
 
 async function signedIn(role: keyof typeof DEMO_ACCOUNTS): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-  const page = await context.newPage();
-  page.on('console', (message) => {
-    if (/Content Security Policy|Refused to (load|execute|apply|connect)/i.test(message.text())) cspViolations.push(message.text());
+  return signedInPage(browser, server.baseUrl, role, {
+    viewport: { width: 1366, height: 900 },
+    beforeSignIn: (page) =>
+      page.on('console', (message) => {
+        if (/Content Security Policy|Refused to (load|execute|apply|connect)/i.test(message.text())) cspViolations.push(message.text());
+      }),
   });
-  await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
-  return page;
 }
 
 describe('run report in Chromium', () => {

@@ -1,20 +1,20 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { startAppServer, type AppServer } from '../support/app-server';
-import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import type { AppServer } from '../support/app-server';
+import { sharedAppServer } from '../support/shared-app-server';
+import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 
 let server: AppServer;
 let browser: Browser;
 
 beforeAll(async () => {
-  server = await startAppServer();
+  server = sharedAppServer();
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await server?.stop();
 });
 
 const HOME_MARKERS = {
@@ -44,16 +44,14 @@ describe('signing in through the form in Chromium', () => {
 
   for (const role of ['admin', 'instructor', 'researcher', 'trainee'] as const) {
     it(`signs in as ${role}, sees the ${role} home and the runs table`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-      const page = await context.newPage();
-      await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS[role]);
+      const page = await signedInPage(browser, server.baseUrl, role, { viewport: { width: 1280, height: 900 } });
       await page.getByRole('heading', { name: HOME_MARKERS[role], exact: true }).waitFor();
       await page.screenshot({ path: screenshotPath(`home-${role}`), fullPage: true });
       await page.getByRole('link', { name: 'Runs', exact: true }).click();
       await page.waitForURL(`${server.baseUrl}/runs`);
       await expect.poll(() => page.locator('tbody tr').count(), { timeout: 15_000 }).toBeGreaterThan(0);
       await page.screenshot({ path: screenshotPath(`runs-${role}`), fullPage: true });
-      await context.close();
+      await page.context().close();
     });
   }
 });

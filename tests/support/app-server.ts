@@ -1,5 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { appendFileSync, createWriteStream } from 'node:fs';
+import { createServer } from 'node:net';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '../..');
@@ -12,10 +13,44 @@ export interface AppServer {
 }
 
 /**
- * Starts the built app (through scripts/serve.ts, as `npm start` does) against the test database on its own port and waits until
- * /api/health answers. The test command builds the app first.
+ * The app server a test file should use. Inside the integration and e2e projects the one server their global set-up
+ * (tests/support/global-app-server.ts) started for the whole run is returned, with a `stop` that leaves it running,
+ * unless the file asks for settings of its own (`extraEnv`) or a port other than the shared one: then a server of its
+ * own is started, on a free port when none is given. Outside vitest (the bench) it always starts a server.
  */
-export async function startAppServer(port = Number(process.env.EVENLOAD_TEST_PORT ?? 3100), extraEnv: Record<string, string> = {}): Promise<AppServer> {
+export async function startAppServer(port?: number, extraEnv: Record<string, string> = {}): Promise<AppServer> {
+  const shared = await sharedServerOfThisRun();
+  if (!shared) return launchAppServer(port ?? Number(process.env.EVENLOAD_TEST_PORT ?? 3100), extraEnv);
+  const sharedPort = Number(new URL(shared.baseUrl).port);
+  if (port !== undefined && port !== sharedPort) return launchAppServer(port, extraEnv);
+  if (Object.keys(extraEnv).length === 0) return shared;
+  return launchAppServer(await freePort(), extraEnv);
+}
+
+/** The run's shared server, when this code runs in a vitest worker of a project with the shared-server global set-up. */
+async function sharedServerOfThisRun(): Promise<AppServer | undefined> {
+  if (!process.env.VITEST_WORKER_ID) return undefined;
+  const { sharedAppServerIfAny } = await import('./shared-app-server');
+  return sharedAppServerIfAny();
+}
+
+/** A port the system has free right now (asked of the OS with port 0). */
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no free port'))));
+    });
+  });
+}
+
+/**
+ * Starts the built app (through scripts/serve.ts, as `npm start` does) against the test database on the given port and
+ * waits until /api/health answers. The test command builds the app first.
+ */
+export async function launchAppServer(port: number, extraEnv: Record<string, string> = {}): Promise<AppServer> {
   const baseUrl = `http://127.0.0.1:${port}`;
   const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), ['scripts/serve.ts', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,

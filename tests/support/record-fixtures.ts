@@ -105,9 +105,9 @@ export const kN = (...v: number[]) => v.map((x) => x * 1000);
 
 /** The shared set-up of the upload tests: the app, an instructor and a trainee signed in, a 4-stud test joint. */
 export async function startUploadTestbed(tag: string) {
-  const { startAppServer } = await import('./app-server');
+  const { sharedAppServer } = await import('./shared-app-server');
   const { DEMO_ACCOUNTS, signInAs } = await import('./http-session');
-  const server = await startAppServer();
+  const server = sharedAppServer();
   const testbed = {
     server,
     instructor: await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor),
@@ -118,7 +118,6 @@ export async function startUploadTestbed(tag: string) {
     ids: await firstIds(),
     async stop() {
       await dropTestJoints([testbed.jointId]);
-      await server.stop();
       await sequelize.close();
     },
   };
