@@ -10,6 +10,7 @@ import { Method } from './method';
 import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
+import { SavedComparison } from './saved-comparison';
 import { RunComment } from './run-comment';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
@@ -21,7 +22,7 @@ import { UserSession } from './user-session';
 
 // Module code runs once per module instance: init and wire the models here.
 {
-  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession]) {
+  for (const model of [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, SavedComparison]) {
     model.initModel(sequelize);
   }
 
@@ -44,6 +45,7 @@ import { UserSession } from './user-session';
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
+  SavedComparison.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, OneTimeToken, RunVerdict, CohortMember, SavedComparison, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
