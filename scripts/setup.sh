@@ -40,7 +40,8 @@ evenload_mail_fake() {
   fi
   setsid node_modules/.bin/tsx scripts/mail-fake.ts </dev/null >".data/mail-fake-${SMTP_PORT}.log" 2>&1 &
   echo $! > "$pid_file"
-  for _ in $(seq 1 50); do
+  # Up to 60 s: tsx compiles the fake on start, which takes long on a loaded 2-core machine.
+  for _ in $(seq 1 300); do
     if (exec 3<>"/dev/tcp/127.0.0.1/${SMTP_PORT}") 2>/dev/null; then
       evenload_log "mail fake listening on 127.0.0.1:${SMTP_PORT} (pid $(cat "$pid_file"), log .data/mail-fake-${SMTP_PORT}.log)"
       return
