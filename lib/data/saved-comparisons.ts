@@ -55,7 +55,7 @@ export async function freezeComparison(user: SessionUser, input: { title: string
   if (runs.length === 0) throw new AppError('invalid_input', 'There are no runs in this comparison to freeze.');
   if (runs.length > MAX_FROZEN_RUNS) throw new AppError('invalid_input', `A saved comparison holds at most ${MAX_FROZEN_RUNS} runs; this one has ${runs.length}. Narrow the filters first.`);
   if (runs.length !== results.totalRuns) throw new AppError('conflict', 'Runs changed while the comparison was being frozen. Try again.');
-  const slug = randomBytes(8).toString('base64url').replace(/[-_]/g, 'x').slice(0, 12).toLowerCase();
+  const slug = randomBytes(9).toString('base64url').replace(/[-_]/g, 'x').slice(0, 12).toLowerCase();
   const { dataSha256 } = await dataTables(slug, runs, labelsOf(results));
   await SavedComparison.create({
     slug,

@@ -14,27 +14,25 @@ import { QueryTypes } from 'sequelize';
 import { unzipSync, strFromU8 } from 'fflate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { compareQuerySchema } from '@/lib/data/compare';
-import { freezeComparison } from '@/lib/data/saved-comparisons';
 import { headlineOf, type Headline } from '@/lib/saved-comparisons/headline';
 import type { CompareResponse } from '@/lib/data/compare';
 import { startAppServer, type AppServer } from '../support/app-server';
 import { anonymous, DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
 import { count, sessionUserFor } from '../integration/support';
+import { freezeDemoComparison } from '../support/saved-comparison';
 
 const PYTHON = '/usr/bin/python3';
 let server: AppServer;
 let researcher: HttpSession;
 let slug: string;
+let remove: () => Promise<void> = async () => {};
 let frozen: { headline: Headline; dataSha256: string; results: CompareResponse };
 let files: Record<string, Uint8Array>;
 let root: string;
 const workDir = mkdtempSync(path.join(tmpdir(), 'evenload-package-'));
 
 beforeAll(async () => {
-  // The demo's simulated runs: several methods with many runs each, so every headline test runs.
-  const query = compareQuerySchema.parse({ by: 'method', source: 'simulated' });
-  ({ slug } = await freezeComparison(await sessionUserFor(DEMO_ACCOUNTS.researcher), { title: 'Methods on simulated runs (package test)', query }));
+  ({ slug, remove } = await freezeDemoComparison('Methods on simulated runs (package test)'));
   const [row] = await sequelize.query<{ results_json: string; data_sha256: string }>('SELECT results_json, data_sha256 FROM saved_comparisons WHERE slug = ?', { type: QueryTypes.SELECT, replacements: [slug] });
   const results = JSON.parse(row!.results_json) as CompareResponse;
   frozen = { headline: headlineOf(results), dataSha256: row!.data_sha256, results };
@@ -53,7 +51,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await sequelize.query('DELETE FROM saved_comparisons WHERE slug = ?', { replacements: [slug] });
+  await remove();
   rmSync(workDir, { recursive: true, force: true });
   await server?.stop();
   await sequelize.close();
@@ -66,6 +64,32 @@ function expectRelative(actual: number, expected: number, what: string) {
   expect(Number.isFinite(actual), what).toBe(true);
   expect(Math.abs(actual - expected), `${what}: ${actual} against ${expected}`).toBeLessThanOrEqual(1e-9 * Math.abs(expected));
 }
+
+describe('who may open a saved comparison', () => {
+  it('shows the frozen page with its citation to the researcher, and 404 for an unknown link', async () => {
+    const page = await researcher.get(`/compare/saved/${slug}`);
+    expect(page.status).toBe(200);
+    const html = await page.text();
+    expect(html).toContain('Methods on simulated runs (package test)');
+    expect(html).toContain(frozen.dataSha256);
+    expect((await researcher.get('/compare/saved/zzzzzzzzzzzz')).status).toBe(404);
+  });
+
+  it('keeps the package from visitors, trainees, and instructors who may not see all of its runs', async () => {
+    expect((await anonymous(server.baseUrl).get(`/api/compare/saved/${slug}/package`)).status).toBe(401);
+    const trainee = await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee);
+    expect((await trainee.get(`/api/compare/saved/${slug}/package`)).status).toBe(403);
+    const instructor = await sessionUserFor(DEMO_ACCOUNTS.instructor);
+    const runIds = frozen.results.totalRuns;
+    const visible = await count(
+      `SELECT COUNT(*) AS n FROM runs r JOIN (SELECT id FROM runs WHERE status = 'complete' AND source = 'simulated' AND final_loads_json IS NOT NULL) s ON s.id = r.id
+       WHERE r.operator_id = ? OR r.cohort_id IN (SELECT id FROM cohorts WHERE instructor_id = ?)`,
+      [instructor.id, instructor.id],
+    );
+    const session = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
+    expect((await session.get(`/api/compare/saved/${slug}/package`)).status).toBe(visible === runIds ? 200 : 404);
+  });
+});
 
 describe('a saved comparison’s data package', () => {
   it('lists every file in its SHA-256 manifest with the right hash', () => {
@@ -128,31 +152,5 @@ describe('a saved comparison’s data package', () => {
     // CV ratio: exp of statsmodels CompareMeans.tconfint_diff(usevar="unequal") on ln CV.
     expect(frozen.headline.cvRatio!.label).toBe(python.cvRatio!.label);
     for (const part of ['ratio', 'lower', 'upper'] as const) expectRelative(frozen.headline.cvRatio![part], python.cvRatio![part], `CV ratio ${part}`);
-  });
-});
-
-describe('who may open a saved comparison', () => {
-  it('shows the frozen page with its citation to the researcher, and 404 for an unknown link', async () => {
-    const page = await researcher.get(`/compare/saved/${slug}`);
-    expect(page.status).toBe(200);
-    const html = await page.text();
-    expect(html).toContain('Methods on simulated runs (package test)');
-    expect(html).toContain(frozen.dataSha256);
-    expect((await researcher.get('/compare/saved/zzzzzzzzzzzz')).status).toBe(404);
-  });
-
-  it('keeps the package from visitors, trainees, and instructors who may not see all of its runs', async () => {
-    expect((await anonymous(server.baseUrl).get(`/api/compare/saved/${slug}/package`)).status).toBe(401);
-    const trainee = await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee);
-    expect((await trainee.get(`/api/compare/saved/${slug}/package`)).status).toBe(403);
-    const instructor = await sessionUserFor(DEMO_ACCOUNTS.instructor);
-    const runIds = frozen.results.totalRuns;
-    const visible = await count(
-      `SELECT COUNT(*) AS n FROM runs r JOIN (SELECT id FROM runs WHERE status = 'complete' AND source = 'simulated' AND final_loads_json IS NOT NULL) s ON s.id = r.id
-       WHERE r.operator_id = ? OR r.cohort_id IN (SELECT id FROM cohorts WHERE instructor_id = ?)`,
-      [instructor.id, instructor.id],
-    );
-    const session = await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor);
-    expect((await session.get(`/api/compare/saved/${slug}/package`)).status).toBe(visible === runIds ? 200 : 404);
   });
 });
