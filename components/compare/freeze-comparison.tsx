@@ -26,7 +26,8 @@ export function FreezeComparison({ query }: { query: string }) {
       <input id="freeze-title" name="title" required maxLength={200} aria-describedby="freeze-title-error" placeholder="e.g. Cross pattern against circular, spring cohort"
         className="w-full max-w-xl rounded-md border border-rule bg-paper px-2 py-1.5" />
       <FieldError id="freeze-title-error" messages={state.fieldErrors?.title} />
-      <FormMessage status={state.status} message={state.fieldErrors?.title ? null : state.message} />
+      {state.fieldErrors?.query ? <FieldError id="freeze-query-error" messages={state.fieldErrors.query} /> : null}
+      <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
       <div className="flex gap-2">
         <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-1.5 text-sm font-medium text-accent-ink disabled:opacity-60">{pending ? 'Freezing…' : 'Freeze'}</button>
         <button type="button" onClick={() => setOpen(false)} className="rounded-md border border-rule px-4 py-1.5 text-sm">Cancel</button>

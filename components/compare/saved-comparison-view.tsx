@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { SavedComparisonView as SavedView } from '@/lib/data/saved-comparisons';
+import { TEST_QUESTIONS, type ComparisonTestId } from '@/lib/analysis/compare-types';
 import { formatDateTime } from '@/lib/format/format-date';
 import { CompareCharts } from './compare-charts';
 import { CompareGroupsTable } from './compare-groups-table';
@@ -11,6 +12,13 @@ const QUERY_WORDS: Record<string, string> = {
   by: 'Compared by', ids: 'Groups chosen', source: 'Runs', status: 'Status', methodId: 'Method', lubricantId: 'Lubricant', cohortId: 'Cohort',
   operatorId: 'Operator', jointId: 'Joint', studCount: 'Stud count', from: 'From', to: 'To', passCount: 'Passes', planned: 'Planned outcome',
 };
+
+/** A filter's value in words: the planned outcome as its question, codes without underscores. */
+function valueWords(name: string, value: unknown): string {
+  if (name === 'planned') return TEST_QUESTIONS[value as ComparisonTestId] ?? String(value);
+  if (Array.isArray(value)) return value.join(', ');
+  return String(value).replace(/_/g, ' ');
+}
 
 /** A saved comparison: the results exactly as frozen, its citation, its facts and the data package. */
 export function SavedComparisonView({ saved }: { saved: SavedView }) {
@@ -31,7 +39,7 @@ export function SavedComparisonView({ saved }: { saved: SavedView }) {
           <dt className="text-muted">Software</dt><dd>{saved.softwareVersion}</dd>
           <dt className="text-muted">Data sha256</dt><dd className="break-all font-mono text-xs">{saved.dataSha256}</dd>
           {filters.map(([name, value]) => (
-            <div key={name} className="contents"><dt className="text-muted">{QUERY_WORDS[name] ?? name}</dt><dd>{Array.isArray(value) ? value.join(', ') : String(value)}</dd></div>
+            <div key={name} className="contents"><dt className="text-muted">{QUERY_WORDS[name] ?? name}</dt><dd>{valueWords(name, value)}</dd></div>
           ))}
         </dl>
         <p>
