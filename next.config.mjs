@@ -5,6 +5,17 @@
  */
 const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
+import { execFileSync } from 'node:child_process';
+
+/** The git commit the app is built from, recorded in saved comparisons; empty when git is not there. */
+function commitAtBuild() {
+  try {
+    return execFileSync('git', ['rev-parse', 'HEAD'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] }).trim();
+  } catch {
+    return '';
+  }
+}
+
 /** @type {import('next').NextConfig} */
 const securityHeaders = [
   { key: 'X-Content-Type-Options', value: 'nosniff' },
@@ -16,6 +27,7 @@ const securityHeaders = [
 const nextConfig = {
   serverExternalPackages: ['sequelize', 'mariadb'],
   poweredByHeader: false,
+  env: { EVENLOAD_BUILD_COMMIT: process.env.EVENLOAD_BUILD_COMMIT ?? commitAtBuild() },
   reactStrictMode: true,
   turbopack: {
     // @stdlib's statistics probe for generators with `new Function`; in the browser that probe is a

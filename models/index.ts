@@ -13,6 +13,7 @@ import { Method } from './method';
 import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
+import { SavedComparison } from './saved-comparison';
 import { RunComment } from './run-comment';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
@@ -25,7 +26,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, AuditEntry] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, AuditEntry, SavedComparison] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -50,6 +51,7 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
+  SavedComparison.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
 }
 
-export { sequelize, AuditEntry, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, AuditEntry, SavedComparison, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -26,6 +26,16 @@ if ! command -v chromium >/dev/null 2>&1; then
   apt-get install -y -qq chromium >/dev/null
 fi
 
+# The saved-comparison package test runs the package's Python script with Debian's python3 (the
+# pyenv python3 earlier on PATH has no statsmodels), so its numpy, scipy and statsmodels are installed
+# when missing.
+if ! /usr/bin/python3 -c 'import numpy, scipy, statsmodels' >/dev/null 2>&1; then
+  evenload_log "installing Debian's python3-numpy, python3-scipy and python3-statsmodels"
+  export DEBIAN_FRONTEND=noninteractive
+  apt-get update -qq
+  apt-get install -y -qq python3 python3-numpy python3-scipy python3-statsmodels >/dev/null
+fi
+
 if [ "${EVENLOAD_SKIP_BUILD:-0}" != "1" ]; then
   evenload_log "building the app for the end-to-end tests (next build also type-checks the whole project)"
   npx next build >&2

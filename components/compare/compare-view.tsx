@@ -11,6 +11,7 @@ import { BY_CHOICES, CompareFilters, type ByChoice } from './compare-filters';
 import { CompareGroupsTable } from './compare-groups-table';
 import { ComparePlanner } from './compare-planner';
 import { CompareTests } from './compare-tests';
+import { FreezeComparison } from './freeze-comparison';
 
 const SOURCE_WORDS = { measured: 'measured', simulated: 'simulated', both: 'measured and simulated' } as const;
 
@@ -83,13 +84,14 @@ export function CompareView({ options }: { options: RunFilterOptions }) {
           <CompareTests data={data} />
           <ComparePlanner planner={data.planner} />
           {data.by === 'lubricant' ? <NutFactors data={data} /> : null}
+          <FreezeComparison query={query} />
         </>
       ) : null}
     </div>
   );
 }
 
-function NutFactors({ data }: { data: CompareResponse }) {
+export function NutFactors({ data }: { data: CompareResponse }) {
   return (
     <section aria-labelledby="k-heading" className="rounded-card border border-rule bg-panel p-4">
       <h2 id="k-heading" className="text-lg font-semibold">Nut factor by lubricant</h2>

@@ -241,3 +241,16 @@ async function nutFactorsFor(where: string[], params: unknown[], lubricantIds: n
   });
   return result;
 }
+
+/**
+ * The runs a comparison selects (every filter, the source condition and this person's scope), each
+ * with its group as the comparison keys it; saved comparisons keep these ids with the results.
+ */
+export async function comparisonRunKeys(user: SessionUser, query: CompareQuery): Promise<{ runId: number; groupKey: string }[]> {
+  const { where, params } = await filterSql(user, query);
+  const rows = await sequelize.query<{ id: number; group_id: number }>(
+    `SELECT r.id, ${GROUP_COLUMN[query.by]} AS group_id FROM runs r WHERE ${[...where, SOURCE_SQL[query.source]].join(' AND ')} ORDER BY r.id`,
+    { type: QueryTypes.SELECT, replacements: params },
+  );
+  return rows.map((r) => ({ runId: r.id, groupKey: query.by === 'trainee' ? operatorKey(user, r.group_id) : String(r.group_id) }));
+}

@@ -13,12 +13,14 @@ import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { launchBrowser, signedInPage } from '../support/browser';
 import { createTestJoint, dropTestJoints, GOOD_DIR } from '../support/record-fixtures';
+import { freezeDemoComparison } from '../support/saved-comparison';
 
 let server: AppServer;
 let browser: Browser;
 let labPages: string[] = [];
 let jointId: number;
 let jointName: string;
+let saved: Awaited<ReturnType<typeof freezeDemoComparison>> | undefined;
 
 const PUBLIC_PAGES = ['/sign-in', '/forgot-password', '/reset/not-a-token', '/welcome/not-a-token', '/dev/outbox'];
 
@@ -37,12 +39,14 @@ beforeAll(async () => {
   const cohort = await firstId('SELECT cohort_id AS id FROM cohort_members ORDER BY cohort_id LIMIT 1');
   const member = await firstId(`SELECT user_id AS id FROM cohort_members WHERE cohort_id = ${cohort} ORDER BY user_id LIMIT 1`);
   const run = await firstId("SELECT id FROM runs WHERE status = 'complete' ORDER BY id LIMIT 1");
+  saved = await freezeDemoComparison('Methods on simulated runs (CSP check)');
   labPages = [
     '/', '/calculator', '/classroom', '/compare', '/progress', '/people', '/record', '/runs', `/runs/${run}`,
     '/cohorts', `/cohorts/${cohort}`, `/cohorts/${cohort}/sheet`, `/cohorts/${cohort}/trainees/${member}`,
     '/joints', '/joints/new', `/joints/${await firstId('SELECT id FROM joints ORDER BY id LIMIT 1')}`,
     '/joints/lubricants/new', `/joints/lubricants/${await firstId('SELECT id FROM lubricants ORDER BY id LIMIT 1')}`,
     '/joints/methods/new', `/joints/methods/${await firstId('SELECT id FROM methods ORDER BY id LIMIT 1')}`,
+    `/compare/saved/${saved.slug}`,
     '/no-such-page',
   ];
 });
@@ -50,6 +54,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
   await dropTestJoints([jointId]);
+  await saved?.remove();
   await sequelize.close();
 });
 

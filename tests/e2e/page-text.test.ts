@@ -7,6 +7,7 @@ import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { launchBrowser, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
+import { freezeDemoComparison } from '../support/saved-comparison';
 
 // Screens are projected in front of trainees and auditors: they must not carry notes meant for
 // engineers (how far a value is trusted, source tags of docs/REFERENCE.md, how the app computes).
@@ -32,6 +33,7 @@ interface Finding {
 
 let server: AppServer;
 let browser: Browser;
+let saved: Awaited<ReturnType<typeof freezeDemoComparison>> | undefined;
 const ids = {} as Record<'joint' | 'lubricant' | 'method' | 'instructorCohort' | 'cohortTrainee' | 'instructorRun' | 'traineeRun' | 'anyRun', number>;
 
 async function firstId(sql: string, replacements: unknown[] = []): Promise<number> {
@@ -51,9 +53,11 @@ beforeAll(async () => {
   ids.instructorRun = await firstId('SELECT r.id FROM runs r WHERE r.cohort_id = ? AND r.pass_count > 1 ORDER BY r.id LIMIT 1', [ids.instructorCohort]);
   ids.traineeRun = await firstId('SELECT r.id FROM runs r JOIN users o ON o.id = r.operator_id WHERE o.email = ? ORDER BY r.id LIMIT 1', [DEMO_ACCOUNTS.trainee]);
   ids.anyRun = await firstId('SELECT id FROM runs WHERE pass_count > 1 ORDER BY id LIMIT 1');
+  saved = await freezeDemoComparison('Methods on simulated runs (page text check)');
 });
 
 afterAll(async () => {
+  await saved?.remove();
   await browser?.close();
   await sequelize.close();
 });
@@ -70,7 +74,7 @@ function pagesFor(role: Role): string[] {
     case 'instructor':
       return [...common, `/runs/${ids.instructorRun}`, '/record', ...compare, '/classroom', ...cohort, ...library];
     case 'researcher':
-      return [...common, `/runs/${ids.anyRun}`, '/record', ...compare];
+      return [...common, `/runs/${ids.anyRun}`, '/record', ...compare, `/compare/saved/${saved!.slug}`];
     case 'trainee':
       return [...common, `/runs/${ids.traineeRun}`, '/record', '/progress'];
   }

@@ -1,10 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { LatestRuns } from '@/components/home/latest-runs';
+import { SavedComparisons } from '@/components/home/saved-comparisons';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { StatCard } from '@/components/ui/stat-card';
 import { formatPercent } from '@/lib/calc/units';
 import { homeSummary } from '@/lib/data/home';
+import { listSavedComparisons } from '@/lib/data/saved-comparisons';
 import { formatDate, formatDateTime } from '@/lib/format/format-date';
 import { requirePageUser } from '@/lib/auth/session';
 
@@ -17,6 +19,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
   const user = await requirePageUser();
   const { notice } = await searchParams;
   const summary = await homeSummary(user);
+  const saved = user.role === 'researcher' || user.role === 'instructor' ? await listSavedComparisons(user) : [];
   return (
     <div className="space-y-6">
       {notice === 'not-allowed' ? (
@@ -49,6 +52,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             </table>
           </section>
           <LatestRuns runs={summary.latestRuns} units={user.units} title="Latest runs in your cohorts" />
+          <SavedComparisons items={saved} />
         </>
       ) : null}
 
@@ -71,6 +75,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             </table>
             <p className="mt-2 text-xs text-muted">Operators are shown as stable pseudonyms in your view.</p>
           </section>
+          <SavedComparisons items={saved} />
           <LatestRuns runs={summary.latestRuns} units={user.units} />
         </>
       ) : null}

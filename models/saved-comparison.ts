@@ -1,0 +1,35 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { User } from './user';
+
+/** A frozen comparison: its query, runs, results as shown, software version and data hash (never recomputed). */
+export class SavedComparison extends Model<InferAttributes<SavedComparison>, InferCreationAttributes<SavedComparison>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare title: string;
+  declare createdById: number;
+  declare queryJson: string;
+  declare runIdsJson: string;
+  declare resultsJson: string;
+  declare softwareVersion: string;
+  declare dataSha256: string;
+  declare createdAt: CreationOptional<Date>;
+  declare createdBy?: NonAttribute<User>;
+
+  static initModel(sequelize: Sequelize) {
+    SavedComparison.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        slug: { type: DataTypes.CHAR(12), allowNull: false, unique: true },
+        title: { type: DataTypes.STRING(200), allowNull: false },
+        createdById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        queryJson: { type: DataTypes.TEXT, allowNull: false },
+        runIdsJson: { type: DataTypes.TEXT('medium'), allowNull: false },
+        resultsJson: { type: DataTypes.TEXT('long'), allowNull: false },
+        softwareVersion: { type: DataTypes.STRING(80), allowNull: false },
+        dataSha256: { type: DataTypes.CHAR(64), allowNull: false },
+        createdAt: { type: DataTypes.DATE, allowNull: false },
+      },
+      { sequelize, tableName: 'saved_comparisons', underscored: true, timestamps: true, updatedAt: false },
+    );
+  }
+}
