@@ -26,7 +26,9 @@ function useViewport() {
 export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, seed, onBack, onHelp }: {
   scene: BuiltScene; step: number; sceneNumber: number; sceneCount: number; units: UnitSystem; cohorts: ClassroomCohort[]; seed: number; onBack: () => void; onHelp: () => void;
 }) {
-  const { height } = useViewport();
+  const { width, height } = useViewport();
+  // On a narrow screen the flange sits above the chart, so the chart keeps the whole width.
+  const stacked = width < 768;
   const atEnd = step >= endOf(scene.totalSteps);
   const headerHeight = 104;
   const rowHeight = Math.max(240, Math.floor((height - headerHeight - 16) / Math.max(1, scene.sides.length)));
@@ -52,7 +54,7 @@ export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, se
       ) : (
         <div className="flex flex-col gap-2">
           {scene.sides.map((side) => (
-            <SideRow key={side.key} side={side} sceneStep={step} totalSteps={scene.totalSteps} rowHeight={rowHeight} units={units} />
+            <SideRow key={side.key} side={side} sceneStep={step} totalSteps={scene.totalSteps} rowHeight={rowHeight} units={units} stacked={stacked} />
           ))}
         </div>
       )}
@@ -60,7 +62,7 @@ export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, se
   );
 }
 
-function SideRow({ side, sceneStep, totalSteps, rowHeight, units }: { side: BuiltScene['sides'][number]; sceneStep: number; totalSteps: number; rowHeight: number; units: UnitSystem }) {
+function SideRow({ side, sceneStep, totalSteps, rowHeight, units, stacked }: { side: BuiltScene['sides'][number]; sceneStep: number; totalSteps: number; rowHeight: number; units: UnitSystem; stacked: boolean }) {
   const { analysis } = side;
   const steps = analysis.steps.length;
   const k = sideStep(sceneStep, steps);
@@ -75,7 +77,7 @@ function SideRow({ side, sceneStep, totalSteps, rowHeight, units }: { side: Buil
   }, [analysis, units, k, steps, plotHeight, totalSteps]);
   const status = k === 0 ? 'All studs snug' : k >= steps && sceneStep > steps ? `Finished after ${steps} steps` : `Stud ${current?.position} tightened, pass ${current?.pass}`;
   return (
-    <section aria-label={side.label} className="grid items-start gap-4" style={{ gridTemplateColumns: `${flangeSize + 8}px 1fr`, minHeight: rowHeight - 8 }}>
+    <section aria-label={side.label} className="grid items-start gap-4" style={{ gridTemplateColumns: stacked ? 'minmax(0, 1fr)' : `${flangeSize + 8}px minmax(0, 1fr)`, minHeight: rowHeight - 8 }}>
       <div className="flex flex-col items-center">
         <FlangeView loadsN={loads} targetN={analysis.targetLoadN} bandPercent={analysis.bandPercent} units={units} size={flangeSize} showLegend={false}
           activePosition={current && k === sceneStep ? current.position : undefined} label={`${side.label}: flange ${k === 0 ? 'before the first step' : `after step ${k}`}`} />
