@@ -57,15 +57,15 @@ export async function classroomCohorts(user: SessionUser, today = new Date().toI
 }
 
 /**
- * Complete runs the instructor may see in their cohorts, latest first (at most 40), for the
- * "real run" scene. `defaultRunId` is the latest run that was not simulated in the current
- * cohort, else the latest not simulated, else the latest run.
+ * Complete measured runs (never simulated ones) the instructor may see in their cohorts, latest
+ * first (at most 40), for the "real run" scene. `defaultRunId` is the latest of the current
+ * cohort, else the latest.
  */
 export async function classroomRealRuns(user: SessionUser, cohorts: readonly ClassroomCohort[]): Promise<{ runs: ClassroomRunOption[]; defaultRunId: number | null }> {
   assertRole(user, CLASSROOM_ROLES);
   const scope = await runScope(user);
   const rows = (await Run.findAll({
-    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }] },
+    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }, { source: { [Op.ne]: 'simulated' } }] },
     include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }, { model: Joint, as: 'joint', attributes: ['id', 'name'] }],
     order: [['recordedAt', 'DESC'], ['id', 'DESC']],
     limit: 40,
@@ -74,11 +74,10 @@ export async function classroomRealRuns(user: SessionUser, cohorts: readonly Cla
     id: r.id,
     source: r.source,
     cohortId: r.cohortId,
-    label: `${operatorLabel(user, r.operator)} · ${r.recordedAt.toISOString().slice(0, 10)} · ${r.joint.name}${r.source === 'simulated' ? ' (simulated)' : ''}`,
+    label: `${operatorLabel(user, r.operator)} · ${r.recordedAt.toISOString().slice(0, 10)} · ${r.joint.name}`,
   }));
   const currentId = cohorts[0]?.id;
-  const real = runs.filter((r) => r.source !== 'simulated');
-  const pick = real.find((r) => r.cohortId === currentId) ?? real[0] ?? runs[0];
+  const pick = runs.find((r) => r.cohortId === currentId) ?? runs[0];
   return { runs, defaultRunId: pick?.id ?? null };
 }
 
