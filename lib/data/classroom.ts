@@ -3,6 +3,7 @@ import { Op } from 'sequelize';
 import { AppError } from '../http/errors';
 import { sceneSetup, seedFamily, simulateSide, SCENES, type Library, type SceneKey } from '../classroom/scenes';
 import { studDiameterM } from '../joints/joint-properties';
+import { currentCohortOf } from '../cohorts/current-cohort';
 import { storeRun as storeRunInDb } from './runs/store-run';
 import { assertRole, type SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
@@ -46,12 +47,12 @@ export async function classroomLibrary(user: SessionUser): Promise<Library> {
   };
 }
 
-/** The instructor's own cohorts, the current one (today within its dates, else the latest start) first. */
+/** The instructor's own cohorts, the current one (lib/cohorts/current-cohort.ts, as Home calls it) first. */
 export async function classroomCohorts(user: SessionUser, today = new Date().toISOString().slice(0, 10)): Promise<ClassroomCohort[]> {
   assertRole(user, CLASSROOM_ROLES);
   const rows = await Cohort.findAll({ where: { instructorId: user.id }, order: [['startsOn', 'DESC'], ['id', 'DESC']], raw: true });
   const cohorts = rows.map((c) => ({ id: c.id, name: c.name, startsOn: String(c.startsOn).slice(0, 10), endsOn: String(c.endsOn).slice(0, 10) }));
-  const current = cohorts.findIndex((c) => c.startsOn <= today && today <= c.endsOn);
+  const current = cohorts.indexOf(currentCohortOf(cohorts, today)!);
   if (current > 0) cohorts.unshift(...cohorts.splice(current, 1));
   return cohorts;
 }
