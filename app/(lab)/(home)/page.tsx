@@ -63,6 +63,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="by-method">
             <h2 id="by-method" className="font-semibold">Scatter by method (complete runs)</h2>
+            <div className="overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Method</th><th className="text-right">Runs</th><th className="text-right">Mean CV of final loads</th></tr></thead>
               <tbody className="num">
@@ -71,6 +72,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
             <p className="mt-2 text-xs text-muted">Operators are shown as stable pseudonyms in your view.</p>
           </section>
           <LatestRuns runs={summary.latestRuns} units={user.units} />
@@ -97,6 +99,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="accounts">
             <h2 id="accounts" className="font-semibold">Newest accounts</h2>
+            <div className="overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Name</th><th>E-mail</th><th>Role</th><th>Created</th></tr></thead>
               <tbody>
@@ -105,6 +108,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
             <p className="mt-2 text-xs text-muted">{summary.totalRuns} runs are stored in the lab.</p>
           </section>
         </>
