@@ -23,10 +23,38 @@ import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
 import { User } from './user';
+import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, AuditEntry, SavedComparison] as const;
+export const MODELS = [
+  User,
+  Cohort,
+  CohortMember,
+  Joint,
+  JointPosition,
+  Method,
+  Lubricant,
+  Run,
+  TighteningStep,
+  Reading,
+  Upload,
+  UploadChunk,
+  RunComment,
+  SignInAttempt,
+  OneTimeToken,
+  CohortCriteria,
+  RunVerdict,
+  CapturedMail,
+  UserSession,
+  ComparisonCache,
+  ColumnMap,
+  StreamToken,
+  StreamSample,
+  AuditEntry,
+  SavedComparison,
+  UserPreference,
+] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -54,4 +82,32 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   SavedComparison.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
 }
 
-export { sequelize, AuditEntry, SavedComparison, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export {
+  sequelize,
+  AuditEntry,
+  SavedComparison,
+  CapturedMail,
+  Cohort,
+  CohortCriteria,
+  ColumnMap,
+  ComparisonCache,
+  StreamSample,
+  StreamToken,
+  OneTimeToken,
+  RunVerdict,
+  CohortMember,
+  Joint,
+  JointPosition,
+  Lubricant,
+  Method,
+  Reading,
+  Run,
+  RunComment,
+  SignInAttempt,
+  TighteningStep,
+  Upload,
+  UploadChunk,
+  User,
+  UserSession,
+  UserPreference,
+};

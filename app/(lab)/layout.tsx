@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { HeaderMenu } from '@/components/shell/header-menu';
 import { NavLinks } from '@/components/shell/nav-links';
 import { navItemsFor, ROLE_LABELS } from '@/components/shell/navigation';
 import { SignOutButton, SignOutEverywhereButton } from '@/components/shell/sign-out-button';
@@ -13,19 +14,21 @@ export default async function LabLayout({ children }: { children: React.ReactNod
   return (
     <div className="min-h-screen">
       <header className="no-print border-b border-rule bg-panel">
-        <nav aria-label="Main" className="mx-auto flex max-w-7xl flex-wrap items-center gap-4 px-4 py-3">
+        <nav aria-label="Main" className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-4 gap-y-3 px-4 py-3">
           <Link href="/" className="text-lg text-ink">
             <Wordmark />
           </Link>
-          <NavLinks items={navItemsFor(user.role)} />
-          <div className="ml-auto flex items-center gap-3 text-sm">
-            <span>
-              <span className="font-medium">{user.name}</span>{' '}
-              <span className="rounded bg-rule/70 px-1.5 py-0.5 text-xs text-ink">{ROLE_LABELS[user.role]}</span>
-            </span>
-            <SignOutButton />
-            <SignOutEverywhereButton />
-          </div>
+          <HeaderMenu>
+            <NavLinks items={navItemsFor(user.role)} />
+            <div className="flex flex-wrap items-center gap-3 text-sm sm:ml-auto">
+              <span>
+                <span className="font-medium">{user.name}</span>{' '}
+                <span className="rounded bg-rule/70 px-1.5 py-0.5 text-xs text-ink">{ROLE_LABELS[user.role]}</span>
+              </span>
+              <SignOutButton />
+              <SignOutEverywhereButton />
+            </div>
+          </HeaderMenu>
         </nav>
       </header>
       <main className="mx-auto max-w-7xl px-4 py-6">{children}</main>

@@ -10,11 +10,22 @@ function Row({ label, value, note }: { label: string; value: ReactNode; note?: R
     <div className="flex flex-wrap items-baseline justify-between gap-x-4 border-b border-rule py-1.5 last:border-b-0">
       <dt className="text-sm text-muted">{label}</dt>
       <dd className="num text-right font-mono text-base text-ink">
-        {value}
+        {typeof value === 'string' ? <NoWrapParts text={value} /> : value}
         {note ? <span className="block font-sans text-xs text-muted">{note}</span> : null}
       </dd>
     </div>
   );
+}
+
+/** A value never breaks inside a number and its unit; "620 MPa · 85 %" may break only at the "·". */
+function NoWrapParts({ text }: { text: string }) {
+  const parts = text.split(' · ');
+  return parts.map((part, i) => (
+    <span key={i}>
+      {i > 0 ? ' · ' : null}
+      <span className="whitespace-nowrap" data-value-part="">{part}</span>
+    </span>
+  ));
 }
 
 const NOT_YET = <span className="font-sans text-sm text-muted">fix the inputs</span>;

@@ -26,7 +26,7 @@ export function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohort
   return (
     <div className="mt-2 grid gap-6 xl:grid-cols-[1fr_24rem]" data-testid="end-figures">
       <section aria-labelledby="figures-heading" className="space-y-4">
-        <h2 id="figures-heading" className="text-2xl font-semibold">Final loads, mean {figures.basis}</h2>
+        <h2 id="figures-heading" className="text-2xl font-semibold">{figures.title}</h2>
         <table className="num w-full border-collapse text-left">
           <thead>
             <tr className="border-b-2 border-ink text-2xl">

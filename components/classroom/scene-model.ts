@@ -43,14 +43,14 @@ export function buildScene(key: SceneKey, library: Library, jointId: number | nu
     const model = sideForRealRun(joint, method, lubricant);
     const shown = simulateSide(model, joint, seed);
     const modelRuns = seedFamily(seed).map((s) => simulateSide(model, joint, s));
-    const realFigures = { key: 'real', label: 'The real run', runs: 1, ...runFigures(real.run, real.bandPercent) };
+    const realFigures = { key: 'real', label: 'The measured run', runs: 1, ...runFigures(real.run, real.bandPercent) };
     const modelFigures = sideFigures('model', 'The model', modelRuns, real.bandPercent);
     const realCv = realFigures.cv;
     return {
       key,
       title: info.title,
       sides: [
-        { key: 'real', label: 'The real run', caption: real.label, analysis: analyseRun(real.id, real.run, { bandPercent: real.bandPercent, passPercents: model.passPercents }), real: true },
+        { key: 'real', label: 'The measured run', caption: real.label, analysis: analyseRun(real.id, real.run, { bandPercent: real.bandPercent, passPercents: model.passPercents }), real: true },
         { key: 'model', label: 'The model', caption: model.caption, analysis: analyseRun(0, shown, { bandPercent: real.bandPercent, passPercents: model.passPercents }), real: false },
       ],
       totalSteps: Math.max(real.run.steps.length, shown.steps.length),
@@ -58,7 +58,8 @@ export function buildScene(key: SceneKey, library: Library, jointId: number | nu
         sides: [realFigures, modelFigures],
         cvReading: placeAmongSimulated(realCv, modelRuns.map((r) => runFigures(r, real.bandPercent).cv)),
         scatterReading: null,
-        basis: `one real run against ${modelRuns.length} simulated runs of the same joint, method and lubricant`,
+        basis: `the measured run against ${modelRuns.length} simulated runs of the same joint, method and lubricant`,
+        title: `Final loads: the measured run beside the mean of ${modelRuns.length} simulated runs`,
       },
       problems: [],
       saveable: false,

@@ -66,9 +66,9 @@ export function ScenePicker(props: {
           </label>
           {library.joints.length === 0 ? <p className="text-lg text-danger">No joint in the library yet: add one under Joints, then come back.</p> : null}
           <label className="block text-xl">
-            <span className="font-semibold">Real run for “{SCENES.real.title}”</span>
+            <span className="font-semibold">Measured run for “{SCENES.real.title}”</span>
             <select className="mt-1 block w-full rounded-md border border-rule bg-panel px-3 py-2 text-lg" value={realRun?.id ?? ''} onChange={(e) => onRealRun(Number(e.target.value))}>
-              {realRuns.length === 0 ? <option value="">No runs in your cohorts yet</option> : null}
+              {realRuns.length === 0 ? <option value="">No measured runs in your cohorts yet</option> : null}
               {realRuns.map((r) => (
                 <option key={r.id} value={r.id}>{r.label}</option>
               ))}

@@ -9,6 +9,7 @@ import { STANDARD_THREADS } from '@/lib/calc/thread';
 import { formatArea, formatForce, formatInputValue, formatPercent, formatStress, INPUT_UNIT, toInputUnit, type UnitSystem } from '@/lib/calc/units';
 import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
 import { FormMessage } from '../ui/form-message';
+import { useFieldErrors } from '../ui/use-field-errors';
 import { CUSTOM_THREAD, jointTarget, numberFromText, STUD_COUNT_RANGE, targetInputFromForm, threadChoiceOf, type TargetMode } from '@/lib/joints/joint-input';
 import type { JointDetail } from '@/lib/data/joints';
 import { FlangeDiagram } from './flange-diagram';
@@ -53,7 +54,8 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
     (joint?.positions ?? []).map((p) => ({ factor: String(p.calibrationFactor), note: p.note ?? '' })),
   );
   const set = (key: keyof typeof v) => (value: string) => setV((old) => ({ ...old, [key]: value }));
-  const errors = state.fieldErrors ?? {};
+  // A server error leaves its field as soon as the field is edited.
+  const { errors, onEdit } = useFieldErrors(state);
   const hasRuns = (joint?.runCount ?? 0) > 0;
 
   const studCount = numberFromText(v.studCount);
@@ -72,7 +74,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
   const fieldErrors = (key: string) => errors[key] ?? previewErrors[key];
 
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={joint ? `Edit joint ${joint.name}` : 'New joint'}>
+    <form action={formAction} onChange={onEdit} noValidate className="flex flex-col gap-5" aria-label={joint ? `Edit joint ${joint.name}` : 'New joint'}>
       <input type="hidden" name="units" value={units} />
       {joint ? <input type="hidden" name="version" value={joint.version} /> : null}
       <FormMessage status={state.status} message={state.message} banner />

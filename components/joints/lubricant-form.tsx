@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { useActionState, useState } from 'react';
 import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
 import { FormMessage } from '../ui/form-message';
+import { useFieldErrors } from '../ui/use-field-errors';
 import type { LubricantSummary } from '@/lib/data/joints';
 import { FieldMessage, INPUT_CLASS, Section, TextField } from './form-controls';
 
@@ -15,9 +16,10 @@ export function LubricantForm({ lubricant, action }: { lubricant?: LubricantSumm
   const [name, setName] = useState(lubricant?.name ?? '');
   const [k, setK] = useState(lubricant ? String(lubricant.nominalNutFactor) : '');
   const [notes, setNotes] = useState(lubricant?.notes ?? '');
-  const errors = state.fieldErrors ?? {};
+  // A server error leaves its field as soon as the field is edited.
+  const { errors, onEdit } = useFieldErrors(state);
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={lubricant ? `Edit lubricant ${lubricant.name}` : 'New lubricant'}>
+    <form action={formAction} onChange={onEdit} noValidate className="flex flex-col gap-5" aria-label={lubricant ? `Edit lubricant ${lubricant.name}` : 'New lubricant'}>
       {lubricant ? <input type="hidden" name="version" value={lubricant.version} /> : null}
       <FormMessage status={state.status} message={state.message} banner />
       <Section title="Lubricant">

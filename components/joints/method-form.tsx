@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { useActionState, useState } from 'react';
 import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
 import { FormMessage } from '../ui/form-message';
+import { useFieldErrors } from '../ui/use-field-errors';
 import { numberFromText, STUD_COUNT_RANGE } from '@/lib/joints/joint-input';
 import { generatedOrder, MAX_CHECK_PASSES, MAX_PASSES, orderText, parseOrderText, passOrderMessage, TOOL_KINDS, TOOL_LABELS } from '@/lib/joints/method-input';
 import type { MethodSummary } from '@/lib/data/joints';
@@ -43,7 +44,8 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
   );
   const [newCount, setNewCount] = useState('');
   const [countMessage, setCountMessage] = useState<string | null>(null);
-  const errors = state.fieldErrors ?? {};
+  // A server error leaves its field as soon as the field is edited.
+  const { errors, onEdit } = useFieldErrors(state);
 
   const updatePass = (index: number, change: (row: PassRow) => PassRow) => setPasses((rows) => rows.map((r, i) => (i === index ? change(r) : r)));
   const generate = (index: number, pattern: 'cross' | 'circular') =>
@@ -72,7 +74,7 @@ export function MethodForm({ method, studCounts: libraryCounts, action }: { meth
   }
 
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-5" aria-label={method ? `Edit method ${method.name}` : 'New method'}>
+    <form action={formAction} onChange={onEdit} noValidate className="flex flex-col gap-5" aria-label={method ? `Edit method ${method.name}` : 'New method'}>
       <input type="hidden" name="passCount" value={passes.length} />
       {method ? <input type="hidden" name="version" value={method.version} /> : null}
       <input type="hidden" name="studCounts" value={counts.join(',')} />

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useActionState, useMemo, useState } from 'react';
+import { useSavedPayload } from './use-saved-payload';
 import { saveManualRunAction } from '@/app/(lab)/record/actions';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RecordJoint, RecordMethod } from '@/lib/data/record';
@@ -25,8 +26,10 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
   const N = joint.studCount;
   const [unit, setUnit] = useState<ManualUnit>(units === 'us' ? 'lbf' : 'kN');
   const [cells, setCells] = useState<string[][]>(() => plan.steps.map(() => Array.from({ length: N }, () => '')));
+  const { isSaved, markSaved } = useSavedPayload();
   const [state, formAction, pending] = useActionState(async (prev: RecordFormState, formData: FormData) => {
     const result = await saveManualRunAction(prev, formData);
+    if (result.status === 'ok') markSaved(formData);
     onHeaderErrors(result.fieldErrors ?? {});
     return result;
   }, IDLE_FORM_STATE);
@@ -132,8 +135,8 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
         </table>
       </div>
       <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" disabled={pending || lastComplete < 0 || !!firstBad} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50">
-          {pending ? 'Saving…' : 'Save run'}
+        <button type="submit" disabled={pending || lastComplete < 0 || !!firstBad || isSaved(payload)} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50">
+          {pending ? 'Saving…' : isSaved(payload) ? 'Saved' : 'Save run'}
         </button>
         <div aria-live="polite" className="text-sm">
           {firstBad ? <p className="text-danger">Step {firstBad.i + 1}, stud {firstBad.j + 1}: &ldquo;{cells[firstBad.i]![firstBad.j]!.trim()}&rdquo; {firstBad.reason}. Type digits, with a point or comma for decimals (1,500 is fifteen hundred; 1,5 is one and a half).</p> : null}

@@ -1,10 +1,13 @@
 'use client';
 
-import { useState } from 'react';
+import { startTransition, useState } from 'react';
+import { saveRecordPreferencesAction } from '@/app/(lab)/record/actions';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import type { RecordPreferences } from '@/lib/record/record-preferences';
 import type { RecordOptions } from '@/lib/data/record';
 import type { StreamTokenRow } from '@/lib/data/stream-tokens';
 import { ManualGrid } from './manual-grid';
-import { RunHeaderFields, type HeaderErrors, type HeaderState } from './run-header-fields';
+import { defaultCohortId, RunHeaderFields, type HeaderErrors, type HeaderState } from './run-header-fields';
 import { SimulatePanel } from './simulate-panel';
 import { StreamPanel } from './stream-panel';
 import { UploadPanel } from './upload-panel';
@@ -23,23 +26,46 @@ export interface RecordUser {
   units: 'si' | 'us';
 }
 
-function initialHeader(options: RecordOptions, user: RecordUser): HeaderState {
-  const self = options.operators.find((o) => o.id === user.id) ?? options.operators[0];
+function initialHeader(options: RecordOptions, user: RecordUser, remembered: RecordPreferences['header']): HeaderState {
+  const pick = <T extends { id: number }>(items: T[], id: number | null | undefined) => items.find((item) => item.id === id) ?? items[0];
+  const operator = options.operators.find((o) => o.id === remembered?.operatorId) ?? options.operators.find((o) => o.id === user.id) ?? options.operators[0];
   return {
-    jointId: String(options.joints[0]?.id ?? ''),
-    methodId: String(options.methods[0]?.id ?? ''),
-    lubricantId: String(options.lubricants[0]?.id ?? ''),
-    operatorId: String(self?.id ?? ''),
-    cohortId: self?.cohortIds[0] ? String(self.cohortIds[0]) : '',
+    jointId: String(pick(options.joints, remembered?.jointId)?.id ?? ''),
+    methodId: String(pick(options.methods, remembered?.methodId)?.id ?? ''),
+    lubricantId: String(pick(options.lubricants, remembered?.lubricantId)?.id ?? ''),
+    operatorId: String(operator?.id ?? ''),
+    cohortId: defaultCohortId(options, operator),
     recordedAt: new Date().toISOString().slice(0, 16),
     notes: '',
   };
 }
 
+/** Stores the way in and the header's choices for this person (Record opens with them next time). */
+function remember(wayIn: TabKey, header: HeaderState) {
+  const data = new FormData();
+  const id = (text: string) => (text === '' ? null : Number(text));
+  data.set('payload', JSON.stringify({ wayIn, header: { jointId: id(header.jointId), methodId: id(header.methodId), lubricantId: id(header.lubricantId), operatorId: id(header.operatorId) } }));
+  startTransition(async () => {
+    await saveRecordPreferencesAction(IDLE_FORM_STATE, data);
+  });
+}
+
+const REMEMBERED_KEYS = ['jointId', 'methodId', 'lubricantId', 'operatorId'] as const;
+
 /** The record page: one run header, then the ways in as tabs (arrow keys move between tabs). */
-export function RecordTabs({ options, tokens, recordings, user }: { options: RecordOptions; tokens: StreamTokenRow[]; recordings: Array<{ id: number; jointId: number; recordedAt: string }>; user: RecordUser }) {
-  const [tab, setTab] = useState<TabKey>('upload');
-  const [header, setHeader] = useState<HeaderState>(() => initialHeader(options, user));
+export function RecordTabs({ options, tokens, recordings, user, preferences = {} }: {
+  options: RecordOptions; tokens: StreamTokenRow[]; recordings: Array<{ id: number; jointId: number; recordedAt: string }>; user: RecordUser; preferences?: RecordPreferences;
+}) {
+  const [tab, setTabState] = useState<TabKey>(preferences.wayIn ?? 'upload');
+  const [header, setHeaderState] = useState<HeaderState>(() => initialHeader(options, user, preferences.header));
+  const setTab = (next: TabKey) => {
+    if (next !== tab) remember(next, header);
+    setTabState(next);
+  };
+  const setHeader = (next: HeaderState) => {
+    if (REMEMBERED_KEYS.some((key) => next[key] !== header[key])) remember(tab, next);
+    setHeaderState(next);
+  };
   const [errors, setErrors] = useState<HeaderErrors>({});
   const joint = options.joints.find((j) => String(j.id) === header.jointId) ?? null;
   const method = options.methods.find((m) => String(m.id) === header.methodId) ?? null;

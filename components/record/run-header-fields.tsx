@@ -1,6 +1,8 @@
 'use client';
 
-import type { RecordOptions } from '@/lib/data/record';
+import { useState } from 'react';
+import { currentCohortOf, utcToday } from '@/lib/cohorts/current-cohort';
+import type { RecordOperator, RecordOptions } from '@/lib/data/record';
 
 export interface HeaderState {
   jointId: string;
@@ -20,11 +22,18 @@ const CONTROL = 'mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5 
 export function RunHeaderFields({ options, value, onChange, errors }: { options: RecordOptions; value: HeaderState; onChange: (next: HeaderState) => void; errors: HeaderErrors }) {
   const operator = options.operators.find((o) => String(o.id) === value.operatorId);
   const cohorts = options.cohorts.filter((c) => operator?.cohortIds.includes(c.id));
+  // What the form changed on its own, and why (an operator who is not in the chosen cohort).
+  const [cohortNote, setCohortNote] = useState('');
   const set = (key: keyof HeaderState) => (e: React.ChangeEvent<HTMLSelectElement | HTMLInputElement | HTMLTextAreaElement>) => {
     const next = { ...value, [key]: e.target.value };
+    if (key === 'cohortId') setCohortNote('');
     if (key === 'operatorId') {
       const op = options.operators.find((o) => String(o.id) === e.target.value);
-      if (!op?.cohortIds.includes(Number(next.cohortId))) next.cohortId = op?.cohortIds[0] ? String(op.cohortIds[0]) : '';
+      const change = cohortForOperator(options, op, value.cohortId);
+      if (change) {
+        next.cohortId = change.cohortId;
+        setCohortNote(change.note);
+      }
     }
     onChange(next);
   };
@@ -54,7 +63,10 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
       {field('methodId', 'Method', select('methodId', options.methods))}
       {field('lubricantId', 'Lubricant', select('lubricantId', options.lubricants))}
       {field('operatorId', 'Operator', select('operatorId', options.operators))}
-      {field('cohortId', 'Cohort', select('cohortId', cohorts, <option value="">No cohort</option>))}
+      <div>
+        {field('cohortId', 'Cohort', select('cohortId', cohorts, <option value="">No cohort</option>))}
+        <p aria-live="polite" className="text-xs text-caution" data-testid="cohort-note">{cohortNote}</p>
+      </div>
       {field('recordedAt', 'Recorded at (UTC)', <input type="datetime-local" aria-labelledby="header-recordedAt-label" name="recordedAt" value={value.recordedAt} onChange={set('recordedAt')} className={CONTROL} aria-invalid={errors.recordedAt ? true : undefined} />)}
       <div className="sm:col-span-2">
         {field('notes', 'Notes (optional)', <input type="text" name="notes" value={value.notes} onChange={set('notes')} maxLength={2000} placeholder="e.g. gauge 5 re-zeroed before the run" className={CONTROL} />)}
@@ -66,4 +78,27 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
 /** The header as the server's zod schema reads it. */
 export function headerPayload(h: HeaderState) {
   return { ...h, cohortId: h.cohortId === '' ? null : h.cohortId, notes: h.notes.trim() === '' ? null : h.notes };
+}
+
+/** The cohort a header starts in for this operator: their current cohort (as Home calls it), or none. */
+export function defaultCohortId(options: RecordOptions, operator: RecordOperator | undefined): string {
+  const current = currentCohortOf(options.cohorts.filter((c) => operator?.cohortIds.includes(c.id)), utcToday());
+  return current ? String(current.id) : '';
+}
+
+/**
+ * When the operator changes and is not in the chosen cohort, the cohort moves to the operator's
+ * current cohort (or none) with a sentence saying so; null when the chosen cohort still fits.
+ */
+function cohortForOperator(options: RecordOptions, operator: RecordOperator | undefined, cohortId: string): { cohortId: string; note: string } | null {
+  if (cohortId === '' || operator?.cohortIds.includes(Number(cohortId))) return null;
+  const nameOf = (id: string) => options.cohorts.find((c) => String(c.id) === id)?.name ?? 'the cohort';
+  const next = defaultCohortId(options, operator);
+  const who = operator?.name ?? 'This operator';
+  return {
+    cohortId: next,
+    note: next
+      ? `Cohort changed to “${nameOf(next)}”: ${who} is not in “${nameOf(cohortId)}”.`
+      : `Cohort set to none: ${who} is not in “${nameOf(cohortId)}” nor in another cohort you may record in.`,
+  };
 }

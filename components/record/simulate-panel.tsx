@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { startTransition, useActionState, useState, type FormEvent } from 'react';
+import { useSavedPayload } from './use-saved-payload';
 import { saveSimulatedRunAction } from '@/app/(lab)/record/actions';
 import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import type { RecordFormState } from '@/app/(lab)/record/actions';
@@ -17,8 +18,10 @@ const GASKETS = [
 export function SimulatePanel({ header, onHeaderErrors }: { header: HeaderState; onHeaderErrors: (e: HeaderErrors) => void }) {
   const [gasket, setGasket] = useState<(typeof GASKETS)[number]['value']>('medium');
   const [seed, setSeed] = useState(() => String(1 + Math.floor(Math.random() * 999_999)));
+  const { isSaved, markSaved } = useSavedPayload();
   const [state, formAction, pending] = useActionState(async (prev: RecordFormState, formData: FormData) => {
     const result = await saveSimulatedRunAction(prev, formData);
+    if (result.status === 'ok') markSaved(formData);
     onHeaderErrors(result.fieldErrors ?? {});
     return result;
   }, IDLE_FORM_STATE);
@@ -48,8 +51,8 @@ export function SimulatePanel({ header, onHeaderErrors }: { header: HeaderState;
           <span className="block font-medium">Seed</span>
           <input id="simulate-seed" inputMode="numeric" value={seed} onChange={(e) => setSeed(e.target.value)} aria-describedby="simulate-feedback" className="mt-1 w-32 rounded-md border border-rule bg-paper px-2 py-1.5" />
         </label>
-        <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
-          {pending ? 'Simulating…' : 'Simulate and save'}
+        <button type="submit" disabled={pending || isSaved(payload)} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
+          {pending ? 'Simulating…' : isSaved(payload) ? 'Saved: change the seed for another run' : 'Simulate and save'}
         </button>
       </div>
       <p className="text-xs text-muted">The same seed gives the same run.</p>

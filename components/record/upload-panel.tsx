@@ -102,7 +102,7 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
 
       {parsed ? (
         <div className="flex flex-wrap items-center gap-3">
-          <button type="button" className={BUTTON} disabled={!confirmed || progress !== null} onClick={upload}>
+          <button type="button" className={BUTTON} disabled={!confirmed || progress !== null || outcome?.kind === 'saved'} onClick={upload}>
             Save run ({parsed.stepCount} steps, {parsed.stepCount * parsed.studCount} readings)
           </button>
           {!confirmed ? <span className="text-sm text-muted">Confirm the derived steps first.</span> : null}

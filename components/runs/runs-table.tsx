@@ -1,20 +1,15 @@
 'use client';
 
 import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import type { KeyboardEvent, MouseEvent } from 'react';
 import useSWR from 'swr';
 import { formatForce, formatPercent } from '@/lib/calc/units';
 import type { RunFilterOptions, RunPage } from '@/lib/data/runs';
 import { fetchJson } from '@/lib/http/fetch-json';
 import { formatDateTime } from '@/lib/format/format-date';
 import { useUrlState } from '../ui/use-url-state';
-
-const FILTERS = [
-  { key: 'methodId', label: 'Method', option: 'methods' },
-  { key: 'lubricantId', label: 'Lubricant', option: 'lubricants' },
-  { key: 'jointId', label: 'Joint', option: 'joints' },
-  { key: 'cohortId', label: 'Cohort', option: 'cohorts' },
-  { key: 'operatorId', label: 'Operator', option: 'operators' },
-] as const;
+import { RunsFilters } from './runs-filters';
 
 const SORTS = [
   { key: 'recordedAt', label: 'Recorded' },
@@ -26,7 +21,9 @@ const SORTS = [
 const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
 
 export function RunsTable({ options, units }: { options: RunFilterOptions; units: 'si' | 'us' }) {
-  const { params, update: setParam } = useUrlState(['page']);
+  const router = useRouter();
+  // Every filter, sort and page change is a history entry, so Back returns to the previous view.
+  const { params, update: setParam } = useUrlState(['page'], 'push');
   const query = params.toString();
   const { data, error, isLoading } = useSWR<RunPage>(`/api/runs${query ? `?${query}` : ''}`, fetchJson, { keepPreviousData: true });
 
@@ -35,34 +32,23 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
   const page = Number(params.get('page') ?? '1');
   const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
 
-  const ariaSort = (key: string) => (sort === key ? (dir === 'asc' ? 'ascending' : 'descending') : undefined);
+  const ariaSort = (key: string) => (sort === key ? (dir === 'asc' ? 'ascending' : 'descending') : 'none');
 
   function sortBy(key: string) {
     setParam({ sort: key, dir: sort === key && dir === 'desc' ? 'asc' : 'desc' });
   }
 
+  // The whole row opens the report (mouse, or Enter on the focused row); the date cell stays a real
+  // link for screen readers and for opening in a new tab.
+  function openRow(event: MouseEvent | KeyboardEvent, id: number) {
+    if ((event.target as HTMLElement).closest('a, button')) return;
+    if ('key' in event && event.key !== 'Enter') return;
+    router.push(`/runs/${id}`);
+  }
+
   return (
     <div className="space-y-3">
-      <form className="grid gap-3 rounded-card border border-rule bg-panel p-3 sm:grid-cols-3 lg:grid-cols-7" onSubmit={(e) => e.preventDefault()} aria-label="Filters">
-        {FILTERS.map((filter) => (
-          <label key={filter.key} className="text-sm">
-            <span className="block text-muted">{filter.label}</span>
-            <select value={params.get(filter.key) ?? ''} onChange={(e) => setParam({ [filter.key]: e.target.value })}
-              className="mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5">
-              <option value="">All</option>
-              {options[filter.option].map((o) => <option key={o.id} value={o.id}>{o.name}</option>)}
-            </select>
-          </label>
-        ))}
-        <label className="text-sm">
-          <span className="block text-muted">From</span>
-          <input type="date" value={params.get('from') ?? ''} onChange={(e) => setParam({ from: e.target.value })} className="mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5" />
-        </label>
-        <label className="text-sm">
-          <span className="block text-muted">To</span>
-          <input type="date" value={params.get('to') ?? ''} onChange={(e) => setParam({ to: e.target.value })} className="mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5" />
-        </label>
-      </form>
+      <RunsFilters params={params} options={options} onChange={setParam} />
 
       <div aria-live="polite" className="text-sm">
         {error ? <p className="text-danger">The runs could not be loaded: {error.message}</p> : null}
@@ -87,7 +73,8 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
           </thead>
           <tbody className="num">
             {data?.rows.map((run) => (
-              <tr key={run.id} className="border-t border-rule hover:bg-rule/30">
+              <tr key={run.id} tabIndex={0} onClick={(e) => openRow(e, run.id)} onKeyDown={(e) => openRow(e, run.id)}
+                className="cursor-pointer border-t border-rule hover:bg-rule/30 focus:bg-rule/30 focus:outline focus:outline-2 focus:outline-accent">
                 <td className="px-3 py-2"><Link href={`/runs/${run.id}`} className="font-medium underline decoration-rule underline-offset-4">{formatDateTime(run.recordedAt)}</Link></td>
                 <td className="px-3 py-2">{run.operatorName}</td>
                 <td className="px-3 py-2">{run.jointName}</td>
@@ -119,8 +106,9 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
 
 function SortButton({ label, active, dir, onClick }: { label: string; active: boolean; dir: string; onClick: () => void }) {
   return (
-    <button type="button" onClick={onClick} className="font-semibold">
-      {label}{active ? (dir === 'asc' ? ' ▲' : ' ▼') : ''}
+    <button type="button" onClick={onClick} className="inline-flex items-center gap-1 font-semibold" title={`Sort by ${label.toLowerCase()}`}>
+      {label}
+      <span aria-hidden="true" className={active ? '' : 'text-muted'}>{active ? (dir === 'asc' ? '▲' : '▼') : '↕'}</span>
     </button>
   );
 }

@@ -155,8 +155,8 @@ function judgePattern(input: JudgeRunInput): CriterionResult {
     met,
     measured: followed,
     sentence: met
-      ? `All ${required} passes followed the method's order${method.checkPasses ? `, check passes circular` : ''}.`
-      : `${problem ?? 'The pattern was not followed.'} ${followed} of ${required} passes followed the method's order.`,
+      ? `${required === 1 ? 'The one pass' : `All ${required} passes`} followed the method's order${method.checkPasses ? `, check ${method.checkPasses === 1 ? 'pass' : 'passes'} circular` : ''}.`
+      : `${problem ?? 'The pattern was not followed.'} ${followed} of ${required} ${required === 1 ? 'pass' : 'passes'} followed the method's order.`,
   };
 }
 

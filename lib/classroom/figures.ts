@@ -27,6 +27,8 @@ export interface SceneFigures {
   scatterReading: string | null;
   /** "over 30 simulated runs each". */
   basis: string;
+  /** The end screen's heading, e.g. "Final loads, mean over 30 simulated runs each". */
+  title: string;
 }
 
 /** The four figures of one run. */
@@ -83,19 +85,20 @@ export function sceneFigures(groups: readonly { key: string; label: string; runs
     cvReading: welch ? welch.reading : (result.warnings[0] ?? 'No reading: the groups are too small to compare.'),
     scatterReading: withinSd?.reading ?? null,
     basis,
+    title: `Final loads, mean ${basis}`,
   };
 }
 
 /**
- * Where one real run's CV sits among simulated runs' CVs, in plain words, e.g.
- * "The real run's CV (6.1 %) is higher than 24 of the 30 simulated runs."
+ * Where one measured run's CV sits among simulated runs' CVs, in plain words, e.g.
+ * "The measured run's CV (6.1 %) is higher than 24 of the 30 simulated runs."
  */
 export function placeAmongSimulated(realCv: number, simulatedCvs: readonly number[]): string {
   const lower = simulatedCvs.filter((cv) => cv < realCv).length;
   const pct = formatDecimals(realCv * 100, 1);
   const n = simulatedCvs.length;
   if (n === 0) return 'No simulated runs to compare with.';
-  if (lower === n) return `The real run's CV (${pct} %) is higher than all ${n} simulated runs: it scattered more than the model does with this method.`;
-  if (lower === 0) return `The real run's CV (${pct} %) is lower than all ${n} simulated runs: more even than the model expects.`;
-  return `The real run's CV (${pct} %) is higher than ${lower} of the ${n} simulated runs: it lies within what the model gives for this method.`;
+  if (lower === n) return `The measured run's CV (${pct} %) is higher than all ${n} simulated runs: it scattered more than the model does with this method.`;
+  if (lower === 0) return `The measured run's CV (${pct} %) is lower than all ${n} simulated runs: more even than the model expects.`;
+  return `The measured run's CV (${pct} %) is higher than ${lower} of the ${n} simulated runs: it lies within what the model gives for this method.`;
 }

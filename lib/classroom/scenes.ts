@@ -25,7 +25,7 @@ export const SCENES: Record<SceneKey, SceneInfo> = {
   pattern: { key: 'pattern', title: 'Cross or circle', lesson: 'One pass at 100 % in cross order against one pass round the circle.', compareBy: 'method' },
   lube: { key: 'lube', title: 'Dry or lubricated', lesson: 'The same torque passes with a dry nut factor and with a paste: a lower, steadier nut factor (K).', compareBy: 'lubricant' },
   tool: { key: 'tool', title: 'Torque or tension', lesson: 'Torque wrench passes against a hydraulic tensioner with its load transfer factor.', compareBy: 'method' },
-  real: { key: 'real', title: 'A real run beside the model', lesson: 'A run the class recorded next to a simulated run of the same joint, method and lubricant.', compareBy: null },
+  real: { key: 'real', title: 'A measured run beside the model', lesson: 'A run the class recorded next to a simulated run of the same joint, method and lubricant.', compareBy: null },
 };
 
 /** Simulated runs per side behind the end figures and the reading. */

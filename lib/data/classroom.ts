@@ -3,6 +3,7 @@ import { Op } from 'sequelize';
 import { AppError } from '../http/errors';
 import { sceneSetup, seedFamily, simulateSide, SCENES, type Library, type SceneKey } from '../classroom/scenes';
 import { studDiameterM } from '../joints/joint-properties';
+import { currentCohortOf } from '../cohorts/current-cohort';
 import { storeRun as storeRunInDb } from './runs/store-run';
 import { assertRole, type SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, User, sequelize } from '@/models';
@@ -46,26 +47,26 @@ export async function classroomLibrary(user: SessionUser): Promise<Library> {
   };
 }
 
-/** The instructor's own cohorts, the current one (today within its dates, else the latest start) first. */
+/** The instructor's own cohorts, the current one (lib/cohorts/current-cohort.ts, as Home calls it) first. */
 export async function classroomCohorts(user: SessionUser, today = new Date().toISOString().slice(0, 10)): Promise<ClassroomCohort[]> {
   assertRole(user, CLASSROOM_ROLES);
   const rows = await Cohort.findAll({ where: { instructorId: user.id }, order: [['startsOn', 'DESC'], ['id', 'DESC']], raw: true });
   const cohorts = rows.map((c) => ({ id: c.id, name: c.name, startsOn: String(c.startsOn).slice(0, 10), endsOn: String(c.endsOn).slice(0, 10) }));
-  const current = cohorts.findIndex((c) => c.startsOn <= today && today <= c.endsOn);
+  const current = cohorts.indexOf(currentCohortOf(cohorts, today)!);
   if (current > 0) cohorts.unshift(...cohorts.splice(current, 1));
   return cohorts;
 }
 
 /**
- * Complete runs the instructor may see in their cohorts, latest first (at most 40), for the
- * "real run" scene. `defaultRunId` is the latest run that was not simulated in the current
- * cohort, else the latest not simulated, else the latest run.
+ * Complete measured runs (never simulated ones) the instructor may see in their cohorts, latest
+ * first (at most 40), for the "real run" scene. `defaultRunId` is the latest of the current
+ * cohort, else the latest.
  */
 export async function classroomRealRuns(user: SessionUser, cohorts: readonly ClassroomCohort[]): Promise<{ runs: ClassroomRunOption[]; defaultRunId: number | null }> {
   assertRole(user, CLASSROOM_ROLES);
   const scope = await runScope(user);
   const rows = (await Run.findAll({
-    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }, { stepCount: { [Op.gt]: 0 } }] },
+    where: { [Op.and]: [scope, { status: 'complete' }, { cohortId: { [Op.ne]: null } }, { source: { [Op.ne]: 'simulated' } }, { stepCount: { [Op.gt]: 0 } }] },
     include: [{ model: User, as: 'operator', attributes: ['id', 'name'] }, { model: Joint, as: 'joint', attributes: ['id', 'name'] }],
     order: [['recordedAt', 'DESC'], ['id', 'DESC']],
     limit: 40,
@@ -74,11 +75,10 @@ export async function classroomRealRuns(user: SessionUser, cohorts: readonly Cla
     id: r.id,
     source: r.source,
     cohortId: r.cohortId,
-    label: `${operatorLabel(user, r.operator)} · ${r.recordedAt.toISOString().slice(0, 10)} · ${r.joint.name}${r.source === 'simulated' ? ' (simulated)' : ''}`,
+    label: `${operatorLabel(user, r.operator)} · ${r.recordedAt.toISOString().slice(0, 10)} · ${r.joint.name}`,
   }));
   const currentId = cohorts[0]?.id;
-  const real = runs.filter((r) => r.source !== 'simulated');
-  const pick = real.find((r) => r.cohortId === currentId) ?? real[0] ?? runs[0];
+  const pick = runs.find((r) => r.cohortId === currentId) ?? runs[0];
   return { runs, defaultRunId: pick?.id ?? null };
 }
 

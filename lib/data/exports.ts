@@ -3,6 +3,7 @@ import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { Cohort, Joint, Lubricant, Method, Run, sequelize } from '@/models';
 import { csvRows } from '../export/write-csv';
+import { csvLoad } from '../export/load-resolution';
 import { pseudonymFor } from './pseudonym';
 import { assertRole, type SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
@@ -68,7 +69,7 @@ export async function* exportRunsCsv(user: SessionUser | null, query: RunExportQ
       return [
         run.id, run.recordedAt.toISOString(), nameOf(joints, run.jointId), nameOf(methods, run.methodId), nameOf(lubricants, run.lubricantId),
         nameOf(cohorts, run.cohortId), pseudonym(run.operatorId), Number(reading.step_order), Number(reading.pass_number), Number(reading.tightened),
-        Number(reading.position), Number(reading.load_n),
+        Number(reading.position), csvLoad(Number(reading.load_n), 'si'),
       ];
     }));
   }

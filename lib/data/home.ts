@@ -3,6 +3,7 @@ import { Op, fn, col } from 'sequelize';
 import { Cohort, CohortMember, Method, Run, User } from '@/models';
 import type { Role } from '@/models/user';
 import type { SessionUser } from '../auth/session';
+import { currentCohortOf } from '../cohorts/current-cohort';
 import { listRuns, type RunRow } from './runs';
 import { runScope, taughtCohortIds } from './scope';
 
@@ -43,11 +44,7 @@ export async function homeSummary(user: SessionUser, now = new Date()): Promise<
       const ids = await taughtCohortIds(user);
       const cohorts = await cohortSummaries(ids);
       const today = now.toISOString().slice(0, 10);
-      const currentCohort =
-        cohorts.find((c) => c.startsOn <= today && today <= c.endsOn) ??
-        [...cohorts].filter((c) => c.startsOn > today).sort((a, b) => a.startsOn.localeCompare(b.startsOn))[0] ??
-        cohorts[0] ??
-        null;
+      const currentCohort = currentCohortOf(cohorts, today);
       const scope = await runScope(user);
       const runsThisWeek = await Run.count({ where: { [Op.and]: [scope, { recordedAt: { [Op.gte]: weekAgo } }] } });
       return { role: 'instructor', currentCohort, cohorts, runsThisWeek, latestRuns: (await latest(6)).rows };

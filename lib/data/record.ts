@@ -46,6 +46,11 @@ export interface RecordOption {
   name: string;
 }
 
+export interface RecordCohort extends RecordOption {
+  startsOn: string;
+  endsOn: string;
+}
+
 export interface RecordOperator extends RecordOption {
   /** Cohorts this operator may be recorded in by this viewer. */
   cohortIds: number[];
@@ -63,7 +68,7 @@ export interface RecordOptions {
   joints: RecordJoint[];
   methods: RecordMethod[];
   lubricants: RecordOption[];
-  cohorts: RecordOption[];
+  cohorts: RecordCohort[];
   operators: RecordOperator[];
   rememberedMappings: RememberedMapping[];
 }
@@ -114,12 +119,12 @@ export async function recordOptions(user: SessionUser): Promise<RecordOptions> {
     sequelize.query<{ joint_id: number; header_signature: string; headers: string; mapping: unknown }>('SELECT joint_id, header_signature, headers, mapping FROM column_maps', { type: QueryTypes.SELECT }),
   ]);
   const cohortIds = [...new Set(operators.flatMap((o) => o.cohortIds))];
-  const cohorts = cohortIds.length ? await Cohort.findAll({ where: { id: cohortIds }, attributes: ['id', 'name'], order: [['startsOn', 'DESC']] }) : [];
+  const cohorts = cohortIds.length ? await Cohort.findAll({ where: { id: cohortIds }, attributes: ['id', 'name', 'startsOn', 'endsOn'], order: [['startsOn', 'DESC']] }) : [];
   return {
     joints: joints.map((j) => jointDto(j, positions.filter((p) => p.jointId === j.id))),
     methods: methods.map((m) => ({ id: m.id, name: m.name, passes: m.passes, checkPasses: m.checkPasses })),
     lubricants,
-    cohorts: cohorts.map((c) => ({ id: c.id, name: c.name })),
+    cohorts: cohorts.map((c) => ({ id: c.id, name: c.name, startsOn: String(c.startsOn).slice(0, 10), endsOn: String(c.endsOn).slice(0, 10) })),
     operators,
     rememberedMappings: maps.flatMap((row) => {
       const parsed = columnMappingSchema.safeParse(typeof row.mapping === 'string' ? JSON.parse(row.mapping) : row.mapping);

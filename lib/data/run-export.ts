@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { sequelize } from '@/models';
 import { csvRows, type CsvValue } from '@/lib/export/write-csv';
+import { csvLoad } from '@/lib/export/load-resolution';
 import { NEWTONS_PER_LBF, nmToTorque } from '@/lib/ingest/units';
 import type { SessionUser } from '../auth/session';
 import { operatorLabel } from './scope';
@@ -94,7 +95,7 @@ export async function* exportSelectionCsv(user: SessionUser, query: z.infer<type
     yield csvRows(rows.map((row) => [
       ...meta.get(Number(row.run_id))!,
       Number(row.step_order), Number(row.pass_number), Number(row.tightened), Number(row.position),
-      us ? Number(row.load_n) / NEWTONS_PER_LBF : Number(row.load_n),
+      csvLoad(Number(row.load_n), units),
       row.applied_torque_nm == null ? null : nmToTorque(Number(row.applied_torque_nm), us ? 'ft-lb' : 'N·m'),
       orNull(row.applied_pressure_bar), orNull(row.time_s),
     ]));

@@ -6,7 +6,8 @@
  */
 import type { NormalisedRun } from '@/lib/record/run-types';
 import { csvRows, type CsvValue } from '@/lib/export/write-csv';
-import { NEWTONS_PER_LBF, nmToTorque } from './units';
+import { csvLoad } from '@/lib/export/load-resolution';
+import { nmToTorque } from './units';
 
 /** Unit system of an export. */
 export type ExportUnits = 'si' | 'us';
@@ -22,8 +23,8 @@ export interface RunCsvMeta {
  * `run_id, step, pass, tightened_position, position, load_N|load_lbf,
  * applied_torque_Nm|applied_torque_ft-lb, applied_pressure_bar, time_s`
  * (`applied_pressure_bar` is our addition so hydraulic runs keep their pressures; bar in both unit systems).
- * Numbers are written with full precision (`String(n)`), so re-importing gives the same readings
- * (exactly in SI; to within floating-point rounding of the lbf factor in US units).
+ * Loads are written to what the instrument resolves (`csvLoad`: 10 N or 1 lbf), so re-importing gives
+ * the readings to within half that step; other numbers keep full precision (`String(n)`).
  */
 export function runToCsv(run: NormalisedRun, meta: RunCsvMeta, units: ExportUnits): string {
   const us = units === 'us';
@@ -31,7 +32,7 @@ export function runToCsv(run: NormalisedRun, meta: RunCsvMeta, units: ExportUnit
   for (const step of run.steps) {
     const torque = step.appliedTorqueNm == null ? null : nmToTorque(step.appliedTorqueNm, us ? 'ft-lb' : 'N·m');
     step.loadsN.forEach((loadN, i) => {
-      rows.push([meta.runId, step.order, step.pass, step.position, i + 1, us ? loadN / NEWTONS_PER_LBF : loadN, torque, step.appliedPressureBar, step.timeS]);
+      rows.push([meta.runId, step.order, step.pass, step.position, i + 1, csvLoad(loadN, units), torque, step.appliedPressureBar, step.timeS]);
     });
   }
   return csvRows(rows);

@@ -99,3 +99,35 @@ describe('GET /api/runs', () => {
     expect(body.error.message).toContain(field);
   });
 });
+
+describe('GET /api/runs/:id/export', () => {
+  it('writes CSV loads to what the instrument resolves (10 N, 1 lbf) and keeps full precision in JSON', async () => {
+    // A demo run with readings that are not whole tens of newtons (the simulator's loads are not).
+    const [run] = await sequelize.query<{ id: number }>(
+      `SELECT r.id FROM runs r JOIN readings g ON g.run_id = r.id WHERE MOD(g.load_n, 10) <> 0 ORDER BY r.id LIMIT 1`,
+      { type: QueryTypes.SELECT },
+    );
+    const stored = await sequelize.query<{ load_n: number }>(
+      'SELECT g.load_n FROM readings g JOIN tightening_steps s ON s.id = g.step_id WHERE g.run_id = ? ORDER BY s.step_order, g.position',
+      { type: QueryTypes.SELECT, replacements: [run!.id] },
+    );
+    const csvLoads = async (units: string) => {
+      const text = await (await researcher.get(`/api/runs/${run!.id}/export?format=csv&units=${units}`)).text();
+      return text.trim().split('\r\n').slice(1).map((line) => line.split(',')[5]!);
+    };
+    const si = await csvLoads('si');
+    expect(si).toHaveLength(stored.length);
+    // 0.01 kN: a whole number of tens of newtons, within 5 N of the stored reading.
+    si.forEach((cell, i) => {
+      expect(cell).toMatch(/^-?\d*0$/);
+      expect(Math.abs(Number(cell) - Number(stored[i]!.load_n))).toBeLessThanOrEqual(5);
+    });
+    // 1 lbf = 4.4482216152605 N (exact by definition): whole pound-force.
+    (await csvLoads('us')).forEach((cell, i) => {
+      expect(cell).toMatch(/^-?\d+$/);
+      expect(Math.abs(Number(cell) - Number(stored[i]!.load_n) / 4.4482216152605)).toBeLessThanOrEqual(0.5);
+    });
+    const json = (await (await researcher.get(`/api/runs/${run!.id}/export?format=json&units=si`)).json()) as { rows: { load: number }[] };
+    expect(json.rows.map((r) => r.load)).toEqual(stored.map((r) => Number(r.load_n)));
+  });
+});

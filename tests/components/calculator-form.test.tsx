@@ -18,6 +18,21 @@ describe('CalculatorForm', () => {
     expect(screen.getByRole('complementary', { name: 'Caution' })).toHaveTextContent('stud, flange and gasket limits');
   });
 
+  it('keeps each result value whole on one line: it may break only between two values at the "·"', () => {
+    render(<CalculatorForm />);
+    const results = screen.getByRole('heading', { name: 'Results' }).closest('section')!;
+    const values = [...results.querySelectorAll('dd')].filter((dd) => /\d/.test(dd.firstChild?.textContent ?? ''));
+    expect(values.length).toBeGreaterThanOrEqual(6);
+    for (const dd of values) {
+      const parts = [...dd.querySelectorAll('[data-value-part]')];
+      expect(parts.length, dd.textContent ?? '').toBeGreaterThan(0);
+      for (const part of parts) expect(part).toHaveClass('whitespace-nowrap');
+      // Nothing of the value outside a no-wrap part but the separators (and the note below it).
+      const note = dd.querySelector('.block')?.textContent ?? '';
+      expect((dd.textContent ?? '').replace(note, '').split(' · ')).toEqual(parts.map((p) => p.textContent));
+    }
+  });
+
   it('converts values exactly when the units are switched, and back', () => {
     render(<CalculatorForm />);
     const od = screen.getByLabelText('Nut bearing diameter (across flats)') as HTMLInputElement;

@@ -137,11 +137,18 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     const page = await instructorContext.newPage();
     await page.goto(`${server.baseUrl}/cohorts/${cohortId}`);
     const card = page.getByRole('article', { name: `Run ${runId} by Ilse Marrow` });
+    // The lists are folded with their counts until opened.
+    const awaiting = page.locator('#awaiting > summary');
+    expect(await awaiting.textContent()).toContain('Runs awaiting a verdict (1)');
+    expect(await card.isVisible()).toBe(false);
+    await awaiting.click();
     await card.waitFor();
     await expect.poll(() => card.textContent()).toContain(asShown(expected.cvPercent));
     await card.getByLabel('Comment for the trainee').fill('Stud 5 ended high: slow down on the final pass.');
     await card.getByRole('button', { name: 'Sign off this result' }).click();
     const signed = page.getByRole('article', { name: `Signed-off run ${runId} by Ilse Marrow` });
+    await expect.poll(() => page.locator('#signed > summary').textContent(), { timeout: 15_000 }).toContain('Signed off (1)');
+    await page.locator('#signed > summary').click();
     await signed.waitFor({ timeout: 15_000 });
     expect(await count('SELECT COUNT(*) AS n FROM run_verdicts WHERE run_id = ? AND all_met = 0', [runId])).toBe(1);
     await signed.getByRole('button', { name: 'Send results e-mail' }).click();

@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
-import { saveSceneRuns } from '@/lib/data/classroom';
+import { classroomCohorts, classroomRealRuns, saveSceneRuns } from '@/lib/data/classroom';
 import { storeRun } from '@/lib/data/runs/store-run';
 import type { SessionUser } from '@/lib/auth/session';
 import { RUNS_PER_SIDE } from '@/lib/classroom/scenes';
@@ -127,5 +127,15 @@ describe('saving a classroom scene to a cohort', () => {
     const href = state.data?.compareHref ?? '';
     expect([dayBefore, dayAfter].some((day) => new RegExp(`^/compare\\?by=method&ids=\\d+,\\d+&jointId=${jointId}&from=${day}&to=${day}$`).test(href))).toBe(true);
     for (const id of methods) expect(href).toContain(String(id));
+  });
+
+  it('offers only measured runs for the "real run" scene, the just-saved simulated runs never among them', async () => {
+    // Runs after the save above: the cohort holds simulated runs dated now, the latest of all.
+    const { runs, defaultRunId } = await classroomRealRuns(marta, await classroomCohorts(marta));
+    expect(runs.length).toBeGreaterThan(0);
+    const sources = await sequelize.query<{ source: string }>('SELECT DISTINCT source FROM runs WHERE id IN (?)', { type: QueryTypes.SELECT, replacements: [runs.map((r) => r.id)] });
+    expect(sources.map((r) => r.source)).not.toContain('simulated');
+    expect(runs.every((r) => r.source !== 'simulated' && !/simulated/i.test(r.label))).toBe(true);
+    expect(runs.map((r) => r.id)).toContain(defaultRunId);
   });
 });

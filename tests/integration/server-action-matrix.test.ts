@@ -56,6 +56,7 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/joints/actions.ts', name: 'saveLubricantAction', allowed: ['instructor', 'admin'], call: () => joints.saveLubricantAction(null, idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'saveManualRunAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.saveManualRunAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'saveSimulatedRunAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.saveSimulatedRunAction(idle, form()) },
+  { file: 'app/(lab)/record/actions.ts', name: 'saveRecordPreferencesAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.saveRecordPreferencesAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'startRecordingAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.startRecordingAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'finishRecordingAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.finishRecordingAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'createStreamTokenAction', allowed: ['instructor'], call: () => record.createStreamTokenAction(idle, form()) },

@@ -68,6 +68,7 @@ describe('scene end figures (over 30 simulated runs each)', () => {
   it('shows several passes more even than one pass, with a reading that finds the difference (docs/REFERENCE.md §4 ✓ [HENNIG], [HSW], [BSCI])', () => {
     const f = figuresOf('passes');
     expect(f.basis).toBe('over 30 simulated runs each');
+    expect(f.title).toBe('Final loads, mean over 30 simulated runs each');
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
     expect(f.sides[0]!.meanDriftPercent).toBeLessThan(f.sides[1]!.meanDriftPercent);
     expect(f.cvReading).toMatch(/^Run CV differs between these methods at the 5 % level \(Welch's ANOVA on ln run CV/);
@@ -82,7 +83,7 @@ describe('scene end figures (over 30 simulated runs each)', () => {
     expect(f.sides[1]!.cv).toBeLessThan(f.sides[0]!.cv);
   });
   it('places a real run among the simulated ones in words', () => {
-    expect(placeAmongSimulated(0.05, [0.02, 0.04, 0.06, 0.08])).toBe("The real run's CV (5.0 %) is higher than 2 of the 4 simulated runs: it lies within what the model gives for this method.");
+    expect(placeAmongSimulated(0.05, [0.02, 0.04, 0.06, 0.08])).toBe("The measured run's CV (5.0 %) is higher than 2 of the 4 simulated runs: it lies within what the model gives for this method.");
     expect(placeAmongSimulated(0.1, [0.02])).toMatch(/higher than all 1/);
   });
 });

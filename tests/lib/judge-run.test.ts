@@ -93,6 +93,14 @@ describe('judgeRun: pattern', () => {
     expect(pattern.limit).toBe(4);
   });
 
+  it('says "the one pass" for a one-pass method and "all 4 passes" for four, never "all 1 passes"', () => {
+    const onePass = { passes: [{ percentOfTarget: 100, pattern: 'cross' as const, orderByStudCount: { '8': CROSS_8 } }], checkPasses: 0 };
+    expect(result(judgeRun(input({ method: onePass, steps: stepsFor([CROSS_8]) })), 'pattern').sentence).toBe("The one pass followed the method's order.");
+    expect(result(judgeRun(input()), 'pattern').sentence).toBe("All 4 passes followed the method's order, check pass circular.");
+    const swapped = [1, 3, 5, 7, 2, 6, 4, 8];
+    expect(result(judgeRun(input({ method: onePass, steps: stepsFor([swapped]) })), 'pattern').sentence).toMatch(/ 0 of 1 pass followed the method's order\.$/);
+  });
+
   it('names the pass, step and positions when two studs are swapped', () => {
     const swapped = [1, 3, 5, 7, 2, 6, 4, 8];
     const pattern = result(judgeRun(input({ steps: stepsFor([CROSS_8, swapped, CROSS_8, CIRCLE_8]) })), 'pattern');

@@ -38,18 +38,20 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="cohorts-heading">
             <h2 id="cohorts-heading" className="font-semibold">Your cohorts</h2>
+            <div className="overflow-x-auto">
             <table className="mt-2 w-full text-sm">
-              <thead className="text-left text-muted"><tr><th className="py-1">Cohort</th><th>Site</th><th>Dates</th><th className="text-right">Trainees</th><th className="text-right">Runs</th></tr></thead>
+              <thead className="text-left text-muted"><tr><th className="py-1 pr-3">Cohort</th><th className="pr-3">Site</th><th className="pr-3">Dates</th><th className="pr-3 text-right">Trainees</th><th className="text-right">Runs</th></tr></thead>
               <tbody className="num">
                 {summary.cohorts.map((c) => (
                   <tr key={c.id} className="border-t border-rule">
-                    <td className="py-1.5"><Link className="underline decoration-rule underline-offset-4" href={`/cohorts/${c.id}`}>{c.name}</Link></td>
-                    <td>{c.site}</td><td>{formatDate(c.startsOn)} – {formatDate(c.endsOn)}</td>
-                    <td className="text-right">{c.members}</td><td className="text-right">{c.runs}</td>
+                    <td className="py-1.5 pr-3"><Link className="underline decoration-rule underline-offset-4" href={`/cohorts/${c.id}`}>{c.name}</Link></td>
+                    <td className="pr-3">{c.site}</td><td className="pr-3">{formatDate(c.startsOn)} – {formatDate(c.endsOn)}</td>
+                    <td className="pr-3 text-right">{c.members}</td><td className="text-right">{c.runs}</td>
                   </tr>
                 ))}
               </tbody>
             </table>
+            </div>
           </section>
           <LatestRuns runs={summary.latestRuns} units={user.units} title="Latest runs in your cohorts" />
           <SavedComparisons items={saved} />
@@ -65,6 +67,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="by-method">
             <h2 id="by-method" className="font-semibold">Scatter by method (complete runs)</h2>
+            <div className="overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Method</th><th className="text-right">Runs</th><th className="text-right">Mean CV of final loads</th></tr></thead>
               <tbody className="num">
@@ -73,6 +76,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
             <p className="mt-2 text-xs text-muted">Operators are shown as stable pseudonyms in your view.</p>
           </section>
           <SavedComparisons items={saved} />
@@ -100,6 +104,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="accounts">
             <h2 id="accounts" className="font-semibold">Newest accounts</h2>
+            <div className="overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Name</th><th>E-mail</th><th>Role</th><th>Created</th></tr></thead>
               <tbody>
@@ -108,6 +113,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
             <p className="mt-2 text-xs text-muted">{summary.totalRuns} runs are stored in the lab.</p>
           </section>
         </>

@@ -7,6 +7,7 @@ import { createStreamToken, revokeStreamToken } from '@/lib/data/stream-tokens';
 import { finishRecording, startRecording } from '@/lib/data/runs/live-stream';
 import { saveManualRun } from '@/lib/data/runs/manual-run';
 import { saveSimulatedRun } from '@/lib/data/runs/simulated-run';
+import { saveRecordPreferences } from '@/lib/data/preferences';
 import { okState, type FormState } from '@/lib/http/form-state';
 import { parseFields, withActionRole } from '@/lib/http/server-action';
 
@@ -81,4 +82,10 @@ export const revokeStreamTokenAction = withActionRole(INSTRUCTOR, async (user, f
   await revokeStreamToken(user, tokenId);
   revalidatePath('/record');
   return okState('Token revoked: the bridge using it is now refused.');
+});
+
+/** Remembers the way in and the header's choices for the signed-in person (the next visit starts from them). */
+export const saveRecordPreferencesAction = withActionRole(RECORD_ROLES, async (user, form): Promise<FormState> => {
+  await saveRecordPreferences(user, payloadOf(form));
+  return okState('Remembered.');
 });
