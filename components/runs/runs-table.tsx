@@ -23,7 +23,9 @@ const SORTS = [
   { key: 'passCount', label: 'Passes' },
 ] as const;
 
-const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
+const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside', needs_review: 'Needs review' };
+/** The statuses the filter offers, in the order a person looks for them. */
+const STATUS_FILTER = ['complete', 'needs_review', 'set_aside', 'recording'] as const;
 
 export function RunsTable({ options, units }: { options: RunFilterOptions; units: 'si' | 'us' }) {
   const { params, update: setParam } = useUrlState(['page']);
@@ -43,7 +45,7 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
 
   return (
     <div className="space-y-3">
-      <form className="grid gap-3 rounded-card border border-rule bg-panel p-3 sm:grid-cols-3 lg:grid-cols-7" onSubmit={(e) => e.preventDefault()} aria-label="Filters">
+      <form className="grid gap-3 rounded-card border border-rule bg-panel p-3 sm:grid-cols-3 lg:grid-cols-8" onSubmit={(e) => e.preventDefault()} aria-label="Filters">
         {FILTERS.map((filter) => (
           <label key={filter.key} className="text-sm">
             <span className="block text-muted">{filter.label}</span>
@@ -54,6 +56,13 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
             </select>
           </label>
         ))}
+        <label className="text-sm">
+          <span className="block text-muted">Status</span>
+          <select value={params.get('status') ?? ''} onChange={(e) => setParam({ status: e.target.value })} className="mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5">
+            <option value="">All</option>
+            {STATUS_FILTER.map((status) => <option key={status} value={status}>{STATUS_LABELS[status]}</option>)}
+          </select>
+        </label>
         <label className="text-sm">
           <span className="block text-muted">From</span>
           <input type="date" value={params.get('from') ?? ''} onChange={(e) => setParam({ from: e.target.value })} className="mt-1 w-full rounded-md border border-rule bg-paper px-2 py-1.5" />
@@ -97,7 +106,11 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
                 <td className="px-3 py-2 text-right">{run.passCount}</td>
                 <td className="px-3 py-2 text-right">{run.finalMeanN === null ? '—' : formatForce(run.finalMeanN, units)}</td>
                 <td className="px-3 py-2 text-right">{run.finalCv === null ? '—' : formatPercent(run.finalCv * 100)}</td>
-                <td className="px-3 py-2">{STATUS_LABELS[run.status] ?? run.status}</td>
+                <td className="px-3 py-2">
+                  {run.status === 'needs_review' ? (
+                    <span className="rounded-full border border-caution bg-caution/15 px-2 py-0.5 text-xs font-semibold">{STATUS_LABELS.needs_review}</span>
+                  ) : (STATUS_LABELS[run.status] ?? run.status)}
+                </td>
               </tr>
             ))}
             {data && data.rows.length === 0 ? (

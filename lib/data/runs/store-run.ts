@@ -4,6 +4,8 @@ import type { NormalisedRun } from '../../record/run-types';
 import { sequelize } from '../../platform/db';
 import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
+import type { RunCheckReason } from '../../run-check/types';
+import { checkBeforeStoring } from './check-before-storing';
 
 export interface RunHeader {
   jointId: number;
@@ -19,6 +21,8 @@ export interface RunHeader {
   notes?: string | null;
   setAsideReason?: string | null;
   setAsideById?: number | null;
+  /** Simulate's idempotency key (sha256 of the normalised header, gasket and seed); unique. */
+  simulationKey?: string | null;
 }
 
 /** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */
@@ -36,31 +40,42 @@ const sqlNumber = (value: number | null | undefined): string => {
  * Stores a normalised run (header, steps, readings and the per-run figures) inside the given
  * transaction, with multi-row INSERTs (no row-by-row writes). The caller owns the transaction, so
  * a failure anywhere leaves nothing behind. Returns the new run's id.
+ *
+ * A run stored as complete passes the run check first (lib/run-check, through
+ * {@link checkBeforeStoring}): one that fails is stored as "needs review" with its reasons, in
+ * the same INSERT. The live stream's run is checked when it is finished ({@link completeRecordedRun}).
  */
 export async function storeRun(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<number> {
+  return (await storeRunWithStatus(header, run, transaction)).runId;
+}
+
+/** {@link storeRun}, also giving the status the run was stored with and the check's reasons. */
+export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<{ runId: number; status: RunStatus; reasons: RunCheckReason[] }> {
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
+  const checked = header.status === 'complete' ? await checkBeforeStoring(header, run, transaction) : null;
   const figures = storedRunFigures(run);
   const now = new Date();
   const [runId] = await sequelize.query(
     `INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status,
-       set_aside_reason, set_aside_by_id, recorded_at, notes, stud_count, step_count, pass_count,
+       set_aside_reason, set_aside_by_id, review_reasons, simulation_key, recorded_at, notes, stud_count, step_count, pass_count,
        final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at)
-     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
+     VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)`,
     {
       type: QueryTypes.INSERT,
       transaction,
       replacements: [
         header.jointId, header.methodId, header.lubricantId, header.operatorId, header.cohortId, header.targetLoadN,
-        header.bandPercent, header.source, header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
+        header.bandPercent, header.source, checked?.status ?? header.status, header.setAsideReason ?? null, header.setAsideById ?? null,
+        checked?.reasonsJson ?? null, header.simulationKey ?? null,
         header.recordedAt, header.notes ?? null, figures.studCount, figures.stepCount, figures.passCount,
         figures.finalMeanN, figures.finalSdN, figures.finalCv, figures.finalMinN, figures.finalMaxN, figures.finalLoadsJson, figures.driftJson, now, now,
       ],
     },
   );
   await appendSteps(Number(runId), run, 0, transaction);
-  return Number(runId);
+  return { runId: Number(runId), status: checked?.status ?? header.status, reasons: checked?.reasons ?? [] };
 }
 
 /** The driver connection a Sequelize transaction holds (mariadb's, with its binary bulk `batch`). */
@@ -135,6 +150,18 @@ async function insertSteps(runId: number, studCount: number, steps: NormalisedRu
       });
     }
   }
+}
+
+/**
+ * Completes a recorded (live) run whose steps were just appended: recomputes its figures and runs
+ * the same check as {@link storeRun}; the status becomes complete or needs review. Inside the
+ * caller's transaction.
+ */
+export async function completeRecordedRun(runId: number, ids: { jointId: number; methodId: number; bandPercent: number }, run: NormalisedRun, transaction: Transaction): Promise<'complete' | 'needs_review'> {
+  await refreshRunFigures(runId, run, transaction);
+  const checked = await checkBeforeStoring(ids, run, transaction);
+  await sequelize.query('UPDATE runs SET status = ?, review_reasons = ?, updated_at = ? WHERE id = ?', { transaction, replacements: [checked.status, checked.reasonsJson, new Date(), runId] });
+  return checked.status;
 }
 
 /** Recomputes the stored per-run figures after a run's readings changed. */

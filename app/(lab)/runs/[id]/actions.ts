@@ -3,7 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { okState, type FieldErrors } from '@/lib/http/form-state';
-import { withActionRole } from '@/lib/http/server-action';
+import { parseFields, withActionRole } from '@/lib/http/server-action';
+import { REVIEW_ROLES, reviewRun, runReviewSchema } from '@/lib/data/runs/run-review';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
 
 /** Adds an instructor's comment to a run (bound to the run id on the page). */
@@ -14,4 +15,13 @@ export const addCommentAction = withActionRole(['instructor', 'admin'], async (u
   await addRunComment(user, runId, parsed.data.body);
   revalidatePath(`/runs/${runId}`);
   return okState('Comment saved. The trainee sees it on this report.');
+});
+
+/** Confirms a run held for review (it counts from now on) or sets it aside, with a note (bound to the run id on the page). */
+export const reviewRunAction = withActionRole(REVIEW_ROLES, async (user, form, runId: number) => {
+  const input = parseFields(runReviewSchema, { decision: form.get('decision'), note: form.get('note') }, 'The decision needs a note.');
+  const { status } = await reviewRun(user, runId, input);
+  revalidatePath(`/runs/${runId}`);
+  revalidatePath('/runs');
+  return okState(status === 'complete' ? 'Run confirmed: it now counts in comparisons, assessments and exports.' : 'Run set aside: it is kept but left out of statistics.');
 });

@@ -6,7 +6,8 @@ import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
 import { requirePageUser } from '@/lib/auth/session';
-import { addCommentAction } from './actions';
+import { REVIEW_ROLES } from '@/lib/data/runs/run-review';
+import { addCommentAction, reviewRunAction } from './actions';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -28,6 +29,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
       units={user.units}
       role={user.role}
       commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
+      reviewAction={REVIEW_ROLES.includes(user.role) ? reviewRunAction.bind(null, parsed.data) : null}
     />
   );
 }
