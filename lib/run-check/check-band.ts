@@ -1,4 +1,4 @@
-import { percent } from './format';
+import { percent, plainPercent } from './format';
 import type { RunCheckInput, RunCheckReason } from './types';
 
 /**
@@ -24,6 +24,6 @@ export function checkBand({ run, bandPercent }: RunCheckInput): RunCheckReason |
   const high = Math.max(...percents);
   return {
     rule: 'off_band',
-    message: `Every stud ended ${above ? 'above' : 'below'} the ±${percent(bandPercent)} band: final loads ${percent(low)} to ${percent(high)} of the target. Check the unit, the target and the joint chosen.`,
+    message: `Every stud ended ${above ? 'above' : 'below'} the ±${plainPercent(bandPercent)} band: final loads ${percent(low)} to ${percent(high)} of the target. Check the unit, the target and the joint chosen.`,
   };
 }
