@@ -20,10 +20,10 @@ export function checkBand({ run, bandPercent }: RunCheckInput): RunCheckReason |
   const mean = percents.reduce((sum, p) => sum + p, 0) / percents.length;
   const limit = Math.max(OFF_BAND_WIDTHS * bandPercent, OFF_BAND_MIN_PERCENT);
   if (!(above || below) || Math.abs(mean - 100) <= limit) return null;
-  const low = Math.min(...percents);
-  const high = Math.max(...percents);
+  const [low, high] = [percent(Math.min(...percents)), percent(Math.max(...percents))];
+  const range = low === high ? low : `${low} to ${high}`;
   return {
     rule: 'off_band',
-    message: `Every stud ended ${above ? 'above' : 'below'} the ±${plainPercent(bandPercent)} band: final loads ${percent(low)} to ${percent(high)} of the target. Check the unit, the target and the joint chosen.`,
+    message: `Every stud ended ${above ? 'above' : 'below'} the ±${plainPercent(bandPercent)} band: final loads ${range} of the target. Check the unit, the target and the joint chosen.`,
   };
 }

@@ -2,7 +2,9 @@ import { kn } from './format';
 import type { RunCheckInput, RunCheckReason } from './types';
 
 /**
- * A stud whose readings move less than 2 % of the target over the whole run, while the other
+ * A stud that was tightened in some step but did not rise by 2 % of the target at any of its own
+ * steps (the snapshot before the first step is taken as 0 N), and whose readings move less than
+ * 2 % of the target over the whole run, while the other
  * studs' readings move by a median of at least 25 % of the target, is a dead or stuck channel
  * (common practice: a gauge that does not move while the joint around it is loaded has lost its
  * lead, its supply or its zero). Both fractions are our own choice.
@@ -28,9 +30,17 @@ export function checkFlatChannel({ run }: RunCheckInput): RunCheckReason | null 
     });
   }
   const spans = max.map((high, i) => high - min[i]!);
-  const flat = spans.flatMap((span, i) => (span < FLAT_SPAN_FRACTION * run.targetLoadN ? [i] : []));
-  if (flat.length === 0 || flat.length === run.studCount) return null;
-  const others = spans.filter((_, i) => !flat.includes(i));
+  // Only studs the steps say were tightened: in a run that stops early the others are rightly flat.
+  const tightened = new Set(run.steps.map((step) => step.position - 1));
+  const rose = new Set<number>();
+  const ordered = [...run.steps].sort((a, b) => a.order - b.order);
+  ordered.forEach((step, k) => {
+    const before = k === 0 ? 0 : ordered[k - 1]!.loadsN[step.position - 1]!;
+    if (step.loadsN[step.position - 1]! - before >= FLAT_SPAN_FRACTION * run.targetLoadN) rose.add(step.position - 1);
+  });
+  const flat = spans.flatMap((span, i) => (tightened.has(i) && !rose.has(i) && span < FLAT_SPAN_FRACTION * run.targetLoadN ? [i] : []));
+  const others = spans.filter((_, i) => tightened.has(i) && !flat.includes(i));
+  if (flat.length === 0 || others.length === 0) return null;
   if (median(others) < LOADING_SPAN_FRACTION * run.targetLoadN) return null;
   const studs = flat.map((i) => `stud ${i + 1} (${kn(max[i]!)})`).join(', ');
   return {

@@ -4,8 +4,9 @@
  * research export until an instructor confirms it with a note (or sets it aside).
  *
  * The joint: M20 × 2.5 studs of ASTM A193M B7, minimum yield 720 MPa (ASTM A193M, Table 2) on a
- * tensile stress area of 245 mm² (ISO 898-1, docs/REFERENCE.md §1) = 176.4 kN (computed); target
- * 90 kN (51 % of yield), so every stud at 200–230 % of target (180–207 kN) is above yield.
+ * tensile stress area of 244.8 mm² (ISO 898-1's formula; its table rounds to 245 mm²,
+ * docs/REFERENCE.md §1) = 176.3 kN (computed); target 90 kN (51 % of yield), so every stud at
+ * 200–230 % of target (180–207 kN) is above yield.
  */
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -120,11 +121,11 @@ describe('the run check on upload', () => {
     const exportedBefore = await exportedRunIds();
     expect(exportedBefore.size).toBe(countedBefore);
 
-    // Every stud at 200–230 % of the 90 kN target: 180–207 kN, above the 176.4 kN yield load (computed above).
+    // Every stud at 200–230 % of the 90 kN target: 180–207 kN, above the 176.3 kN yield load (computed above).
     const overYield = await upload(wideFile([180, 198, 207, 189], [0.5, 1]), 'over-yield.csv', twoPassId);
     expect(overYield.status).toBe('needs_review');
     const yieldReason = overYield.reviewReasons!.find((r) => r.rule === 'over_yield')!;
-    expect(yieldReason.message).toContain('176.4 kN (ASTM A193M, Table 2)');
+    expect(yieldReason.message).toContain('176.3 kN (ASTM A193M, Table 2)');
     expect(yieldReason.message).toContain('4 of 4 studs end at or above it');
 
     // 4 passes and 16 steps uploaded as "one pass, cross order" (1 pass, 4 steps).

@@ -126,7 +126,11 @@ describe('checkYield', () => {
 describe('checkBand', () => {
   it(`holds a run whose every stud ends above the band with the mean more than ${OFF_BAND_WIDTHS} band widths (min ${OFF_BAND_MIN_PERCENT} %) off target`, () => {
     const high = runOf({ orders: [CROSS_8], fractions: [1], finalLoadsN: EVEN.map((l) => 1.45 * l) });
-    expect(checkBand(input(high))?.message).toBe('Every stud ended above the ±10 % band: final loads 145\u00a0% to 145\u00a0% of the target. Check the unit, the target and the joint chosen.');
+    expect(checkBand(input(high))?.message).toBe('Every stud ended above the ±10 % band: final loads 145\u00a0% of the target. Check the unit, the target and the joint chosen.');
+  });
+  it('gives the range of the final loads when they differ (every stud at 60–70 %, below the band)', () => {
+    const low = runOf({ orders: [CROSS_8], fractions: [1], finalLoadsN: [0.6, 0.65, 0.7, 0.6, 0.62, 0.68, 0.64, 0.66].map((f) => f * TARGET_N) });
+    expect(checkBand(input(low))?.message).toContain('below the ±10 % band: final loads 60.0\u00a0% to 70.0\u00a0% of the target');
   });
   it('passes an uneven trainee run that misses the band on both sides', () => {
     const uneven = runOf({ orders: [CROSS_8], fractions: [1], finalLoadsN: [0.7, 1.3, 0.8, 1.2, 0.75, 1.25, 0.9, 1.1].map((f) => f * TARGET_N) });
@@ -151,6 +155,10 @@ describe('checkFlatChannel', () => {
   });
   it('passes a run in which every stud loads', () => {
     expect(checkFlatChannel(input(FOUR_PASS_RUN))).toBeNull();
+  });
+  it('passes a run that stopped early: the studs not yet tightened are rightly flat', () => {
+    const early = { ...FOUR_PASS_RUN, steps: FOUR_PASS_RUN.steps.slice(0, 3) };
+    expect(checkFlatChannel(input(early))).toBeNull();
   });
 });
 

@@ -1,4 +1,3 @@
-import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '@/lib/platform/db';
 import { AppError } from '@/lib/http/errors';
@@ -18,7 +17,8 @@ export interface CheckedStatus {
 /**
  * The run check of lib/run-check against the run's joint and method as they are in the database,
  * read inside the storing transaction. Called from store-run.ts only, where every way in (upload,
- * hand entry, the live stream when it is finished, simulate) stores its run.
+ * hand entry, the live stream when it is finished, simulate) stores its run. No `server-only`
+ * import: the demo seeder and the bench store runs through store-run.ts outside Next.
  */
 export async function checkBeforeStoring(ids: { jointId: number; methodId: number; bandPercent: number }, run: NormalisedRun, transaction: Transaction): Promise<CheckedStatus> {
   const [joints, methods] = await Promise.all([
