@@ -61,6 +61,8 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/record/actions.ts', name: 'createStreamTokenAction', allowed: ['instructor'], call: () => record.createStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'revokeStreamTokenAction', allowed: ['instructor'], call: () => record.revokeStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
+  // A complete run: allowed callers get "does not need review" (409), changing nothing.
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'reviewRunAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.reviewRunAction(ids.run, idle, (() => { const f = form(); f.set('decision', 'confirm'); f.set('note', 'matrix review'); return f; })()) },
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'endSessionsAction', allowed: ['admin'], call: () => people.endSessionsAction(ids.trainee, idle, form()) },
