@@ -36,6 +36,11 @@ describe('Simulate on the record page', () => {
     const [row] = await sequelize.query<{ source: string; email: string }>('SELECT r.source, u.email FROM runs r JOIN users u ON u.id = r.operator_id WHERE r.id = ?', { type: QueryTypes.SELECT, replacements: [savedRun] });
     expect(row).toEqual({ source: 'simulated', email: DEMO_ACCOUNTS.trainee });
     await page.screenshot({ path: screenshotPath('record-simulate'), fullPage: true });
+    // Issue 15 item 6: the same request again stores nothing and says which run holds it, with its link.
+    await page.getByRole('button', { name: 'Simulate and save' }).click();
+    await page.getByText(`This simulation (same header, gasket and seed) is already stored as run ${savedRun}; it was not stored again. Change the seed for another run.`).waitFor();
+    const [stored] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM runs WHERE source = 'simulated' AND simulation_key = (SELECT simulation_key FROM runs WHERE id = ?)", { type: QueryTypes.SELECT, replacements: [savedRun] });
+    expect(Number(stored!.n)).toBe(1);
     await page.getByRole('link', { name: `Open run ${savedRun}` }).click();
     await page.getByRole('heading', { name: 'How even were your final loads?' }).waitFor();
     await page.close();
