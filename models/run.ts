@@ -2,7 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 export const RUN_SOURCES = ['upload', 'manual', 'simulated', 'live'] as const;
 export type RunSource = (typeof RUN_SOURCES)[number];
-export const RUN_STATUSES = ['draft', 'recording', 'complete', 'set_aside'] as const;
+export const RUN_STATUSES = ['draft', 'recording', 'complete', 'set_aside', 'needs_review'] as const;
 export type RunStatus = (typeof RUN_STATUSES)[number];
 
 export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run>> {
@@ -23,6 +23,13 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   /** The cohort instructor (or admin) who confirmed a trainee-recorded run as a witnessed attempt. */
   declare assessedConfirmedById: CreationOptional<number | null>;
   declare assessedConfirmedAt: CreationOptional<Date | null>;
+  /** Why the run check held the run (JSON list of lib/run-check reasons); null when it passed. */
+  declare reviewReasons: CreationOptional<string | null>;
+  declare reviewedById: CreationOptional<number | null>;
+  declare reviewedAt: CreationOptional<Date | null>;
+  declare reviewNote: CreationOptional<string | null>;
+  /** sha256 of a simulated run's normalised header, gasket and seed (unique); null for other runs. */
+  declare simulationKey: CreationOptional<string | null>;
   declare recordedAt: Date;
   declare notes: CreationOptional<string | null>;
   declare studCount: number;
@@ -58,6 +65,11 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         recordedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         assessedConfirmedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         assessedConfirmedAt: { type: DataTypes.DATE, allowNull: true },
+        reviewReasons: { type: DataTypes.TEXT, allowNull: true },
+        reviewedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        reviewedAt: { type: DataTypes.DATE, allowNull: true },
+        reviewNote: { type: DataTypes.STRING(1000), allowNull: true },
+        simulationKey: { type: DataTypes.CHAR(64), allowNull: true },
         recordedAt: { type: DataTypes.DATE, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: true },
         studCount: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false },

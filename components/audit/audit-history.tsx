@@ -5,6 +5,7 @@ const ACTION_LABELS: Record<string, string> = {
   set_aside: 'Set aside',
   restore: 'Restored',
   confirm_attempt: 'Confirmed as a witnessed attempt',
+  confirm_review: 'Confirmed after review',
   sign_off: 'Signed off',
   create: 'Created',
   update: 'Changed',

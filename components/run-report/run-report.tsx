@@ -9,6 +9,7 @@ import { formatDateTime } from '@/lib/format/format-date';
 import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';
+import { ReviewPanel } from './review-panel';
 import { RunCharts } from './run-charts';
 import { ATTEMPT_KIND_LABEL, type AttemptKind } from '@/lib/qualification/attempt-kind';
 import { PrintHeader, PrintSignature } from '@/components/ui/print-signature';
@@ -19,7 +20,7 @@ const TOOL_LABELS: Record<string, string> = {
   hydraulic_tensioner: 'Hydraulic tensioner',
   other: 'Other tool',
 };
-const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
+const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside', needs_review: 'Needs review' };
 
 interface Props {
   header: RunHeaderDto;
@@ -30,9 +31,11 @@ interface Props {
   /** How the run came in and whether it counts as an assessed attempt. */
   attempt: { kind: AttemptKind; sourceLine: string };
   commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  /** Confirm or set aside a run held for review; null for those who may not decide. */
+  reviewAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -79,6 +82,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
             <strong>Set aside:</strong> {header.setAsideReason ?? 'no reason given'}. This run is kept but left out of statistics.
           </p>
         ) : null}
+        {header.review ? <ReviewPanel review={header.review} status={header.status} action={reviewAction} /> : null}
         <dl className="grid gap-x-6 gap-y-2 rounded-card border border-rule bg-panel p-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
           <Item term="Joint" value={`${header.joint.name}`} detail={`${header.studCount} studs · ${header.joint.thread} · ${header.joint.studGrade}`} />
           <Item term="Method" value={TOOL_LABELS[header.method.toolKind] ?? header.method.toolKind} detail={`Passes at ${header.method.passPercents.map((p) => `${p} %`).join(', ')}`} />

@@ -11,6 +11,14 @@ const SELECTS = [
   { key: 'operatorId', label: 'Operator', option: 'operators' },
 ] as const;
 
+/** The statuses the filter offers, in the order a person looks for them. */
+const STATUSES = [
+  { value: 'complete', label: 'Complete' },
+  { value: 'needs_review', label: 'Needs review' },
+  { value: 'set_aside', label: 'Set aside' },
+  { value: 'recording', label: 'Recording' },
+] as const;
+
 const DATES = [
   { key: 'from', label: 'From' },
   { key: 'to', label: 'To' },
@@ -30,6 +38,8 @@ export function activeFilterChips(params: URLSearchParams, options: RunFilterOpt
     const name = options[filter.option].find((o) => String(o.id) === id)?.name ?? id;
     chips.push({ key: filter.key, text: `${filter.label}: ${name}` });
   }
+  const status = STATUSES.find((s) => s.value === params.get('status'));
+  if (status) chips.push({ key: 'status', text: `Status: ${status.label}` });
   for (const date of DATES) {
     const value = params.get(date.key);
     if (value) chips.push({ key: date.key, text: `${date.label}: ${value}` });
@@ -65,7 +75,7 @@ export function RunsFilters({ params, options, onChange }: { params: URLSearchPa
         ) : null}
       </div>
       <form id="runs-filters" onSubmit={(e) => e.preventDefault()} aria-label="Filters"
-        className={`${open ? 'grid' : 'hidden'} gap-3 rounded-card border border-rule bg-panel p-3 sm:grid sm:grid-cols-3 lg:grid-cols-7`}>
+        className={`${open ? 'grid' : 'hidden'} gap-3 rounded-card border border-rule bg-panel p-3 sm:grid sm:grid-cols-3 lg:grid-cols-8`}>
         {SELECTS.map((filter) => (
           <label key={filter.key} className="text-sm">
             <span className="block text-muted">{filter.label}</span>
@@ -75,6 +85,13 @@ export function RunsFilters({ params, options, onChange }: { params: URLSearchPa
             </select>
           </label>
         ))}
+        <label className="text-sm">
+          <span className="block text-muted">Status</span>
+          <select value={params.get('status') ?? ''} onChange={(e) => onChange({ status: e.target.value })} className={field}>
+            <option value="">All</option>
+            {STATUSES.map((status) => <option key={status.value} value={status.value}>{status.label}</option>)}
+          </select>
+        </label>
         {DATES.map((date) => (
           <label key={date.key} className="text-sm">
             <span className="block text-muted">{date.label}</span>

@@ -18,7 +18,7 @@ const SORTS = [
   { key: 'passCount', label: 'Passes' },
 ] as const;
 
-const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside' };
+const STATUS_LABELS: Record<string, string> = { draft: 'Draft', recording: 'Recording', complete: 'Complete', set_aside: 'Set aside', needs_review: 'Needs review' };
 
 export function RunsTable({ options, units }: { options: RunFilterOptions; units: 'si' | 'us' }) {
   const router = useRouter();
@@ -84,7 +84,11 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
                 <td className="px-3 py-2 text-right">{run.passCount}</td>
                 <td className="px-3 py-2 text-right">{run.finalMeanN === null ? '—' : formatForce(run.finalMeanN, units)}</td>
                 <td className="px-3 py-2 text-right">{run.finalCv === null ? '—' : formatPercent(run.finalCv * 100)}</td>
-                <td className="px-3 py-2">{STATUS_LABELS[run.status] ?? run.status}</td>
+                <td className="px-3 py-2">
+                  {run.status === 'needs_review' ? (
+                    <span className="rounded-full border border-caution bg-caution/15 px-2 py-0.5 text-xs font-semibold">{STATUS_LABELS.needs_review}</span>
+                  ) : (STATUS_LABELS[run.status] ?? run.status)}
+                </td>
               </tr>
             ))}
             {data && data.rows.length === 0 ? (

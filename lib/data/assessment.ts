@@ -116,6 +116,7 @@ export async function signOffRun(user: SessionUser | null, runId: number, rawCom
   const { run, cohort } = await cohortRun(user, runId);
   const comment = typeof rawComment === 'string' ? rawComment.trim() : '';
   if (comment.length > 4000) throw new AppError('invalid_input', 'The comment is longer than 4,000 characters; shorten it.', { fieldErrors: { comment: ['The comment is longer than 4,000 characters; shorten it.'] } });
+  if (run.status === 'needs_review') throw new AppError('invalid_input', 'Only complete runs can be signed off; this run needs review first: confirm it or set it aside on its report.');
   if (run.status !== 'complete') throw new AppError('invalid_input', `Only complete runs can be signed off; this run is ${run.status.replace('_', ' ')}.`);
   const facts = await attemptRow(run.id);
   if (facts) assertAssessedAttempt(facts);

@@ -5,6 +5,7 @@ import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
+import type { RunCheckReason } from '../run-check/types';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 
 export interface RunHeaderDto {
@@ -12,6 +13,8 @@ export interface RunHeaderDto {
   recordedAt: string;
   status: string;
   setAsideReason: string | null;
+  /** The run check's reasons and the decision on them; null when the run passed the check. */
+  review: RunReviewDto | null;
   source: string;
   notes: string | null;
   targetLoadN: number;
@@ -23,6 +26,12 @@ export interface RunHeaderDto {
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
   operator: { key: string; label: string };
   cohort: { id: number; name: string } | null;
+}
+
+export interface RunReviewDto {
+  reasons: RunCheckReason[];
+  /** Who confirmed the run or set it aside, when, and their note; null while it awaits review. */
+  decision: { by: string; at: string; note: string | null } | null;
 }
 
 export interface RunCommentDto {
@@ -81,12 +90,19 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
   }
   const comments = !seesFreeText(user) ? [] : await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
   const method = run.method;
+  const reviewer = run.reviewedById ? await User.findByPk(run.reviewedById, { attributes: ['id', 'name'] }) : null;
   return {
     header: {
       id: run.id,
       recordedAt: run.recordedAt.toISOString(),
       status: run.status,
       setAsideReason: run.setAsideReason,
+      review: run.reviewReasons
+        ? {
+            reasons: JSON.parse(run.reviewReasons) as RunCheckReason[],
+            decision: reviewer && run.reviewedAt ? { by: operatorLabel(user, reviewer), at: run.reviewedAt.toISOString(), note: seesFreeText(user) ? run.reviewNote : null } : null,
+          }
+        : null,
       source: run.source,
       notes: seesFreeText(user) ? run.notes : null,
       targetLoadN: run.targetLoadN,

@@ -101,3 +101,21 @@ export function maxBelievableStudLoad(joint: StoredJointStrength): { maxStudLoad
     return { maxStudLoadN: 3 * joint.targetLoadN, source: `3 × the joint's target load (the stud grade "${joint.studGrade}" is not in our table)` };
   }
 }
+
+/**
+ * The stud's minimum yield load, N: the grade's minimum yield strength (ASTM A193 / A193M, Table 2,
+ * via lib/calc/grades) × the thread's tensile stress area (ASME B1.1 / ISO 898-1, lib/calc/thread).
+ * `source` names the table for the screen. Null when the grade is not in our table, the diameter is
+ * outside it, or the thread is not valid (the run check then skips the yield rule).
+ */
+export function studYieldLoad(row: StoredJointStrength): { yieldLoadN: number; source: string } | null {
+  const grade = gradeIdOf(row.studGrade);
+  if (!grade) return null;
+  try {
+    const geometry = threadGeometry(threadSpecOf(row));
+    const props = gradeProperties(grade, geometry.diameterMm);
+    return { yieldLoadN: props.yieldMpa * geometry.tensileStressAreaMm2, source: props.source };
+  } catch {
+    return null;
+  }
+}

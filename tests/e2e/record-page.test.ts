@@ -123,7 +123,8 @@ describe('Record page', () => {
     expect(during).toBeLessThan(readings);
     await page.waitForFunction((n) => Number(document.querySelector('[data-testid=sample-count]')?.textContent ?? '0') === n, readings, { timeout: 20_000 });
     await page.getByRole('button', { name: 'Finish' }).click();
-    await page.getByText(new RegExp(`^Run ${runId} is complete: 8 steps`)).waitFor({ timeout: 20_000 });
+    // The 4-stud test joint has no order in the first demo method: the run check holds the run for review (issue 15).
+    await page.getByText(new RegExp(`^Run ${runId} is finished: 8 steps derived from the stream\\. It needs review before it counts`)).waitFor({ timeout: 20_000 });
     await page.screenshot({ path: screenshotPath('record-stream-finished'), fullPage: true });
   });
 });

@@ -71,8 +71,10 @@ describe('saveManualRun', () => {
     const steps = await storedSteps(runId);
     expect(steps.map((s) => [s.position, s.pass])).toEqual([[first, 1], [second, 1]]);
     expect(steps[1]!.loadsN).toEqual(row2.map((v) => v * 1000));
-    const [run] = await sequelize.query<{ source: string; status: string }>('SELECT source, status FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
-    expect(run).toEqual({ source: 'manual', status: 'complete' });
+    const [run] = await sequelize.query<{ source: string; status: string; review_reasons: string }>('SELECT source, status, review_reasons FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
+    // Two steps of a method with more: the run check (issue 15) holds it for review, stored whole.
+    expect(run).toMatchObject({ source: 'manual', status: 'needs_review' });
+    expect((JSON.parse(run!.review_reasons) as Array<{ rule: string; message: string }>)[0]!.message).toMatch(/^The run has 1 pass and 2 steps; the method ".*" prescribes \d+ pass(es)? and \d+ steps for 8 studs\.$/);
   });
 
   it('refuses a trainee saving a run as another operator, and stores nothing', async () => {

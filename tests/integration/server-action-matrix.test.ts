@@ -67,6 +67,8 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setAsideAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.setAsideAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'restoreRunAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.restoreRunAction(ids.run, idle, form()) },
   { file: 'app/(lab)/cohorts/actions.ts', name: 'resendInviteAction', allowed: ['instructor', 'admin'], call: () => cohorts.resendInviteAction(ids.trainee, ids.cohort, idle, form()) },
+  // A complete run: allowed callers get "does not need review" (409), changing nothing.
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'reviewRunAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.reviewRunAction(ids.run, idle, (() => { const f = form(); f.set('decision', 'confirm'); f.set('note', 'matrix review'); return f; })()) },
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'endSessionsAction', allowed: ['admin'], call: () => people.endSessionsAction(ids.trainee, idle, form()) },

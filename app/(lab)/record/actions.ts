@@ -20,6 +20,9 @@ export type RecordFormState = FormState<RecordResult>;
 
 const INSTRUCTOR = ['instructor'] as const;
 
+/** The sentence added when a run was stored but held for review by the run check. */
+const heldForReview = (status: string) => (status === 'needs_review' ? ' It needs review before it counts: open it to see why.' : '');
+
 function payloadOf(formData: FormData): unknown {
   const raw = formData.get('payload');
   if (typeof raw !== 'string') return null;
@@ -32,17 +35,18 @@ function payloadOf(formData: FormData): unknown {
 
 /** Saves the hand-entry grid as one run. */
 export const saveManualRunAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
-  const { runId, stepCount } = await saveManualRun(user, payloadOf(form));
+  const { runId, stepCount, status } = await saveManualRun(user, payloadOf(form));
   revalidatePath('/runs');
   revalidatePath('/record');
-  return okState(`Saved run ${runId} with ${stepCount} steps.`, { runId });
+  return okState(`Saved run ${runId} with ${stepCount} steps.${heldForReview(status)}`, { runId });
 });
 
 /** Simulates one run of the header's joint, method and lubricant and saves it (source simulated). */
 export const saveSimulatedRunAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
-  const { runId, stepCount } = await saveSimulatedRun(user, payloadOf(form));
+  const { runId, stepCount, status, alreadyStored } = await saveSimulatedRun(user, payloadOf(form));
+  if (alreadyStored) return okState(`This simulation (same header, gasket and seed) is already stored as run ${runId}; it was not stored again. Change the seed for another run.`, { runId });
   revalidatePath('/runs');
-  return okState(`Simulated and saved run ${runId} with ${stepCount} steps.`, { runId });
+  return okState(`Simulated and saved run ${runId} with ${stepCount} steps.${heldForReview(status)}`, { runId });
 });
 
 /** Creates an empty run in status recording for the bridge. */
@@ -57,10 +61,10 @@ const runIdSchema = z.object({ runId: z.coerce.number().int().positive() });
 /** Finishes a recording: derives the steps and marks the run complete. */
 export const finishRecordingAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
   const { runId } = parseFields(runIdSchema, { runId: form.get('runId') }, 'Choose the recording to finish.');
-  const { stepCount } = await finishRecording(user, runId);
+  const { stepCount, status } = await finishRecording(user, runId);
   revalidatePath('/runs');
   revalidatePath('/record');
-  return okState(`Run ${runId} is complete: ${stepCount} steps derived from the stream.`, { runId });
+  return okState(`Run ${runId} is ${status === 'needs_review' ? 'finished' : 'complete'}: ${stepCount} steps derived from the stream.${heldForReview(status)}`, { runId });
 });
 
 const tokenSchema = z.object({

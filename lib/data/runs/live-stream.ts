@@ -21,7 +21,7 @@ import { STREAM_MAX_READINGS } from '@/lib/record/limits';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { Joint, Run, sequelize } from '@/models';
-import { appendSteps, refreshRunFigures, storeRun } from './store-run';
+import { appendSteps, completeRecordedRun, storeRun } from './store-run';
 import { formatDecimals } from '@/lib/calc/units';
 
 /** Creates an empty run in status "recording" (source live) for the bridge to stream into. */
@@ -143,16 +143,18 @@ export async function streamStatus(user: SessionUser, runId: number): Promise<St
 
 /**
  * Finishes a recording: derives the steps from every sample, stores them with their readings,
- * recomputes the run's figures and sets the status to complete, in one transaction. The operator
+ * recomputes the run's figures and sets the status to complete (or needs review when the run check
+ * fails), in one transaction. The operator
  * or an instructor who sees the run may finish it; researchers only their own.
  *
  * @throws AppError('conflict') when the run is not recording; AppError('invalid_input') when no step can be found.
  */
-export async function finishRecording(user: SessionUser, runId: number): Promise<{ runId: number; stepCount: number }> {
+export async function finishRecording(user: SessionUser, runId: number): Promise<{ runId: number; stepCount: number; status: 'complete' | 'needs_review' }> {
   const visible = await visibleRun(user, runId);
   if (user.role === 'researcher' && visible.operatorId !== user.id) throw new AppError('not_found', `Run ${runId} is not yours to finish.`);
   return sequelize.transaction(async (transaction) => {
-    const [row] = await sequelize.query<{ status: string; stud_count: number; target_load_n: number }>('SELECT status, stud_count, target_load_n FROM runs WHERE id = ? FOR UPDATE', {
+    const [row] = await sequelize.query<{ status: string; stud_count: number; target_load_n: number; joint_id: number; method_id: number; band_percent: number }>(
+      'SELECT status, stud_count, target_load_n, joint_id, method_id, band_percent FROM runs WHERE id = ? FOR UPDATE', {
       type: QueryTypes.SELECT,
       transaction,
       replacements: [runId],
@@ -187,9 +189,8 @@ export async function finishRecording(user: SessionUser, runId: number): Promise
       steps: derived.steps.map((s) => ({ order: s.order, pass: s.pass, position: s.position, timeS: s.timeS, loadsN: s.loadsN })),
     };
     await appendSteps(runId, run, 0, transaction);
-    await refreshRunFigures(runId, run, transaction);
-    await Run.update({ status: 'complete' }, { where: { id: runId }, transaction });
-    return { runId, stepCount: run.steps.length };
+    const status = await completeRecordedRun(runId, { jointId: Number(row.joint_id), methodId: Number(row.method_id), bandPercent: Number(row.band_percent) }, run, transaction);
+    return { runId, stepCount: run.steps.length, status };
   });
 }
 

@@ -7,7 +7,8 @@ import { manualEntrySchema } from '@/lib/record/manual-entry-schema';
 import { planSteps } from '@/lib/record/step-plan';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
-import { storeRun } from './store-run';
+import { storeRunWithStatus } from './store-run';
+import type { RunStatus } from '@/models/run';
 import { formatDecimals } from '@/lib/calc/units';
 
 const fmtKn = (n: number) => `${formatDecimals(n / 1000, 2, 0)} kN`;
@@ -21,7 +22,7 @@ const fmtKn = (n: number) => `${formatDecimals(n / 1000, 2, 0)} kN`;
  *   `row` and `column` (`Stud N`) details; AppError('forbidden') for an operator this person may
  *   not record as.
  */
-export async function saveManualRun(user: SessionUser, input: unknown): Promise<{ runId: number; stepCount: number }> {
+export async function saveManualRun(user: SessionUser, input: unknown): Promise<{ runId: number; stepCount: number; status: RunStatus }> {
   const parsed = manualEntrySchema.safeParse(input);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
@@ -58,6 +59,6 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
     });
     run.steps.push({ order: r + 1, pass: step.pass, position: step.position, loadsN });
   }
-  const runId = await sequelize.transaction((transaction) => storeRun(resolved.header, run, transaction));
-  return { runId, stepCount: run.steps.length };
+  const { runId, status } = await sequelize.transaction((transaction) => storeRunWithStatus(resolved.header, run, transaction));
+  return { runId, stepCount: run.steps.length, status };
 }

@@ -4,6 +4,8 @@ import type { NormalisedRun } from '../../record/run-types';
 import { Run, sequelize } from '../../../models';
 import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
+import type { RunCheckReason } from '../../run-check/types';
+import { checkBeforeStoring } from './check-before-storing';
 
 export interface RunHeader {
   jointId: number;
@@ -21,6 +23,8 @@ export interface RunHeader {
   setAsideById?: number | null;
   /** Who put the run in (the signed-in person); the way in is `source`. */
   recordedById?: number | null;
+  /** Simulate's idempotency key (sha256 of the normalised header, gasket and seed); unique. */
+  simulationKey?: string | null;
 }
 
 /** Rows per multi-row INSERT: large enough to amortise round trips, small enough for max_allowed_packet. */
@@ -38,17 +42,36 @@ const sqlNumber = (value: number | null | undefined): string => {
  * Stores a normalised run (header, steps, readings and the per-run figures) inside the given
  * transaction, with multi-row INSERTs (no row-by-row writes). The caller owns the transaction, so
  * a failure anywhere leaves nothing behind. Returns the new run's id.
+ *
+ * A run stored as complete passes the run check first (lib/run-check, through
+ * {@link checkBeforeStoring}): one that fails is stored as "needs review" with its reasons, in
+ * the same INSERT. The live stream's run is checked when it is finished ({@link completeRecordedRun}).
  */
 export async function storeRun(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<number> {
+  return (await storeRunWithStatus(header, run, transaction)).runId;
+}
+
+/** {@link storeRun}, also giving the status the run was stored with and the check's reasons. */
+export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<{ runId: number; status: RunStatus; reasons: RunCheckReason[] }> {
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
+  const checked = header.status === 'complete' ? await checkBeforeStoring(header, run, transaction) : null;
   const { id: runId } = await Run.create(
-    { ...header, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
+    {
+      ...header,
+      status: checked?.status ?? header.status,
+      reviewReasons: checked?.reasonsJson ?? null,
+      simulationKey: header.simulationKey ?? null,
+      setAsideReason: header.setAsideReason ?? null,
+      setAsideById: header.setAsideById ?? null,
+      notes: header.notes ?? null,
+      ...storedRunFigures(run),
+    },
     { transaction },
   );
   await appendSteps(runId, run, 0, transaction);
-  return runId;
+  return { runId, status: checked?.status ?? header.status, reasons: checked?.reasons ?? [] };
 }
 
 /** The driver connection a Sequelize transaction holds (mariadb's, with its binary bulk `batch`). */
@@ -123,6 +146,18 @@ async function insertSteps(runId: number, studCount: number, steps: NormalisedRu
       });
     }
   }
+}
+
+/**
+ * Completes a recorded (live) run whose steps were just appended: recomputes its figures and runs
+ * the same check as {@link storeRun}; the status becomes complete or needs review. Inside the
+ * caller's transaction.
+ */
+export async function completeRecordedRun(runId: number, ids: { jointId: number; methodId: number; bandPercent: number }, run: NormalisedRun, transaction: Transaction): Promise<'complete' | 'needs_review'> {
+  await refreshRunFigures(runId, run, transaction);
+  const checked = await checkBeforeStoring(ids, run, transaction);
+  await Run.update({ status: checked.status, reviewReasons: checked.reasonsJson }, { where: { id: runId }, transaction });
+  return checked.status;
 }
 
 /** Recomputes the stored per-run figures after a run's readings changed. */

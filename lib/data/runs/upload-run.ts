@@ -10,7 +10,9 @@ import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
 import type { SessionUser } from '@/lib/auth/session';
 import { Run, Upload, sequelize } from '@/models';
 import { parseUploadInWorker } from './parse-in-worker';
-import { storeRun } from './store-run';
+import { storeRunWithStatus } from './store-run';
+import type { RunCheckReason } from '@/lib/run-check/types';
+import type { RunStatus } from '@/models/run';
 import { storeUploadBytes } from './upload-file';
 
 export interface UploadInput {
@@ -30,6 +32,9 @@ export interface UploadResult {
   readingCount: number;
   derivedSteps: boolean;
   warnings: string[];
+  /** complete, or needs_review with the run check's reasons. */
+  status: RunStatus;
+  reviewReasons: RunCheckReason[];
 }
 
 /** The 413 for a body or file over the upload limit. */
@@ -56,7 +61,7 @@ async function duplicate(user: SessionUser, runId: number | null): Promise<AppEr
 }
 
 /**
- * Stores an uploaded logger file as a complete run. The server re-parses the raw bytes with
+ * Stores an uploaded logger file as a complete run (or one that needs review, when the run check fails). The server re-parses the raw bytes with
  * lib/ingest in a worker thread with bounded memory and time (the browser's parse is only a
  * preview), then writes the run, its steps and readings, the Upload row (sha256, size, content
  * type, parse report), the bytes in 1 MB chunks and the remembered mapping in one transaction: a
@@ -89,7 +94,7 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
   };
   try {
     return await sequelize.transaction(async (transaction) => {
-      const runId = await storeRun(resolved.header, parsed.run, transaction);
+      const { runId, status, reasons } = await storeRunWithStatus(resolved.header, parsed.run, transaction);
       const { id: uploadId } = await Upload.create(
         { runId, uploadedById: user.id, fileName: input.fileName.slice(0, 255) || 'upload.csv', sha256, sizeBytes: input.bytes.length, contentType: (input.contentType || 'text/csv').slice(0, 120), parseReport: report },
         { transaction },
@@ -103,6 +108,8 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
         readingCount: parsed.run.steps.length * parsed.run.studCount,
         derivedSteps: parsed.derivedSteps,
         warnings: parsed.warnings,
+        status,
+        reviewReasons: reasons,
       };
     });
   } catch (error) {

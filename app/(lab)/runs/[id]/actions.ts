@@ -3,7 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { okState, type FieldErrors } from '@/lib/http/form-state';
-import { withActionRole } from '@/lib/http/server-action';
+import { parseFields, withActionRole } from '@/lib/http/server-action';
+import { REVIEW_ROLES, reviewRun, runReviewSchema } from '@/lib/data/runs/run-review';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
 import { changeRunStatus, confirmAttempt } from '@/lib/data/qualification/attempts';
 
@@ -36,4 +37,13 @@ export const restoreRunAction = withActionRole(['instructor', 'researcher', 'adm
   await changeRunStatus(user, runId, 'complete', form.get('reason'));
   revalidatePath(`/runs/${runId}`);
   return okState('Restored. The run counts again.');
+});
+
+/** Confirms a run held for review (it counts from now on) or sets it aside, with a note (bound to the run id on the page). */
+export const reviewRunAction = withActionRole(REVIEW_ROLES, async (user, form, runId: number) => {
+  const input = parseFields(runReviewSchema, { decision: form.get('decision'), note: form.get('note') }, 'The decision needs a note.');
+  const { status } = await reviewRun(user, runId, input);
+  revalidatePath(`/runs/${runId}`);
+  revalidatePath('/runs');
+  return okState(status === 'complete' ? 'Run confirmed: it now counts in comparisons, assessments and exports.' : 'Run set aside: it is kept but left out of statistics.');
 });

@@ -9,7 +9,8 @@ import { requirePageUser } from '@/lib/auth/session';
 import { runAttempt } from '@/lib/data/qualification/attempts';
 import { AttemptPanel } from '@/components/run-report/attempt-panel';
 import { AuditHistory } from '@/components/audit/audit-history';
-import { addCommentAction, confirmAttemptAction, restoreRunAction, setAsideAction } from './actions';
+import { REVIEW_ROLES } from '@/lib/data/runs/run-review';
+import { addCommentAction, confirmAttemptAction, restoreRunAction, reviewRunAction, setAsideAction } from './actions';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -35,6 +36,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
       role={user.role}
       attempt={{ kind: attempt.kind, sourceLine: attempt.sourceLine }}
       commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
+      reviewAction={REVIEW_ROLES.includes(user.role) ? reviewRunAction.bind(null, parsed.data) : null}
     />
     <div className="mt-6 space-y-6">
       <AttemptPanel actions={{
