@@ -36,6 +36,7 @@ import { createStepCollector, type StepCollector, type StepLines } from './reade
 import { createStepTableReader } from './readers/step-table';
 import type { JointForImport, ShapeReader } from './readers/types';
 import { createWideReader, studColumnIndexes } from './readers/wide';
+import { createZeroCorrector } from './readers/zero';
 import type { NormalisedRun } from '@/lib/record/run-types';
 
 export type { JointForImport } from './readers/types';
@@ -51,6 +52,8 @@ export interface NormaliseOptions {
   headerLine?: number;
   /** Tuning of step derivation for files without a step column. */
   derive?: Omit<DeriveStepsOptions, 'targetLoadN'>;
+  /** A long file without a step column whose time stamps each list every stud: each time stamp is a step (no derivation). */
+  longStepPerTimeStamp?: boolean;
 }
 
 /** The normalised run and how it was obtained. */
@@ -65,6 +68,8 @@ export interface NormaliseResult {
   warnings: string[];
   /** Data rows read (blank lines not counted). */
   rowCount: number;
+  /** Zero offsets removed and readings inside the noise band, in words (`readers/zero.ts`). */
+  zeroNotes: string[];
 }
 
 /** A streaming normaliser: push every data row with its file line number, then finish. */
@@ -107,13 +112,15 @@ export function createRowNormaliser(
 
   const collector = createStepCollector(N);
   const extras = createRowExtrasReader(cells, columns, mapping, options.decimalComma);
-  const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
+  const perStamp = mapping.shape === 'long' && columns.step < 0 && options.longStepPerTimeStamp === true;
+  const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' && !perStamp ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
   const sink = createSnapshotSink(N, collector, deriver);
+  const zero = createZeroCorrector(N, joint.targetLoadN, mapping.tare ?? 'auto', (k) => (studIdx ? names[studIdx[k]!]! : `stud ${k + 1}`));
   const reader: ShapeReader = studIdx
-    ? createWideReader(cells, extras, studIdx, sink)
+    ? createWideReader(cells, extras, studIdx, sink, zero)
     : mapping.shape === 'long'
-      ? createLongReader(cells, columns, extras, N, sink)
-      : createStepTableReader(cells, columns, extras, N, collector);
+      ? createLongReader(cells, columns, extras, N, sink, zero, perStamp ? joint.targetLoadN * (options.derive?.thresholdFraction ?? 0.02) : null)
+      : createStepTableReader(cells, columns, extras, N, collector, zero);
   let rowCount = 0;
 
   return {
@@ -147,7 +154,7 @@ export function createRowNormaliser(
         );
       }
       const run: NormalisedRun = { studCount: N, targetLoadN: joint.targetLoadN, steps };
-      return { run, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount };
+      return { run, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount, zeroNotes: zero.report() };
     },
   };
 }
