@@ -16,6 +16,8 @@ export interface ParsedPreview {
   preview: Array<{ line: number; cells: string[] }>;
   mapping: ColumnMapping | null;
   mappingNotes: string[];
+  /** False when the guess rests on an assumption: the mapping must be confirmed. */
+  mappingCertain: boolean;
 }
 
 export interface ParsedFile extends ParsedPreview {
@@ -26,6 +28,7 @@ export interface ParsedFile extends ParsedPreview {
   studCount: number;
   rowCount: number;
   warnings: string[];
+  zeroNotes: string[];
   finalLoadsN: number[];
 }
 

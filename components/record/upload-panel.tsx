@@ -3,13 +3,13 @@
 import { formatDecimals } from '@/lib/calc/units';
 import Link from 'next/link';
 import { useState } from 'react';
-import type { RecordJoint, RememberedMapping } from '@/lib/data/record';
+import type { RecordJoint, RecordMethod, RememberedMapping } from '@/lib/data/record';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
 import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 import { MappingEditor } from './mapping-editor';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 import { sendUpload, type UploadOutcome } from './upload-request';
-import { DerivedSteps, PreviewTable } from './upload-preview';
+import { DerivedSteps, MappingConfirm, PreviewTable } from './upload-preview';
 import { useFileParse, type Progress } from './use-file-parse';
 
 const BUTTON = 'rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50';
@@ -19,8 +19,9 @@ const LIMIT_MB = UPLOAD_LIMIT_BYTES / BYTES_PER_MB;
  * Upload a file: drop or choose, parse in a worker (`use-file-parse.ts`), confirm the mapping,
  * send raw file + mapping + header (`upload-request.ts`).
  */
-export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors, units }: {
+export function UploadPanel({ joint, method, header, rememberedMappings, onHeaderErrors, units }: {
   joint: RecordJoint;
+  method: RecordMethod | null;
   header: HeaderState;
   rememberedMappings: RememberedMapping[];
   onHeaderErrors: (errors: HeaderErrors) => void;
@@ -29,8 +30,9 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
   const [progress, setProgress] = useState<Progress>(null);
   const [outcome, setOutcome] = useState<UploadOutcome | null>(null);
   const [dragging, setDragging] = useState(false);
-  const { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, choose, changeMapping } = useFileParse({
+  const { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, changeMapping } = useFileParse({
     joint,
+    method,
     rememberedMappings,
     onProgress: setProgress,
     onParseStart: () => setOutcome(null),
@@ -87,6 +89,7 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
           <ul className="list-disc pl-5 text-sm">
             {view.sentences.map((s) => <li key={s}>{s}</li>)}
             {view.mappingNotes.map((s) => <li key={s}>{s}</li>)}
+            {parsed?.zeroNotes.map((s) => <li key={s}>{s}</li>)}
             {parsed?.warnings.map((s) => <li key={s} className="text-caution">{s}</li>)}
           </ul>
           {remembered ? <p className="text-sm text-good">Column mapping remembered from the last file with these columns on this joint.</p> : null}
@@ -94,7 +97,7 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
       ) : null}
 
       {view && mapping ? <MappingEditor headers={headers} mapping={mapping} onChange={changeMapping} joint={joint} /> : null}
-      {view && !mapping ? <p className="text-sm text-danger">The columns could not be guessed. Rename the stud load columns &ldquo;Stud 1&rdquo;, &ldquo;Stud 2&rdquo;, … or use a long or step-table layout, then choose the file again.</p> : null}
+      {parsed && !parsed.mappingCertain ? <MappingConfirm confirmed={mappingConfirmed} onConfirmed={setMappingConfirmed} /> : null}
 
       {view ? <PreviewTable headers={headers} rows={view.preview} mapping={mapping} /> : null}
 
@@ -102,10 +105,10 @@ export function UploadPanel({ joint, header, rememberedMappings, onHeaderErrors,
 
       {parsed ? (
         <div className="flex flex-wrap items-center gap-3">
-          <button type="button" className={BUTTON} disabled={!confirmed || progress !== null} onClick={upload}>
+          <button type="button" className={BUTTON} disabled={!confirmed || !mappingConfirmed || progress !== null} onClick={upload}>
             Save run ({parsed.stepCount} steps, {parsed.stepCount * parsed.studCount} readings)
           </button>
-          {!confirmed ? <span className="text-sm text-muted">Confirm the derived steps first.</span> : null}
+          {!mappingConfirmed ? <span className="text-sm text-muted">Check the column mapping first.</span> : !confirmed ? <span className="text-sm text-muted">Confirm the derived steps first.</span> : null}
         </div>
       ) : null}
 

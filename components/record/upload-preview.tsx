@@ -37,6 +37,14 @@ export function PreviewTable({ headers, rows, mapping }: { headers: string[]; ro
   );
 }
 
+/** The box that confirms a column mapping guessed with an assumption (a unit, gauge columns, a stud count that differs). */
+export function MappingConfirm({ confirmed, onConfirmed }: { confirmed: boolean; onConfirmed: (confirmed: boolean) => void }) {
+  return (
+    <label className="flex items-center gap-2 rounded-md border border-caution p-2 text-sm">
+      <input type="checkbox" checked={confirmed} onChange={(e) => onConfirmed(e.target.checked)} /> The column mapping above is right (part of it was guessed: see what was detected)
+    </label>
+  );
+}
 
 /** The steps derived from the loads of a file without step markers, with the box that confirms them. */
 export function DerivedSteps({ derived, units, confirmed, onConfirmed }: { derived: ParsedFile['derived']; units: 'si' | 'us'; confirmed: boolean; onConfirmed: (confirmed: boolean) => void }) {

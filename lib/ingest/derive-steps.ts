@@ -72,6 +72,8 @@ export interface DeriveStepsOptions {
 export interface DeriveStepsResult {
   steps: DerivedStep[];
   warnings: string[];
+  /** The last snapshot pushed (null when none): the reading of steps after the last rise. */
+  last: { line: number; timeS: number | null; loadsN: number[] } | null;
 }
 
 /** A streaming step deriver: push snapshots in row order, then finish. */
@@ -137,6 +139,9 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
   let lastTogetherLine = -1;
   /** Line of the last step's reading: the next step's lines start after it, so ranges never overlap. */
   let lastEmittedLine = 0;
+  const lastLoads = new Float64Array(studCount);
+  let lastLine = 0;
+  let lastTime: number | null = null;
 
   const resetBase = (s: Snapshot, keep: number) => {
     for (let k = 0; k < studCount; k++) {
@@ -214,6 +219,9 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
       if (s.loadsN.length !== studCount) {
         throw new AppError('invalid_input', `Line ${s.line}: expected ${studCount} stud loads, got ${s.loadsN.length}.`, { row: s.line });
       }
+      for (let k = 0; k < studCount; k++) lastLoads[k] = s.loadsN[k]!;
+      lastLine = s.line;
+      lastTime = s.timeS;
       if (!started) {
         started = true;
         resetBase(s, -1);
@@ -272,7 +280,7 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
         } else pass = ruled[i]!;
         return { order: i + 1, pass, ...f };
       });
-      return { steps, warnings };
+      return { steps, warnings, last: lastLine > 0 ? { line: lastLine, timeS: lastTime, loadsN: Array.from(lastLoads) } : null };
     },
   };
 }

@@ -26,7 +26,7 @@
  */
 import { AppError } from '@/lib/http/errors';
 import type { ColumnMapping } from './shapes';
-import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DerivedStep, type StepDeriver } from './derive-steps';
+import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DeriveStepsResult, type DerivedStep, type StepDeriver } from './derive-steps';
 import { cellError, createCellReader, formatLoadN } from './readers/cells';
 import { resolveColumns } from './readers/columns';
 import { createLongReader } from './readers/long';
@@ -142,7 +142,7 @@ export function createRowNormaliser(
       }
       reader.close();
       sink.close();
-      const derived = deriver ? addDerivedSteps(deriver, collector, options, columns.pass >= 0) : [];
+      const derived = deriver ? addDerivedSteps(deriver, collector, options, columns.pass >= 0, joint.plannedSteps) : [];
       if (!deriver) resolvePasses(collector);
       const { steps, stepLines, warnings } = collector;
       if (steps.length === 0) {
@@ -160,9 +160,10 @@ export function createRowNormaliser(
 }
 
 /** Moves the deriver's steps into the collector, with a warning asking to confirm them. */
-function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options: NormaliseOptions, hasPassColumn: boolean): DerivedStep[] {
+function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options: NormaliseOptions, hasPassColumn: boolean, plan: JointForImport['plannedSteps']): DerivedStep[] {
   const d = deriver.finish();
   collector.warnings.push(...d.warnings);
+  if (plan && !hasPassColumn) keepPlannedStepsAfterLastRise(d, plan, collector.warnings);
   for (const s of d.steps) {
     collector.steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN });
     collector.stepLines.push({ order: s.order, firstLine: s.firstLine, lastLine: s.lastLine });
@@ -173,6 +174,30 @@ function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options
     );
   }
   return d.steps;
+}
+
+/**
+ * When the rises found are, in order, the method's first steps (same studs), the method's passes are
+ * used, and the method's steps after the last rise (a check pass over studs already at load, where
+ * no stud rises) are kept as steps: their reading is the last row, their lines share out the rows
+ * after the last rise. Our rule; a warning says so.
+ */
+function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<JointForImport['plannedSteps']>, warnings: string[]): void {
+  const found = d.steps;
+  if (found.length === 0 || found.length >= plan.length || !d.last) return;
+  if (!found.every((s, i) => s.position === plan[i]!.position)) return;
+  found.forEach((s, i) => (s.pass = plan[i]!.pass));
+  const rest = plan.slice(found.length);
+  const from = found[found.length - 1]!.lastLine + 1;
+  const rows = d.last.line - from + 1;
+  if (rows < rest.length) return;
+  rest.forEach((p, i) => {
+    const firstLine = from + Math.floor((rows * i) / rest.length);
+    const lastLine = i === rest.length - 1 ? d.last!.line : from + Math.floor((rows * (i + 1)) / rest.length) - 1;
+    found.push({ order: found.length + 1, pass: p.pass, position: p.position, firstLine, lastLine, timeS: d.last!.timeS, loadsN: [...d.last!.loadsN], riseN: 0, appliedTorqueNm: null, appliedPressureBar: null });
+  });
+  const checks = rest.every((p) => p.check) ? ' (check pass)' : '';
+  warnings.push(`Steps ${found.length - rest.length + 1}–${found.length}${checks}: no stud rose after line ${from - 1}; kept because the method has these steps after the last rise. Their reading is the last row (line ${d.last.line}).`);
 }
 
 /**
