@@ -6,6 +6,8 @@ export interface ParseRequest {
   type: 'parse';
   file: File;
   mapping: ColumnMapping | null;
+  /** The workbook sheet to read (null = the first). */
+  sheet: string | null;
   joint: JointForImport;
   limitBytes: number;
 }
@@ -16,6 +18,9 @@ export interface ParsedPreview {
   preview: Array<{ line: number; cells: string[] }>;
   mapping: ColumnMapping | null;
   mappingNotes: string[];
+  /** Sheets of a workbook (empty for a text file) and the one read. */
+  sheets: string[];
+  sheet: string | null;
   /** False when the guess rests on an assumption: the mapping must be confirmed. */
   mappingCertain: boolean;
 }

@@ -9,7 +9,7 @@ import { BYTES_PER_MB } from '@/lib/ingest/text-file';
 import { MappingEditor } from './mapping-editor';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 import { sendUpload, type UploadOutcome } from './upload-request';
-import { DerivedSteps, MappingConfirm, PreviewTable } from './upload-preview';
+import { DerivedSteps, MappingConfirm, PreviewTable, SheetChoice } from './upload-preview';
 import { useFileParse, type Progress } from './use-file-parse';
 
 const BUTTON = 'rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50';
@@ -30,7 +30,7 @@ export function UploadPanel({ joint, method, header, rememberedMappings, onHeade
   const [progress, setProgress] = useState<Progress>(null);
   const [outcome, setOutcome] = useState<UploadOutcome | null>(null);
   const [dragging, setDragging] = useState(false);
-  const { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, changeMapping } = useFileParse({
+  const { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, chooseSheet, changeMapping } = useFileParse({
     joint,
     method,
     rememberedMappings,
@@ -41,7 +41,8 @@ export function UploadPanel({ joint, method, header, rememberedMappings, onHeade
   function upload() {
     if (!file || !mapping) return;
     setOutcome(null);
-    sendUpload({ file, mapping, header: headerPayload(header) }, { onProgress: setProgress, onOutcome: setOutcome, onHeaderErrors });
+    const sheet = (parsed ?? partial)?.sheet;
+    sendUpload({ file, mapping: sheet ? { ...mapping, sheet } : mapping, header: headerPayload(header) }, { onProgress: setProgress, onOutcome: setOutcome, onHeaderErrors });
   }
 
   const view = parsed ?? partial;
@@ -53,10 +54,10 @@ export function UploadPanel({ joint, method, header, rememberedMappings, onHeade
         onDragLeave={() => setDragging(false)}
         onDrop={(e) => { e.preventDefault(); setDragging(false); choose(e.dataTransfer.files); }}
         className={`rounded-card border-2 border-dashed p-6 text-center ${dragging ? 'border-accent bg-paper' : 'border-rule'}`}>
-        <p className="font-medium">Drop the logger&rsquo;s CSV or text export here, or</p>
+        <p className="font-medium">Drop the logger&rsquo;s CSV, text or Excel (.xlsx) export here, or</p>
         <label className="mt-2 inline-block cursor-pointer rounded-md border border-rule bg-paper px-3 py-1.5 text-sm focus-within:ring-2 focus-within:ring-accent">
           Choose a file
-          <input type="file" accept=".csv,.tsv,.txt,text/csv,text/plain" className="sr-only" onChange={(e) => choose(e.target.files)} aria-describedby="upload-limit" />
+          <input type="file" accept=".csv,.tsv,.txt,.xlsx,text/csv,text/plain,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" className="sr-only" onChange={(e) => choose(e.target.files)} aria-describedby="upload-limit" />
         </label>
         <p id="upload-limit" className="mt-2 text-xs text-muted">
           Comma, semicolon or tab separated; UTF-8. Up to {LIMIT_MB} MB. Shapes: wide (a column per stud), long (time, stud, load) or a step table (pass, step, stud, load).
@@ -96,6 +97,7 @@ export function UploadPanel({ joint, method, header, rememberedMappings, onHeade
         </section>
       ) : null}
 
+      {view && view.sheets.length > 1 ? <SheetChoice sheets={view.sheets} sheet={view.sheet} onChoose={chooseSheet} /> : null}
       {view && mapping ? <MappingEditor headers={headers} mapping={mapping} onChange={changeMapping} joint={joint} /> : null}
       {parsed && !parsed.mappingCertain ? <MappingConfirm confirmed={mappingConfirmed} onConfirmed={setMappingConfirmed} /> : null}
 

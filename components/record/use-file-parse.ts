@@ -46,13 +46,14 @@ export function useFileParse({ joint, method, rememberedMappings, onProgress, on
   const [remembered, setRemembered] = useState(false);
   const [confirmed, setConfirmed] = useState(false);
   const [mappingConfirmed, setMappingConfirmed] = useState(false);
+  const [sheet, setSheet] = useState<string | null>(null);
   const workerRef = useRef<Worker | null>(null);
 
   useEffect(() => () => workerRef.current?.terminate(), []);
 
   const rememberedFor = (headers: readonly string[]) => rememberedMappings.find((m) => m.jointId === joint.id && sameHeaders(m.headers, headers));
 
-  function parse(target: File, withMapping: ColumnMapping | null, firstLook: boolean) {
+  function parse(target: File, withMapping: ColumnMapping | null, firstLook: boolean, inSheet: string | null = sheet) {
     workerRef.current?.terminate();
     const worker = new Worker(new URL('./parse-worker.ts', import.meta.url), { type: 'module' });
     workerRef.current = worker;
@@ -101,7 +102,7 @@ export function useFileParse({ joint, method, rememberedMappings, onProgress, on
       onProgress(null);
       setParseError({ message: `The file reader stopped: ${e.message || 'unknown error'}. Reload the page and try again.`, row: null, column: null });
     };
-    worker.postMessage({ type: 'parse', file: target, mapping: withMapping, joint: importJoint(joint, method), limitBytes: UPLOAD_LIMIT_BYTES });
+    worker.postMessage({ type: 'parse', file: target, mapping: withMapping, sheet: inSheet, joint: importJoint(joint, method), limitBytes: UPLOAD_LIMIT_BYTES });
   }
 
   function choose(files: FileList | null) {
@@ -112,7 +113,15 @@ export function useFileParse({ joint, method, rememberedMappings, onProgress, on
     setParsed(null);
     setPartial(null);
     setRemembered(false);
-    parse(f, null, true);
+    setSheet(null);
+    parse(f, null, true, null);
+  }
+
+  /** Reads another sheet of a workbook (its columns are guessed afresh). */
+  function chooseSheet(name: string) {
+    setSheet(name);
+    setMapping(null);
+    if (file) parse(file, null, true, name);
   }
 
   // Re-parse when the joint or method changes (stud count, limits, remembered maps and planned steps depend on them).
@@ -128,5 +137,5 @@ export function useFileParse({ joint, method, rememberedMappings, onProgress, on
     if (file) parse(file, next, false);
   }
 
-  return { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, changeMapping };
+  return { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, chooseSheet, changeMapping };
 }

@@ -45,6 +45,8 @@ export const columnMappingSchema = z
     tightenedColumn: column.nullable().default(null),
     /** Zero offsets: `auto` removes them when the file starts at rest with small offsets (readers/zero.ts); `off` keeps them. */
     tare: z.enum(['auto', 'off']).default('auto'),
+    /** The sheet of an .xlsx workbook to read (`workbook.ts`); absent = the first sheet. */
+    sheet: z.string().trim().min(1).max(100).optional(),
     loadUnit: z.enum(LOAD_UNITS),
     torqueUnit: z.enum(TORQUE_UNITS),
   })
