@@ -178,8 +178,8 @@ function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options
 
 /**
  * When the rises found are, in order, the method's first steps (same studs), the method's passes are
- * used, and the method's steps after the last rise (a check pass over studs already at load, where
- * no stud rises) are kept as steps: their reading is the last row, their lines share out the rows
+ * used, and the method's check-pass steps after the last rise (studs already at load, where no stud
+ * rises) are kept as steps: their reading is the last row, their lines share out the rows
  * after the last rise. Our rule; a warning says so.
  */
 function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<JointForImport['plannedSteps']>, warnings: string[]): void {
@@ -188,6 +188,7 @@ function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<J
   if (!found.every((s, i) => s.position === plan[i]!.position)) return;
   found.forEach((s, i) => (s.pass = plan[i]!.pass));
   const rest = plan.slice(found.length);
+  if (!rest.every((p) => p.check)) return;
   const from = found[found.length - 1]!.lastLine + 1;
   const rows = d.last.line - from + 1;
   if (rows < rest.length) return;
@@ -196,8 +197,7 @@ function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<J
     const lastLine = i === rest.length - 1 ? d.last!.line : from + Math.floor((rows * (i + 1)) / rest.length) - 1;
     found.push({ order: found.length + 1, pass: p.pass, position: p.position, firstLine, lastLine, timeS: d.last!.timeS, loadsN: [...d.last!.loadsN], riseN: 0, appliedTorqueNm: null, appliedPressureBar: null });
   });
-  const checks = rest.every((p) => p.check) ? ' (check pass)' : '';
-  warnings.push(`Steps ${found.length - rest.length + 1}–${found.length}${checks}: no stud rose after line ${from - 1}; kept because the method has these steps after the last rise. Their reading is the last row (line ${d.last.line}).`);
+  warnings.push(`Steps ${found.length - rest.length + 1}–${found.length} (check pass): no stud rose after line ${from - 1}; kept because the method has these steps after the last rise. Their reading is the last row (line ${d.last.line}).`);
 }
 
 /**
