@@ -1,5 +1,5 @@
 /**
- * Excel workbooks (.xlsx) upload like CSV: the chosen sheet (the first by default) is turned into
+ * Excel workbooks (.xlsx) upload like CSV: the chosen sheet (by default the first that holds a table) is turned into
  * comma-separated text, row k of the sheet on line k, and parsed by the same `parseLoggerText`.
  * Read with `read-excel-file` (its `universal` build runs in the browser's worker and in Node).
  * Browser-safe.
@@ -31,7 +31,7 @@ export interface FileText {
 
 /**
  * The text of one sheet of an .xlsx workbook as CSV.
- * @param sheet the sheet's name; null or undefined = the first sheet.
+ * @param sheet the sheet's name; null or undefined = the first sheet with a table (a row of two or more cells).
  * @throws AppError('invalid_input') for a workbook that cannot be read or has no such sheet.
  */
 export async function workbookText(bytes: Uint8Array, sheet?: string | null): Promise<FileText> {
@@ -44,7 +44,8 @@ export async function workbookText(bytes: Uint8Array, sheet?: string | null): Pr
     throw new AppError('invalid_input', `The file looks like an Excel workbook (.xlsx) but could not be read (${String((error as Error)?.message ?? error).slice(0, 80)}). Save it again from the spreadsheet program, or export the sheet as CSV.`, { field: 'file' });
   }
   const names = sheets.map((s) => s.sheet);
-  const chosen = sheet ? sheets.find((s) => s.sheet === sheet) : sheets[0];
+  const isTable = (s: (typeof sheets)[number]) => s.data.some((row) => row.filter((c) => c !== null && c !== '').length >= 2);
+  const chosen = sheet ? sheets.find((s) => s.sheet === sheet) : (sheets.find(isTable) ?? sheets[0]);
   if (!chosen) {
     throw new AppError('invalid_input', `The workbook has no sheet named ${quoteInput(sheet ?? '')}; its sheets are ${names.map((n) => quoteInput(n)).join(', ')}.`, { field: 'sheet' });
   }
