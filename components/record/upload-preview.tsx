@@ -53,7 +53,7 @@ export function SheetChoice({ sheets, sheet, onChoose }: { sheets: string[]; she
 export function MappingConfirm({ confirmed, onConfirmed }: { confirmed: boolean; onConfirmed: (confirmed: boolean) => void }) {
   return (
     <label className="flex items-center gap-2 rounded-md border border-caution p-2 text-sm">
-      <input type="checkbox" checked={confirmed} onChange={(e) => onConfirmed(e.target.checked)} /> The column mapping above is right (part of it was guessed: see what was detected)
+      <input type="checkbox" checked={confirmed} onChange={(e) => onConfirmed(e.target.checked)} /> The column mapping above is right (part of it was guessed; see the notes above)
     </label>
   );
 }
