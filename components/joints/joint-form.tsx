@@ -20,6 +20,7 @@ type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 interface PositionRow {
   factor: string;
   note: string;
+  channel: string;
 }
 
 const PRESSURE_CLASSES = ['Class 150', 'Class 300', 'Class 600', 'Class 900', 'Class 1500', 'Class 2500'];
@@ -51,7 +52,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
   const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   const [v, setV] = useState(() => initialValues(joint, units));
   const [rows, setRows] = useState<PositionRow[]>(() =>
-    (joint?.positions ?? []).map((p) => ({ factor: String(p.calibrationFactor), note: p.note ?? '' })),
+    (joint?.positions ?? []).map((p) => ({ factor: String(p.calibrationFactor), note: p.note ?? '', channel: p.channel ?? '' })),
   );
   const set = (key: keyof typeof v) => (value: string) => setV((old) => ({ ...old, [key]: value }));
   // A server error leaves its field as soon as the field is edited.
@@ -61,7 +62,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
   const studCount = numberFromText(v.studCount);
   const shownCount = Number.isInteger(studCount) && studCount >= STUD_COUNT_RANGE.min && studCount <= STUD_COUNT_RANGE.max ? studCount : 0;
   const positions = useMemo(
-    () => Array.from({ length: shownCount }, (_, i) => rows[i] ?? { factor: '1', note: '' }),
+    () => Array.from({ length: shownCount }, (_, i) => rows[i] ?? { factor: '1', note: '', channel: '' }),
     [rows, shownCount],
   );
   const setRow = (index: number, change: Partial<PositionRow>) =>
@@ -186,22 +187,26 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
             <div className="max-h-96 flex-1 overflow-y-auto rounded border border-rule">
               <table className="w-full text-sm">
                 <thead className="sticky top-0 bg-panel text-left text-muted">
-                  <tr><th className="px-2 py-1.5">Position</th><th className="px-2 py-1.5">Gauge calibration factor</th><th className="px-2 py-1.5">Note</th></tr>
+                  <tr><th className="px-2 py-1.5">Position</th><th className="px-2 py-1.5">Logger channel</th><th className="px-2 py-1.5">Gauge calibration factor</th><th className="px-2 py-1.5">Note</th></tr>
                 </thead>
                 <tbody className="num">
                   {positions.map((row, i) => {
                     const p = i + 1;
                     const factorErr = errors[`position-${p}-factor`];
                     const noteErr = errors[`position-${p}-note`];
+                    const channelErr = errors[`position-${p}-channel`];
                     return (
                       <tr key={p} className="border-t border-rule align-top">
                         <th scope="row" className="px-2 py-2.5 text-left font-medium">{p}</th>
+                        <td className="px-2 py-1">
+                          <input name={`position-${p}-channel`} value={row.channel} onChange={(e) => setRow(i, { channel: e.target.value })} placeholder={`CH${p}`} aria-label={`Logger channel, position ${p}`} aria-invalid={channelErr ? true : undefined} aria-describedby={`pos-${p}-msg`} className={`w-28 font-mono ${INPUT_CLASS}`} />
+                        </td>
                         <td className="px-2 py-1">
                           <input name={`position-${p}-factor`} value={row.factor} onChange={(e) => setRow(i, { factor: e.target.value })} inputMode="decimal" aria-label={`Calibration factor, position ${p}`} aria-invalid={factorErr ? true : undefined} aria-describedby={`pos-${p}-msg`} className={`w-24 font-mono ${INPUT_CLASS}`} />
                         </td>
                         <td className="px-2 py-1">
                           <input name={`position-${p}-note`} value={row.note} onChange={(e) => setRow(i, { note: e.target.value })} aria-label={`Note, position ${p}`} aria-invalid={noteErr ? true : undefined} aria-describedby={`pos-${p}-msg`} className={`w-full min-w-40 ${INPUT_CLASS}`} />
-                          <FieldMessage id={`pos-${p}-msg`} messages={[...(factorErr ?? []), ...(noteErr ?? [])]} />
+                          <FieldMessage id={`pos-${p}-msg`} messages={[...(channelErr ?? []), ...(factorErr ?? []), ...(noteErr ?? [])]} />
                         </td>
                       </tr>
                     );
@@ -211,7 +216,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
             </div>
           </div>
         )}
-        <p className="text-xs text-muted">The factor multiplies the gauge reading (1 = as calibrated); between 0.5 and 1.5.</p>
+        <p className="text-xs text-muted">The logger channel wired to each position (CH3, AI2 or a gauge&rsquo;s serial name); left blank, channel k is position k and AI0 is position 1. The factor multiplies the gauge reading (1 = as calibrated); between 0.5 and 1.5.</p>
       </Section>
 
       <Section title="Notes">

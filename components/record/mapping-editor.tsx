@@ -51,6 +51,13 @@ export function MappingEditor({ headers, mapping, onChange, joint }: { headers: 
           </select>
         </label>
         <label className="text-sm">
+          <span className="block">Zero offsets</span>
+          <select className={CONTROL} value={mapping.tare ?? 'auto'} onChange={(e) => set({ tare: e.target.value as ColumnMapping['tare'] })}>
+            <option value="auto">Remove when the file starts at rest</option>
+            <option value="off">Keep as read</option>
+          </select>
+        </label>
+        <label className="text-sm">
           <span className="block">Torque unit</span>
           <select className={CONTROL} value={mapping.torqueUnit} onChange={(e) => set({ torqueUnit: e.target.value as ColumnMapping['torqueUnit'] })}>
             {TORQUE_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}

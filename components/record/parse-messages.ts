@@ -6,6 +6,8 @@ export interface ParseRequest {
   type: 'parse';
   file: File;
   mapping: ColumnMapping | null;
+  /** The workbook sheet to read (null = the first). */
+  sheet: string | null;
   joint: JointForImport;
   limitBytes: number;
 }
@@ -16,6 +18,11 @@ export interface ParsedPreview {
   preview: Array<{ line: number; cells: string[] }>;
   mapping: ColumnMapping | null;
   mappingNotes: string[];
+  /** Sheets of a workbook (empty for a text file) and the one read. */
+  sheets: string[];
+  sheet: string | null;
+  /** False when the guess rests on an assumption: the mapping must be confirmed. */
+  mappingCertain: boolean;
 }
 
 export interface ParsedFile extends ParsedPreview {
@@ -26,6 +33,7 @@ export interface ParsedFile extends ParsedPreview {
   studCount: number;
   rowCount: number;
   warnings: string[];
+  zeroNotes: string[];
   finalLoadsN: number[];
 }
 

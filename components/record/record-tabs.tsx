@@ -98,7 +98,7 @@ export function RecordTabs({ options, tokens, recordings, user, preferences = {}
         ))}
       </div>
       <div id={`record-panel-${tab}`} role="tabpanel" aria-labelledby={`record-tab-${tab}`} className="rounded-card border border-rule bg-panel p-4">
-        {tab === 'upload' && joint ? <UploadPanel joint={joint} header={header} rememberedMappings={options.rememberedMappings} onHeaderErrors={setErrors} units={user.units} /> : null}
+        {tab === 'upload' && joint ? <UploadPanel joint={joint} method={method} header={header} rememberedMappings={options.rememberedMappings} onHeaderErrors={setErrors} units={user.units} /> : null}
         {tab === 'manual' && joint && method ? <ManualGrid key={`${joint.id}-${method.id}`} joint={joint} method={method} header={header} onHeaderErrors={setErrors} units={user.units} /> : null}
         {tab === 'simulate' ? <SimulatePanel header={header} onHeaderErrors={setErrors} /> : null}
         {tab === 'stream' && joint ? <StreamPanel joint={joint} joints={options.joints} header={header} tokens={tokens} recordings={recordings} onHeaderErrors={setErrors} canManageTokens={user.role === 'instructor'} units={user.units} /> : null}

@@ -37,6 +37,26 @@ export function PreviewTable({ headers, rows, mapping }: { headers: string[]; ro
   );
 }
 
+/** The sheet of a workbook to read. */
+export function SheetChoice({ sheets, sheet, onChoose }: { sheets: string[]; sheet: string | null; onChoose: (sheet: string) => void }) {
+  return (
+    <label className="block text-sm">
+      <span className="block">Sheet</span>
+      <select className="mt-1 rounded-md border border-rule bg-paper px-2 py-1 text-sm text-ink" value={sheet ?? sheets[0]} onChange={(e) => onChoose(e.target.value)}>
+        {sheets.map((s) => <option key={s} value={s}>{s}</option>)}
+      </select>
+    </label>
+  );
+}
+
+/** The box that confirms a column mapping guessed with an assumption (a unit, gauge columns, a stud count that differs). */
+export function MappingConfirm({ confirmed, onConfirmed }: { confirmed: boolean; onConfirmed: (confirmed: boolean) => void }) {
+  return (
+    <label className="flex items-center gap-2 rounded-md border border-caution p-2 text-sm">
+      <input type="checkbox" checked={confirmed} onChange={(e) => onConfirmed(e.target.checked)} /> The column mapping above is right (part of it was guessed; see the notes above)
+    </label>
+  );
+}
 
 /** The steps derived from the loads of a file without step markers, with the box that confirms them. */
 export function DerivedSteps({ derived, units, confirmed, onConfirmed }: { derived: ParsedFile['derived']; units: 'si' | 'us'; confirmed: boolean; onConfirmed: (confirmed: boolean) => void }) {

@@ -1,10 +1,12 @@
 'use client';
 
 import { useEffect, useRef, useState } from 'react';
-import type { RecordJoint, RememberedMapping } from '@/lib/data/record';
+import type { RecordJoint, RecordMethod, RememberedMapping } from '@/lib/data/record';
+import type { JointForImport } from '@/lib/ingest/normalise';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import { jointForImport } from '@/lib/record/joint-import';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
+import { planSteps } from '@/lib/record/step-plan';
 import type { ParsedFile, ParsedPreview, ParseResponse } from './parse-messages';
 
 /** What the panel shows while a long job runs (parsing here, sending in `upload-request.ts`). */
@@ -23,8 +25,14 @@ const sameHeaders = (a: readonly string[], b: readonly string[]) => a.length ===
  * mapping (a remembered one for the same headers on this joint is tried first), the first error,
  * and whether derived steps are confirmed. The file is parsed again when the joint changes.
  */
-export function useFileParse({ joint, rememberedMappings, onProgress, onParseStart }: {
+/** The joint as lib/ingest needs it, with the chosen method's steps (as the server adds them). */
+function importJoint(joint: RecordJoint, method: RecordMethod | null): JointForImport {
+  return { ...jointForImport(joint), plannedSteps: method ? planSteps(method, joint.studCount).steps : undefined };
+}
+
+export function useFileParse({ joint, method, rememberedMappings, onProgress, onParseStart }: {
   joint: RecordJoint;
+  method: RecordMethod | null;
   rememberedMappings: RememberedMapping[];
   onProgress: (progress: Progress) => void;
   /** Called when a parse starts (the last upload's outcome no longer applies). */
@@ -37,13 +45,15 @@ export function useFileParse({ joint, rememberedMappings, onProgress, onParseSta
   const [parseError, setParseError] = useState<ParseError | null>(null);
   const [remembered, setRemembered] = useState(false);
   const [confirmed, setConfirmed] = useState(false);
+  const [mappingConfirmed, setMappingConfirmed] = useState(false);
+  const [sheet, setSheet] = useState<string | null>(null);
   const workerRef = useRef<Worker | null>(null);
 
   useEffect(() => () => workerRef.current?.terminate(), []);
 
   const rememberedFor = (headers: readonly string[]) => rememberedMappings.find((m) => m.jointId === joint.id && sameHeaders(m.headers, headers));
 
-  function parse(target: File, withMapping: ColumnMapping | null, firstLook: boolean) {
+  function parse(target: File, withMapping: ColumnMapping | null, firstLook: boolean, inSheet: string | null = sheet) {
     workerRef.current?.terminate();
     const worker = new Worker(new URL('./parse-worker.ts', import.meta.url), { type: 'module' });
     workerRef.current = worker;
@@ -71,6 +81,7 @@ export function useFileParse({ joint, rememberedMappings, onProgress, onParseSta
         setMapping(msg.result.mapping);
         setParseError(null);
         setConfirmed(!msg.result.derivedSteps);
+        setMappingConfirmed(msg.result.mappingCertain || withMapping !== null);
       } else {
         if (firstLook && msg.partial) {
           const saved = rememberedFor(msg.partial.headers);
@@ -91,7 +102,7 @@ export function useFileParse({ joint, rememberedMappings, onProgress, onParseSta
       onProgress(null);
       setParseError({ message: `The file reader stopped: ${e.message || 'unknown error'}. Reload the page and try again.`, row: null, column: null });
     };
-    worker.postMessage({ type: 'parse', file: target, mapping: withMapping, joint: jointForImport(joint), limitBytes: UPLOAD_LIMIT_BYTES });
+    worker.postMessage({ type: 'parse', file: target, mapping: withMapping, sheet: inSheet, joint: importJoint(joint, method), limitBytes: UPLOAD_LIMIT_BYTES });
   }
 
   function choose(files: FileList | null) {
@@ -102,11 +113,19 @@ export function useFileParse({ joint, rememberedMappings, onProgress, onParseSta
     setParsed(null);
     setPartial(null);
     setRemembered(false);
-    parse(f, null, true);
+    setSheet(null);
+    parse(f, null, true, null);
   }
 
-  // Re-parse when the joint changes (stud count, limits and remembered maps depend on it).
-  const jointKey = joint.id;
+  /** Reads another sheet of a workbook (its columns are guessed afresh). */
+  function chooseSheet(name: string) {
+    setSheet(name);
+    setMapping(null);
+    if (file) parse(file, null, true, name);
+  }
+
+  // Re-parse when the joint or method changes (stud count, limits, remembered maps and planned steps depend on them).
+  const jointKey = `${joint.id}:${method?.id ?? ''}`;
   useEffect(() => {
     if (file) parse(file, mapping, true);
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -118,5 +137,5 @@ export function useFileParse({ joint, rememberedMappings, onProgress, onParseSta
     if (file) parse(file, next, false);
   }
 
-  return { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, choose, changeMapping };
+  return { file, mapping, parsed, partial, parseError, remembered, confirmed, setConfirmed, mappingConfirmed, setMappingConfirmed, choose, chooseSheet, changeMapping };
 }

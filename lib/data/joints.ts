@@ -40,7 +40,7 @@ export interface JointDetail extends JointSummary {
   washer: string | null;
   gasketType: string;
   notes: string | null;
-  positions: { position: number; calibrationFactor: number; note: string | null }[];
+  positions: { position: number; calibrationFactor: number; note: string | null; channel: string | null }[];
 }
 
 export interface MethodSummary {
@@ -153,7 +153,7 @@ export async function getJoint(user: SessionUser, id: number): Promise<JointDeta
     washer: joint.washer ?? null,
     gasketType: joint.gasketType,
     notes: joint.notes ?? null,
-    positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null })),
+    positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null, channel: p.channel ?? null })),
   };
 }
 
@@ -224,7 +224,7 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
       jointId = id;
     }
     await JointPosition.bulkCreate(
-      input.positions.map((p) => ({ jointId, position: p.position, calibrationFactor: p.calibrationFactor, note: p.note })),
+      input.positions.map((p) => ({ jointId, position: p.position, calibrationFactor: p.calibrationFactor, note: p.note, channel: p.channel ?? null })),
       { transaction },
     );
     return { id: jointId };

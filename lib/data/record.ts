@@ -4,6 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { AppError } from '@/lib/http/errors';
 import { maxBelievableStudLoad, STUD_YOUNGS_MODULUS_PA, tensileStressAreaM2Of } from '@/lib/joints/joint-properties';
 import type { JointForImport } from '@/lib/ingest/normalise';
+import type { ChannelMap } from '@/lib/ingest/channel-map';
 import { columnMappingSchema, type ColumnMapping } from '@/lib/ingest/shapes';
 import { runHeaderSchema, recordedAtDate, type RunHeaderFields } from '@/lib/record/run-header-schema';
 import type { RunHeader } from '@/lib/data/runs/store-run';
@@ -28,6 +29,8 @@ export interface RecordJoint {
   maxStudLoadSource: string;
   /** Per-position calibration factors (index 0 = position 1). */
   calibration: number[];
+  /** The logger channel wired to each position, where one is set (default channel k = position k). */
+  channelMap?: ChannelMap;
   /** Tensile stress area of the studs in m² (lib/calc), for microstrain files; null when the thread is not valid. */
   stressAreaM2: number | null;
   /** Young's modulus used for microstrain files, Pa. */
@@ -76,6 +79,7 @@ export interface RecordOptions {
 function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
   const limit = maxBelievableStudLoad(joint);
   const calibration = Array.from({ length: joint.studCount }, (_, i) => positions.find((p) => p.position === i + 1)?.calibrationFactor ?? 1);
+  const channelMap = positions.flatMap((p) => (p.channel && p.position <= joint.studCount ? [{ channel: p.channel, position: p.position }] : []));
   return {
     id: joint.id,
     name: joint.name,
@@ -85,6 +89,7 @@ function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
     maxStudLoadN: limit.maxStudLoadN,
     maxStudLoadSource: limit.source,
     calibration,
+    channelMap,
     stressAreaM2: tensileStressAreaM2Of(joint),
     youngsModulusPa: STUD_YOUNGS_MODULUS_PA,
   };

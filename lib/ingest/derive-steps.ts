@@ -10,7 +10,8 @@
  *    target) for `settleRows` rows (default 5), when it falls more than the threshold below its
  *    peak (tool released), when another stud starts rising, or at the end of the data.
  * 4. The step's reading is the snapshot of every stud at the row where the rising stud peaked;
- *    its row range runs from the rising stud's base row to that peak row.
+ *    its row range runs from the rising stud's base row (or the row after the previous step's
+ *    reading, whichever is later, so ranges never overlap) to that peak row.
  * 5. Passes: when the file has no pass numbers, a new pass starts whenever a stud already
  *    tightened in the current pass is tightened again ({@link assignPasses}).
  *
@@ -71,6 +72,8 @@ export interface DeriveStepsOptions {
 export interface DeriveStepsResult {
   steps: DerivedStep[];
   warnings: string[];
+  /** The last snapshot pushed (null when none): the reading of steps after the last rise. */
+  last: { line: number; timeS: number | null; loadsN: number[] } | null;
 }
 
 /** A streaming step deriver: push snapshots in row order, then finish. */
@@ -134,6 +137,11 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
   const passes: (number | null)[] = [];
   const warnings: string[] = [];
   let lastTogetherLine = -1;
+  /** Line of the last step's reading: the next step's lines start after it, so ranges never overlap. */
+  let lastEmittedLine = 0;
+  const lastLoads = new Float64Array(studCount);
+  let lastLine = 0;
+  let lastTime: number | null = null;
 
   const resetBase = (s: Snapshot, keep: number) => {
     for (let k = 0; k < studCount; k++) {
@@ -144,9 +152,11 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
   };
   const emit = () => {
     if (!rise) return;
+    const firstLine = Math.min(Math.max(rise.firstLine, lastEmittedLine + 1), rise.line);
+    lastEmittedLine = rise.line;
     found.push({
       position: rise.position,
-      firstLine: rise.firstLine,
+      firstLine,
       lastLine: rise.line,
       timeS: rise.timeS,
       loadsN: Array.from(rise.snapshot),
@@ -209,6 +219,9 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
       if (s.loadsN.length !== studCount) {
         throw new AppError('invalid_input', `Line ${s.line}: expected ${studCount} stud loads, got ${s.loadsN.length}.`, { row: s.line });
       }
+      for (let k = 0; k < studCount; k++) lastLoads[k] = s.loadsN[k]!;
+      lastLine = s.line;
+      lastTime = s.timeS;
       if (!started) {
         started = true;
         resetBase(s, -1);
@@ -267,7 +280,7 @@ export function createStepDeriver(studCount: number, options: DeriveStepsOptions
         } else pass = ruled[i]!;
         return { order: i + 1, pass, ...f };
       });
-      return { steps, warnings };
+      return { steps, warnings, last: lastLine > 0 ? { line: lastLine, timeS: lastTime, loadsN: Array.from(lastLoads) } : null };
     },
   };
 }

@@ -26,7 +26,7 @@
  */
 import { AppError } from '@/lib/http/errors';
 import type { ColumnMapping } from './shapes';
-import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DerivedStep, type StepDeriver } from './derive-steps';
+import { assignPasses, createStepDeriver, type DeriveStepsOptions, type DeriveStepsResult, type DerivedStep, type StepDeriver } from './derive-steps';
 import { cellError, createCellReader, formatLoadN } from './readers/cells';
 import { resolveColumns } from './readers/columns';
 import { createLongReader } from './readers/long';
@@ -36,6 +36,7 @@ import { createStepCollector, type StepCollector, type StepLines } from './reade
 import { createStepTableReader } from './readers/step-table';
 import type { JointForImport, ShapeReader } from './readers/types';
 import { createWideReader, studColumnIndexes } from './readers/wide';
+import { createZeroCorrector } from './readers/zero';
 import type { NormalisedRun } from '@/lib/record/run-types';
 
 export type { JointForImport } from './readers/types';
@@ -51,6 +52,8 @@ export interface NormaliseOptions {
   headerLine?: number;
   /** Tuning of step derivation for files without a step column. */
   derive?: Omit<DeriveStepsOptions, 'targetLoadN'>;
+  /** A long file without a step column whose time stamps each list every stud: each time stamp is a step (no derivation). */
+  longStepPerTimeStamp?: boolean;
 }
 
 /** The normalised run and how it was obtained. */
@@ -65,6 +68,8 @@ export interface NormaliseResult {
   warnings: string[];
   /** Data rows read (blank lines not counted). */
   rowCount: number;
+  /** Zero offsets removed and readings inside the noise band, in words (`readers/zero.ts`). */
+  zeroNotes: string[];
 }
 
 /** A streaming normaliser: push every data row with its file line number, then finish. */
@@ -107,13 +112,15 @@ export function createRowNormaliser(
 
   const collector = createStepCollector(N);
   const extras = createRowExtrasReader(cells, columns, mapping, options.decimalComma);
-  const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
+  const perStamp = mapping.shape === 'long' && columns.step < 0 && options.longStepPerTimeStamp === true;
+  const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' && !perStamp ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
   const sink = createSnapshotSink(N, collector, deriver);
+  const zero = createZeroCorrector(N, joint.targetLoadN, mapping.tare ?? 'auto', (k) => (studIdx ? names[studIdx[k]!]! : `stud ${k + 1}`));
   const reader: ShapeReader = studIdx
-    ? createWideReader(cells, extras, studIdx, sink)
+    ? createWideReader(cells, extras, studIdx, sink, zero)
     : mapping.shape === 'long'
-      ? createLongReader(cells, columns, extras, N, sink)
-      : createStepTableReader(cells, columns, extras, N, collector);
+      ? createLongReader(cells, columns, extras, N, sink, zero, perStamp ? joint.targetLoadN * (options.derive?.thresholdFraction ?? 0.02) : null)
+      : createStepTableReader(cells, columns, extras, N, collector, zero);
   let rowCount = 0;
 
   return {
@@ -135,7 +142,7 @@ export function createRowNormaliser(
       }
       reader.close();
       sink.close();
-      const derived = deriver ? addDerivedSteps(deriver, collector, options, columns.pass >= 0) : [];
+      const derived = deriver ? addDerivedSteps(deriver, collector, options, columns.pass >= 0, joint.plannedSteps) : [];
       if (!deriver) resolvePasses(collector);
       const { steps, stepLines, warnings } = collector;
       if (steps.length === 0) {
@@ -147,15 +154,16 @@ export function createRowNormaliser(
         );
       }
       const run: NormalisedRun = { studCount: N, targetLoadN: joint.targetLoadN, steps };
-      return { run, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount };
+      return { run, derivedSteps: deriver !== null, derived, stepLines, warnings, rowCount, zeroNotes: zero.report() };
     },
   };
 }
 
 /** Moves the deriver's steps into the collector, with a warning asking to confirm them. */
-function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options: NormaliseOptions, hasPassColumn: boolean): DerivedStep[] {
+function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options: NormaliseOptions, hasPassColumn: boolean, plan: JointForImport['plannedSteps']): DerivedStep[] {
   const d = deriver.finish();
   collector.warnings.push(...d.warnings);
+  if (plan && !hasPassColumn) keepPlannedStepsAfterLastRise(d, plan, collector.warnings);
   for (const s of d.steps) {
     collector.steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN });
     collector.stepLines.push({ order: s.order, firstLine: s.firstLine, lastLine: s.lastLine });
@@ -166,6 +174,30 @@ function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options
     );
   }
   return d.steps;
+}
+
+/**
+ * When the rises found are, in order, the method's first steps (same studs), the method's passes are
+ * used, and the method's check-pass steps after the last rise (studs already at load, where no stud
+ * rises) are kept as steps: their reading is the last row, their lines share out the rows
+ * after the last rise. Our rule; a warning says so.
+ */
+function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<JointForImport['plannedSteps']>, warnings: string[]): void {
+  const found = d.steps;
+  if (found.length === 0 || found.length >= plan.length || !d.last) return;
+  if (!found.every((s, i) => s.position === plan[i]!.position)) return;
+  found.forEach((s, i) => (s.pass = plan[i]!.pass));
+  const rest = plan.slice(found.length);
+  if (!rest.every((p) => p.check)) return;
+  const from = found[found.length - 1]!.lastLine + 1;
+  const rows = d.last.line - from + 1;
+  if (rows < rest.length) return;
+  rest.forEach((p, i) => {
+    const firstLine = from + Math.floor((rows * i) / rest.length);
+    const lastLine = i === rest.length - 1 ? d.last!.line : from + Math.floor((rows * (i + 1)) / rest.length) - 1;
+    found.push({ order: found.length + 1, pass: p.pass, position: p.position, firstLine, lastLine, timeS: d.last!.timeS, loadsN: [...d.last!.loadsN], riseN: 0, appliedTorqueNm: null, appliedPressureBar: null });
+  });
+  warnings.push(`Steps ${found.length - rest.length + 1}–${found.length} (check pass): no stud rose after line ${from - 1}; kept because the method has these steps after the last rise. Their reading is the last row (line ${d.last.line}).`);
 }
 
 /**

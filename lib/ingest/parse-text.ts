@@ -30,6 +30,10 @@ export interface LoggerTextResult {
   mappingProposed: boolean;
   /** Reasons behind a proposed mapping (units guessed, shape). Empty when the caller gave one. */
   mappingNotes: string[];
+  /** Whether the proposed mapping rests on nothing assumed; false means the user must confirm it. True when the caller gave one. */
+  mappingCertain: boolean;
+  /** Zero offsets removed and readings taken as 0, in words. */
+  zeroNotes: string[];
   /** Header and the first {@link PREVIEW_ROWS} data rows with their line numbers, as text. */
   preview: { headers: string[]; rows: Array<{ line: number; cells: string[] }> };
   run: NormalisedRun;
@@ -44,6 +48,31 @@ export interface LoggerTextResult {
 export interface ParseLoggerTextOptions {
   /** Tuning of step derivation when the file has no step column. */
   derive?: NormaliseOptions['derive'];
+}
+
+/**
+ * Whether the sampled rows of a long file list every stud at each time stamp (the file holds one
+ * snapshot of every stud per step) rather than only the studs that changed. The last stamp of the
+ * sample may be cut off and is not judged.
+ */
+function everyStampComplete(headers: readonly string[], mapping: ColumnMapping, sample: readonly TableRow[], studCount: number): boolean {
+  const t = headers.findIndex((h) => h.trim() === mapping.timeColumn);
+  const p = headers.findIndex((h) => h.trim() === mapping.positionColumn);
+  if (t < 0 || p < 0) return false;
+  const counts: number[] = [];
+  let last: string | null = null;
+  const seen = new Set<string>();
+  for (const r of sample) {
+    const time = (r.cells[t] ?? '').trim();
+    if (time !== last) {
+      if (last !== null) counts.push(seen.size);
+      seen.clear();
+      last = time;
+    }
+    seen.add((r.cells[p] ?? '').trim());
+  }
+  const closed = sample.length >= SAMPLE_ROWS ? counts : [...counts, seen.size];
+  return closed.length > 0 && closed.every((c) => c === studCount);
 }
 
 function isCommentRow(row: readonly string[]): boolean {
@@ -132,13 +161,16 @@ export function parseLoggerText(
   const detection = inspectText(text);
   const sample: TableRow[] = [];
   streamTableRows(detection, (cells, line) => sample.push({ line, cells }), SAMPLE_ROWS);
-  const proposal = mapping ? null : proposeMappingWithNotes(detection.headers, sample.map((r) => r.cells), detection.headerLine);
+  const proposal = mapping
+    ? null
+    : proposeMappingWithNotes(detection.headers, sample.map((r) => r.cells), detection.headerLine, { channelMap: joint.channelMap, studCount: joint.studCount, metadata: detection.metadata });
   const used = mapping ? parseColumnMapping(mapping) : proposal!.mapping;
   const normaliser: RowNormaliser = createRowNormaliser(detection.headers, used, joint, {
     decimalComma: detection.decimalComma,
     firstDataLine: detection.firstDataLine,
     headerLine: detection.headerLine,
     derive: options.derive,
+    longStepPerTimeStamp: used.shape === 'long' && used.stepColumn === null && everyStampComplete(detection.headers, used, sample, joint.studCount),
   });
   streamTableRows(detection, (cells, line) => normaliser.push(cells, line));
   const result = normaliser.finish();
@@ -147,6 +179,8 @@ export function parseLoggerText(
     mapping: used,
     mappingProposed: proposal !== null,
     mappingNotes: proposal?.notes ?? [],
+    mappingCertain: proposal?.certain ?? true,
+    zeroNotes: result.zeroNotes,
     preview: { headers: detection.headers, rows: sample.slice(0, PREVIEW_ROWS) },
     run: result.run,
     derivedSteps: result.derivedSteps,

@@ -14,6 +14,10 @@ import { AppError } from '@/lib/http/errors';
 import { LOAD_UNITS, TORQUE_UNITS, type LoadUnit, type TorqueUnit } from './units';
 import { valueInEitherConvention } from './numbers';
 import { quoteInput } from './text-limits';
+import { channelOfHeader, headerTokens, looksLikeGaugeName, roleOfHeader, studPositionOfHeader, UNIT_KEYS, type HeaderRole as Role } from './header-words';
+import { positionOfChannel, type ChannelMap } from './channel-map';
+
+export { headerTokens, studPositionOfHeader } from './header-words';
 
 /** The table shapes we import. */
 export const SHAPES = ['wide', 'long', 'step_table'] as const;
@@ -39,6 +43,10 @@ export const columnMappingSchema = z
     torqueColumn: column.nullable(),
     pressureColumn: column.nullable(),
     tightenedColumn: column.nullable().default(null),
+    /** Zero offsets: `auto` removes them when the file starts at rest with small offsets (readers/zero.ts); `off` keeps them. */
+    tare: z.enum(['auto', 'off']).default('auto'),
+    /** The sheet of an .xlsx workbook to read (`workbook.ts`); absent = the first sheet. */
+    sheet: z.string().trim().min(1).max(100).optional(),
     loadUnit: z.enum(LOAD_UNITS),
     torqueUnit: z.enum(TORQUE_UNITS),
   })
@@ -69,27 +77,15 @@ export interface MappingProposal {
   mapping: ColumnMapping;
   /** e.g. `Load unit kN taken from "Stud 1 [kN]".` or `No unit in the headers; assumed kN ...`. */
   notes: string[];
+  /** False when part of the guess rests on an assumption (a unit from the size of values, unknown gauge names, ...): the user must confirm it. */
+  certain: boolean;
 }
 
-/** Lower-case word tokens of a header: `"Bolt 3 [kN]"` → `["bolt", "3", "kn"]`. */
-export function headerTokens(header: string): string[] {
-  return header
-    .toLowerCase()
-    .split(/[^a-z0-9µμεε]+/u)
-    .filter((t) => t !== '');
-}
-
-const STUD_HEADER = /^\s*(?:stud|bolt|load|force|preload|position|pos|s|b|f)\s*[-_#.]?\s*(?:no\.?\s*|nr\.?\s*)?0*(\d{1,3})(?![\d.])/i;
-
-/**
- * The stud position a header names, or null: `Stud 1`, `S1`, `Bolt 3 [kN]`, `stud_03_kN`, `B4`,
- * `Load 2`, `F2 (lbf)`, `Position 5`.
- */
-export function studPositionOfHeader(header: string): number | null {
-  const m = STUD_HEADER.exec(header);
-  if (!m || !m[1]) return null;
-  const n = Number(m[1]);
-  return n >= 1 ? n : null;
+/** What the guess may use besides the header: the joint's channel map and stud count, metadata lines above the header. */
+export interface ProposalContext {
+  channelMap?: ChannelMap;
+  studCount?: number;
+  metadata?: ReadonlyArray<{ line: number; key: string; value: string }>;
 }
 
 /** The load unit a header names (`[kN]`, `(lbf)`, `_kip`, `ue`, `µε`, `microstrain`, `N`), or null. */
@@ -113,21 +109,6 @@ export function torqueUnitOfHeader(header: string): TorqueUnit | null {
   return null;
 }
 
-type Role = 'time' | 'step' | 'pass' | 'tightened' | 'position' | 'load' | 'torque' | 'pressure' | 'ignore';
-
-function roleOfHeader(header: string): Role {
-  const t = headerTokens(header);
-  const first = t[0] ?? '';
-  if (t.includes('torque')) return 'torque';
-  if (t.includes('pressure')) return 'pressure';
-  if (t.includes('tightened') || (first === 'tool' && (t.includes('position') || t.includes('stud')))) return 'tightened';
-  if (['t', 'time', 'elapsed', 'timestamp', 'seconds', 'sec', 'secs'].includes(first)) return 'time';
-  if (['pass', 'round'].includes(first)) return 'pass';
-  if (['step', 'event', 'marker', 'seq', 'sequence'].includes(first)) return 'step';
-  if (['position', 'pos', 'stud', 'bolt'].includes(first)) return 'position';
-  if (['load', 'force', 'preload', 'tension', 'strain', 'microstrain', 'reading', 'value'].includes(first)) return 'load';
-  return 'ignore';
-}
 
 /**
  * Proposes a mapping from the header and a few data rows, with notes on each guess.
@@ -141,20 +122,35 @@ function roleOfHeader(header: string): Role {
  * @param headerLine the header's line number, used in error messages.
  * @throws AppError('invalid_input') when no shape fits the headers.
  */
-export function proposeMappingWithNotes(headers: readonly string[], sampleRows: readonly (readonly string[])[], headerLine = 1): MappingProposal {
+export function proposeMappingWithNotes(headers: readonly string[], sampleRows: readonly (readonly string[])[], headerLine = 1, context: ProposalContext = {}): MappingProposal {
   const notes: string[] = [];
+  let certain = true;
   const first: Partial<Record<Role, string>> = {};
   const studColumns: ColumnMapping['studColumns'] = [];
+  const channels: string[] = [];
+  const gauges: string[] = [];
   headers.forEach((raw) => {
     const h = raw.trim();
     const role = roleOfHeader(h);
-    const pos = role === 'torque' || role === 'pressure' || role === 'tightened' ? null : studPositionOfHeader(h);
+    const byName = role === 'torque' || role === 'pressure' || role === 'tightened';
+    const pos = byName ? null : studPositionOfHeader(h);
     if (pos !== null) {
       studColumns.push({ column: h, position: pos });
       return;
     }
+    if (!byName && channelOfHeader(h)) {
+      channels.push(h);
+      return;
+    }
     if (role !== 'ignore' && first[role] === undefined) first[role] = h;
+    else if (role === 'ignore' && looksLikeGaugeName(h)) gauges.push(h);
   });
+  if (channels.length > 0) certain = addChannelColumns(channels, context.channelMap, studColumns, notes) && certain;
+  if (studColumns.length < 2 && first.position === undefined) certain = addGaugeColumns(gauges, sampleRows, headers, context.channelMap, studColumns, notes) && certain;
+  if (context.studCount !== undefined && studColumns.length >= 2 && studColumns.length !== context.studCount) {
+    notes.push(`The file has ${studColumns.length} load columns; the joint has ${context.studCount} studs. Check which column is which stud.`);
+    certain = false;
+  }
   const col = (r: Role): string | null => first[r] ?? null;
   const index = (name: string | null) => (name === null ? -1 : headers.findIndex((h) => h.trim() === name));
 
@@ -205,6 +201,13 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
     }
   }
   if (!loadUnit) {
+    const meta = unitFromMetadata(context.metadata ?? []);
+    if (meta) {
+      loadUnit = meta.unit;
+      notes.push(`Load unit ${meta.unit} taken from line ${meta.line} (${quoteInput(meta.text)}).`);
+    }
+  }
+  if (!loadUnit) {
     const idx = loadHeaders.map((h) => index(h));
     let max = 0;
     for (const row of sampleRows)
@@ -213,6 +216,7 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
         if (value !== null) max = Math.max(max, Math.abs(value));
       }
     loadUnit = max < 2000 ? 'kN' : 'N';
+    certain = false;
     notes.push(`No load unit in the headers; assumed ${loadUnit} from the size of the values (largest ${max}). Check it.`);
   }
   const torqueColumn = col('torque');
@@ -232,9 +236,10 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
     tightenedColumn: col('tightened'),
     loadUnit,
     torqueUnit,
+    tare: 'auto',
   };
   notes.unshift(`Shape: ${shape === 'step_table' ? 'step table' : shape}.`);
-  return { mapping, notes };
+  return { mapping, notes, certain };
 }
 
 /**
@@ -243,4 +248,71 @@ export function proposeMappingWithNotes(headers: readonly string[], sampleRows: 
  */
 export function proposeMapping(headers: readonly string[], sampleRows: readonly (readonly string[])[], headerLine = 1): ColumnMapping {
   return proposeMappingWithNotes(headers, sampleRows, headerLine).mapping;
+}
+
+/**
+ * Channel-named load columns (CH1, AI0, ...) through the joint's channel map. AI/AIN numbers count
+ * from 0 when the file has an AI0 (the usual numbering of analogue inputs); AI columns starting at 1
+ * are taken as counted from 1, a guess the notes flag. Returns whether the guess is certain.
+ */
+function addChannelColumns(channels: readonly string[], map: ChannelMap | undefined, out: ColumnMapping['studColumns'], notes: string[]): boolean {
+  const ai = channels.map((h) => channelOfHeader(h)!).filter((c) => c.analogueInput);
+  const zeroBased = ai.length === 0 || ai.some((c) => c.number === 0);
+  let certain = true;
+  if (ai.length > 0 && !zeroBased) {
+    notes.push('The analogue-input columns start at 1, not 0; taken as AI1 = stud 1. Check it.');
+    certain = false;
+  }
+  const taken = new Set(out.map((s) => s.position));
+  for (const h of channels) {
+    const position = positionOfChannel(h, map, zeroBased);
+    if (position === null || position < 1 || taken.has(position)) {
+      certain = false;
+      continue;
+    }
+    taken.add(position);
+    out.push({ column: h, position });
+  }
+  out.sort((a, b) => a.position - b.position);
+  notes.push(map && map.length > 0 ? "Channel columns placed by the joint's channel map." : `Channel columns placed as channel k = stud k${ai.length > 0 ? ' (AI0 = stud 1)' : ''}; the joint has no channel map of its own.`);
+  return certain;
+}
+
+/**
+ * Gauge or serial names (`SG-1041`) with numbers below them: placed by the joint's channel map, or
+ * else in column order, a guess the notes flag. Returns whether the guess is certain.
+ */
+function addGaugeColumns(
+  gauges: readonly string[],
+  sampleRows: readonly (readonly string[])[],
+  headers: readonly string[],
+  map: ChannelMap | undefined,
+  out: ColumnMapping['studColumns'],
+  notes: string[],
+): boolean {
+  const numeric = gauges.filter((g) => {
+    const i = headers.findIndex((h) => h.trim() === g);
+    return sampleRows.length > 0 && sampleRows.every((r) => valueInEitherConvention(r[i] ?? '') !== null);
+  });
+  if (numeric.length < 2) return true;
+  const mapped = numeric.map((g) => ({ column: g, position: positionOfChannel(g, map) }));
+  if (mapped.every((m) => m.position !== null)) {
+    out.push(...mapped.map((m) => ({ column: m.column, position: m.position! })));
+    notes.push("Gauge columns placed by the joint's channel map.");
+    return true;
+  }
+  out.push(...numeric.map((g, k) => ({ column: g, position: k + 1 })));
+  notes.push(`Columns ${numeric.map((g) => quoteInput(g)).join(', ')} taken as studs 1 to ${numeric.length} in the order they appear; the joint's channel map does not name them. Check which column is which stud.`);
+  return false;
+}
+
+/** A load unit named on a metadata line above the header (`units: lbf`, `Einheit: kN`, `Unité = kN`). */
+function unitFromMetadata(metadata: ReadonlyArray<{ line: number; key: string; value: string }>): { unit: LoadUnit; line: number; text: string } | null {
+  for (const m of metadata) {
+    const key = headerTokens(m.key).join(' ');
+    if (!UNIT_KEYS.includes(key)) continue;
+    const unit = loadUnitOfHeader(m.value);
+    if (unit) return { unit, line: m.line, text: `${m.key}: ${m.value}` };
+  }
+  return null;
 }

@@ -8,6 +8,7 @@ import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
 import { gradeIdOf } from './joint-properties';
 import { parseNumberText } from '@/lib/format/parse-number';
+import { channelKey } from '@/lib/ingest/channel-map';
 
 /**
  * The joint form as pure functions, shared by the form (live target and messages) and the server
@@ -154,7 +155,7 @@ export interface JointInput {
   bandPercent: number;
   targetLoadN: number;
   notes: string | null;
-  positions: { position: number; calibrationFactor: number; note: string | null }[];
+  positions: { position: number; calibrationFactor: number; note: string | null; channel?: string | null }[];
 }
 
 export type ParseResult<T> = { ok: true; value: T } | { ok: false; errors: FieldErrors; message: string };
@@ -264,7 +265,12 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
       const note = positionNote.safeParse(values[`position-${p}-note`] ?? '');
       if (!factor.success) errors[`position-${p}-factor`] = [`Position ${p}: ${firstMessage(factor)}`];
       if (!note.success) errors[`position-${p}-note`] = [`Position ${p}: ${firstMessage(note)}`];
-      if (factor.success && note.success) positions.push({ position: p, calibrationFactor: factor.data, note: note.data });
+      const channelText = (values[`position-${p}-channel`] ?? '').trim();
+      const key = channelText === '' ? null : channelKey(channelText);
+      const clash = key === null ? undefined : positions.find((q) => q.channel != null && channelKey(q.channel) === key);
+      if (channelText.length > 60) errors[`position-${p}-channel`] = [`Position ${p}: a channel name has at most 60 characters.`];
+      else if (clash) errors[`position-${p}-channel`] = [`Position ${p}: channel ${channelText} is already wired to position ${clash.position}.`];
+      if (factor.success && note.success) positions.push({ position: p, calibrationFactor: factor.data, note: note.data, channel: channelText === '' ? null : channelText });
     }
   }
 

@@ -9,6 +9,7 @@ export function jointForImport(joint: RecordJoint): JointForImport {
     maxStudLoadN: joint.maxStudLoadN,
     maxStudLoadSource: joint.maxStudLoadSource,
     calibration: joint.calibration,
+    channelMap: joint.channelMap,
     stressAreaM2: joint.stressAreaM2 ?? undefined,
     youngsModulusPa: joint.youngsModulusPa,
   };

@@ -20,6 +20,7 @@ const wide: ColumnMapping = {
   tightenedColumn: null,
   loadUnit: 'kN',
   torqueUnit: 'N·m',
+  tare: 'auto',
 };
 const headers = ['t', 'step', 'S1', 'S2', 'S3', 'S4'];
 
@@ -75,7 +76,8 @@ describe('streaming 1,000,000 readings', () => {
     const out: string[] = ['Time (s),S1 [kN],S2 [kN],S3 [kN],S4 [kN],S5 [kN],S6 [kN],S7 [kN],S8 [kN]'];
     let t = 0;
     const push = () => out.push(`${(t++ / 100).toFixed(2)},${loads.join(',')}`);
-    const rowsPerStep = 7812; // 16 × 7812 = 124,992; 8 flat rows close the file
+    const rowsPerStep = 7812; // 16 × 7812 = 124,992; a row at rest opens the file (its readings are the zero offsets, all 0 here), 7 flat rows close it
+    push();
     for (let pass = 1; pass <= 2; pass++)
       for (const p of order) {
         const from = loads[p - 1];

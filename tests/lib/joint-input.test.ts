@@ -86,7 +86,7 @@ describe('parseJointForm', () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value.positions).toHaveLength(8);
-    expect(r.value.positions[2]).toEqual({ position: 3, calibrationFactor: 1.02, note: 'gauge replaced' });
+    expect(r.value.positions[2]).toEqual({ position: 3, calibrationFactor: 1.02, note: 'gauge replaced', channel: null });
     expect(rel(r.value.targetLoadN, lbfToN(11_865))).toBeLessThan(1e-3); // docs/REFERENCE.md §1/§2 as above
     expect(r.value.washer).toBeNull();
   });

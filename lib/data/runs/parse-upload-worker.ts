@@ -8,14 +8,14 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { AppError } from '@/lib/http/errors';
-import { assertTextFile } from '@/lib/ingest/text-file';
+import { uploadedFileText } from '@/lib/ingest/workbook';
 import { parseLoggerText } from '@/lib/ingest/parse-text';
 import type { ParseJob, ParseReply } from './parse-upload-protocol';
 
-parentPort?.on('message', (job: ParseJob) => {
+parentPort?.on('message', async (job: ParseJob) => {
   let reply: ParseReply;
   try {
-    const text = assertTextFile(new Uint8Array(job.bytes), job.limitBytes);
+    const { text } = await uploadedFileText(new Uint8Array(job.bytes), job.limitBytes, job.mapping?.sheet);
     const parsed = parseLoggerText(text, job.mapping, job.joint);
     const { text: _text, ...detection } = parsed.detection;
     reply = {

@@ -38,7 +38,7 @@ export interface CellReader {
   readonly names: readonly string[];
   /** A number, or null for an empty cell that is not `required`. */
   number(row: readonly string[], idx: number, line: number, required: boolean): number | null;
-  /** A stud load in N (0 or more, at most the joint's limit). */
+  /** A stud load in N as read (at most the joint's limit; below zero is judged by `zero.ts`). */
   load(row: readonly string[], idx: number, line: number, position: number): number;
   /** A whole stud position in 1..studCount. */
   position(row: readonly string[], idx: number, line: number): number;
@@ -81,7 +81,6 @@ export function createCellReader(headers: readonly string[], loadUnit: LoadUnit,
     number,
     load(row, idx, line, position) {
       const v = number(row, idx, line, true)!;
-      if (v < 0) throw cellError(line, names[idx]!, `${quoteInput(row[idx]!)} is a negative load; stud loads must be 0 or more.`);
       const n = loadToN(v, loadUnit, strainFor(position));
       if (n > joint.maxStudLoadN) {
         throw cellError(line, names[idx]!, `${formatLoadN(n)} is above the limit of ${formatLoadN(joint.maxStudLoadN)} (${limitSource}); check the load unit (${loadUnit}).`);

@@ -8,16 +8,20 @@ import type { ColumnIndexes } from './columns';
 import type { RowExtrasReader } from './row-extras';
 import type { SnapshotSink } from './snapshots';
 import type { RowExtras, ShapeReader } from './types';
+import type { ZeroCorrector } from './zero';
 
 /** Creates the long reader for a joint of `studCount` studs. */
-export function createLongReader(cells: CellReader, columns: ColumnIndexes, extras: RowExtrasReader, studCount: number, sink: SnapshotSink): ShapeReader {
+export function createLongReader(cells: CellReader, columns: ColumnIndexes, extras: RowExtrasReader, studCount: number, sink: SnapshotSink, zero: ZeroCorrector, stepPerStampAbove: number | null = null): ShapeReader {
   const positionName = cells.names[columns.position]!;
+  const loadName = cells.names[columns.load]!;
   const loads = new Float64Array(studCount).fill(Number.NaN);
+  const corrected = new Float64Array(studCount);
   const seen = new Int32Array(studCount);
   let time: number | null = null;
   let firstLine = 0;
   let lastLine = 0;
   let stamp: Omit<RowExtras, 'label'> | null = null;
+  let stamps = 0;
 
   const closeTimeStamp = () => {
     if (time === null || !stamp) return;
@@ -25,7 +29,15 @@ export function createLongReader(cells: CellReader, columns: ColumnIndexes, extr
     if (missing.length > 0) {
       throw cellError(firstLine, positionName, `time ${time} s has no reading for position${missing.length === 1 ? '' : 's'} ${listPositions(missing)} (the first time stamp must list every stud; later ones carry the last value forward).`);
     }
-    sink.take({ line: lastLine, timeS: time, loadsN: loads, appliedTorqueNm: stamp.torque, appliedPressureBar: stamp.pressure, pass: stamp.pass, key: stamp.key, tightened: stamp.tightened });
+    zero.correct(loads, corrected, (k) => seen[k]!, () => loadName);
+    let key = stamp.key;
+    if (stepPerStampAbove !== null) {
+      // Each time stamp is a step; the first is the at-rest baseline when no stud is above the step threshold.
+      const atRest = stamps === 0 && corrected.every((n) => n <= stepPerStampAbove);
+      key = atRest ? '' : `t\u0000${time} s`;
+    }
+    stamps++;
+    sink.take({ line: lastLine, timeS: time, loadsN: corrected, appliedTorqueNm: stamp.torque, appliedPressureBar: stamp.pressure, pass: stamp.pass, key, tightened: stamp.tightened });
     seen.fill(0);
   };
 

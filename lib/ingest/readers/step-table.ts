@@ -9,9 +9,10 @@ import type { ColumnIndexes } from './columns';
 import type { RowExtrasReader } from './row-extras';
 import { emptyStep, type StepCollector } from './steps';
 import type { PendingStep, ShapeReader } from './types';
+import type { ZeroCorrector } from './zero';
 
 /** Creates the step-table reader for a joint of `studCount` studs. */
-export function createStepTableReader(cells: CellReader, columns: ColumnIndexes, extras: RowExtrasReader, studCount: number, collector: StepCollector): ShapeReader {
+export function createStepTableReader(cells: CellReader, columns: ColumnIndexes, extras: RowExtrasReader, studCount: number, collector: StepCollector, zero: ZeroCorrector): ShapeReader {
   const positionName = cells.names[columns.position]!;
   let table: (PendingStep & { key: string; seen: Int32Array }) | null = null;
 
@@ -27,7 +28,7 @@ export function createStepTableReader(cells: CellReader, columns: ColumnIndexes,
   return {
     read(row, line, e) {
       const position = cells.position(row, columns.position, line);
-      const load = cells.load(row, columns.load, line, position);
+      const load = zero.nearZero(cells.load(row, columns.load, line, position), line, cells.names[columns.load]!);
       const timeS = extras.time(row, line, false);
       if (!table || table.key !== e.key) {
         closeTableStep();

@@ -1,7 +1,13 @@
 /** Types shared by the normaliser (`../normalise.ts`) and its shape readers. */
 
+import type { ChannelMap } from '../channel-map';
+
 /** What the import needs to know about the joint the run was recorded on. */
 export interface JointForImport {
+  /** Which logger channel is wired to which position (`channel-map.ts`); default channel k = position k. */
+  channelMap?: ChannelMap;
+  /** The method's steps for this stud count (pass, position, check pass), when known: derivation keeps steps the method has after the last rise (check passes). */
+  plannedSteps?: ReadonlyArray<{ pass: number; position: number; check: boolean }>;
   studCount: number;
   /** Target stud load in N. */
   targetLoadN: number;

@@ -9,6 +9,7 @@ import { columnIndex } from './columns';
 import type { RowExtrasReader } from './row-extras';
 import type { SnapshotSink } from './snapshots';
 import type { ShapeReader } from './types';
+import type { ZeroCorrector } from './zero';
 
 /**
  * Which column holds which position (index 0 = position 1).
@@ -41,12 +42,15 @@ export function studColumnIndexes(names: readonly string[], studColumns: ColumnM
 }
 
 /** Creates the wide reader; every row needs a time (when mapped) and a load for every stud. */
-export function createWideReader(cells: CellReader, extras: RowExtrasReader, studIdx: Int32Array, sink: SnapshotSink): ShapeReader {
+export function createWideReader(cells: CellReader, extras: RowExtrasReader, studIdx: Int32Array, sink: SnapshotSink, zero: ZeroCorrector): ShapeReader {
+  const raw = new Float64Array(studIdx.length);
   const loads = new Float64Array(studIdx.length);
+  const columnOf = (k: number) => cells.names[studIdx[k]!]!;
   return {
     read(row, line, e) {
       const timeS = extras.time(row, line, true);
-      for (let k = 0; k < loads.length; k++) loads[k] = cells.load(row, studIdx[k]!, line, k + 1);
+      for (let k = 0; k < raw.length; k++) raw[k] = cells.load(row, studIdx[k]!, line, k + 1);
+      zero.correct(raw, loads, () => line, columnOf);
       sink.take({ line, timeS, loadsN: loads, appliedTorqueNm: e.torque, appliedPressureBar: e.pressure, pass: e.pass, key: e.key, tightened: e.tightened });
     },
     close() {},

@@ -1,0 +1,77 @@
+/**
+ * A few files of the logger corpus (tests/ingest/logger-corpus, written by
+ * scripts/generate-logger-corpus.ts, all invented) uploaded through the Record page in Chromium:
+ * a zero-based AI file, German headers with a decimal comma, an Excel workbook whose table is on its
+ * second sheet, and gauge serial names, whose guessed mapping must be confirmed before saving. The
+ * expected step counts are the generator's own inputs (manifest.json).
+ */
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { QueryTypes } from 'sequelize';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sequelize } from '@/lib/platform/db';
+import { startAppServer, type AppServer } from '../support/app-server';
+import { launchBrowser, screenshotPath, signInThroughForm } from '../support/browser';
+import { DEMO_ACCOUNTS } from '../support/http-session';
+import { createTestJoint, dropTestJoints } from '../support/record-fixtures';
+
+const DIR = path.resolve(__dirname, '../ingest/logger-corpus');
+const manifest = JSON.parse(readFileSync(path.join(DIR, 'manifest.json'), 'utf8')) as { good: Array<{ file: string; steps: number }> };
+const stepsOf = (file: string) => manifest.good.find((g) => g.file === file)!.steps;
+
+let server: AppServer;
+let browser: Browser;
+let page: Page;
+let jointId: number;
+let jointName: string;
+
+beforeAll(async () => {
+  server = await startAppServer();
+  jointId = await createTestJoint(8, 'e2e-logger');
+  const [row] = await sequelize.query<{ name: string }>('SELECT name FROM joints WHERE id = ?', { type: QueryTypes.SELECT, replacements: [jointId] });
+  jointName = row!.name;
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
+  await signInThroughForm(page, server.baseUrl, DEMO_ACCOUNTS.instructor);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await dropTestJoints([jointId]);
+  await server?.stop();
+  await sequelize.close();
+});
+
+async function upload(file: string) {
+  await page.goto(`${server.baseUrl}/record`);
+  await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (8 studs)` });
+  await page.locator('input[type=file]').setInputFiles(path.join(DIR, 'good', file));
+  const save = page.getByRole('button', { name: new RegExp(`^Save run \\(${stepsOf(file)} steps`) });
+  await save.waitFor({ timeout: 30_000 });
+  return save;
+}
+
+describe('Record page with logger files', () => {
+  for (const file of ['channels-ai-zero-based.csv', 'german-semicolon-comma.csv', 'workbook.xlsx']) {
+    it(`uploads ${file} without editing`, async () => {
+      const save = await upload(file);
+      await page.getByLabel(`These ${stepsOf(file)} steps are right`).check();
+      if (file.endsWith('.xlsx')) await expect(page.getByLabel('Sheet').inputValue()).resolves.toBe('Messung');
+      await save.click();
+      await page.getByText(/^Saved run \d+ with/).waitFor({ timeout: 30_000 });
+    });
+  }
+
+  it('asks to confirm a guessed mapping (gauge serial names) before saving', async () => {
+    const save = await upload('gauge-serials.csv');
+    await page.getByLabel(`These ${stepsOf('gauge-serials.csv')} steps are right`).check();
+    expect(await save.isDisabled()).toBe(true);
+    await page.getByText('Column mapping', { exact: true }).waitFor();
+    await page.screenshot({ path: screenshotPath('record-upload-mapping-step'), fullPage: true });
+    await page.getByLabel(/The column mapping above is right/).check();
+    expect(await save.isDisabled()).toBe(false);
+    await save.click();
+    await page.getByText(/^Saved run \d+ with/).waitFor({ timeout: 30_000 });
+  });
+});
