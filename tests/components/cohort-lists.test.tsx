@@ -3,7 +3,7 @@ import { render, screen, within } from '@testing-library/react';
 import type { CohortDetail, CohortRunRow } from '@/lib/data/cohorts';
 
 // The sign-off and send forms call server actions; this test only reads the lists.
-vi.mock('@/app/(lab)/cohorts/actions', () => ({ signOffAction: vi.fn(), sendResultsAction: vi.fn() }));
+vi.mock('@/app/(lab)/cohorts/actions', () => ({ signOffAction: vi.fn(), sendResultsAction: vi.fn(), resendInviteAction: vi.fn() }));
 const { AwaitingVerdicts, MembersList } = await import('@/components/cohorts/cohort-lists');
 
 // An invented cohort: 23 trainees with one complete unjudged run each, and 2 runs of the instructor (id 999).
