@@ -9,6 +9,7 @@ import { formatDateTime } from '@/lib/format/format-date';
 import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';
+import { GasketStressPanel } from './gasket-stress-panel';
 import { RunCharts } from './run-charts';
 
 const TOOL_LABELS: Record<string, string> = {
@@ -128,6 +129,8 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           </table>
         </div>
       </section>
+
+      {header.joint.gasket ? <GasketStressPanel gasket={header.joint.gasket} passes={analysis.passes} finalLoadsN={analysis.finalLoadsN} units={units} /> : null}
 
       {role === 'researcher' ? null : <CommentPanel comments={comments} action={commentAction} />}
     </article>
