@@ -13,6 +13,7 @@ import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { RunComment } from './run-comment';
+import { RunHold } from './run-hold';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -24,7 +25,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, RunHold] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -41,6 +42,7 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   Run.belongsTo(Cohort, { as: 'cohort', foreignKey: 'cohortId' });
   Run.hasMany(TighteningStep, { as: 'steps', foreignKey: 'runId' });
   Run.hasMany(RunComment, { as: 'comments', foreignKey: 'runId' });
+  Run.hasMany(RunHold, { as: 'holds', foreignKey: 'runId' });
   TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
   RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   OneTimeToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
@@ -51,4 +53,4 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, RunHold, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

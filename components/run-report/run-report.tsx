@@ -10,6 +10,8 @@ import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';
 import { GasketStressPanel } from './gasket-stress-panel';
+import { HoldPanel } from './hold-panel';
+import type { RunRelaxation } from '@/lib/analysis/relaxation';
 import { RunCharts } from './run-charts';
 
 const TOOL_LABELS: Record<string, string> = {
@@ -28,9 +30,11 @@ interface Props {
   units: 'si' | 'us';
   role: Role;
   commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  relaxation: RunRelaxation;
+  holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, commentAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, commentAction, relaxation, holdAction }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -129,6 +133,8 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           </table>
         </div>
       </section>
+
+      <HoldPanel relaxation={relaxation} units={units} action={holdAction} />
 
       {header.joint.gasket ? <GasketStressPanel gasket={header.joint.gasket} passes={analysis.passes} finalLoadsN={analysis.finalLoadsN} units={units} /> : null}
 

@@ -60,6 +60,7 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/record/actions.ts', name: 'finishRecordingAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.finishRecordingAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'createStreamTokenAction', allowed: ['instructor'], call: () => record.createStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'revokeStreamTokenAction', allowed: ['instructor'], call: () => record.revokeStreamTokenAction(idle, form()) },
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addHoldsAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.addHoldsAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },

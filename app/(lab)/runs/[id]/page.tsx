@@ -6,7 +6,9 @@ import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
 import { requirePageUser } from '@/lib/auth/session';
-import { addCommentAction } from './actions';
+import { addCommentAction, addHoldsAction } from './actions';
+import { HOLD_ROLES, loadRunHolds } from '@/lib/data/run-holds';
+import { runRelaxation } from '@/lib/analysis/relaxation';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -20,6 +22,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
     throw error;
   });
   const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
+  const relaxation = runRelaxation(analysis.passes, await loadRunHolds(parsed.data, loaded.run.studCount));
   return (
     <RunReport
       header={loaded.header}
@@ -28,6 +31,8 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
       units={user.units}
       role={user.role}
       commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
+      relaxation={relaxation}
+      holdAction={HOLD_ROLES.includes(user.role) ? addHoldsAction.bind(null, parsed.data) : null}
     />
   );
 }
