@@ -5,9 +5,11 @@ import { CohortCriteria } from './cohort-criteria';
 import { CohortMember } from './cohort-member';
 import { ColumnMap } from './column-map';
 import { ComparisonCache } from './comparison-cache';
+import { HardwareSet } from './hardware-set';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
 import { Lubricant } from './lubricant';
+import { LubricantLot } from './lubricant-lot';
 import { Method } from './method';
 import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
@@ -25,7 +27,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, RunHold] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, RunHold, HardwareSet, LubricantLot] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -43,6 +45,10 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   Run.hasMany(TighteningStep, { as: 'steps', foreignKey: 'runId' });
   Run.hasMany(RunComment, { as: 'comments', foreignKey: 'runId' });
   Run.hasMany(RunHold, { as: 'holds', foreignKey: 'runId' });
+  Run.belongsTo(HardwareSet, { as: 'hardwareSet', foreignKey: 'hardwareSetId' });
+  Run.belongsTo(LubricantLot, { as: 'lubricantLot', foreignKey: 'lubricantLotId' });
+  Lubricant.hasMany(LubricantLot, { as: 'lots', foreignKey: 'lubricantId' });
+  LubricantLot.belongsTo(Lubricant, { as: 'lubricant', foreignKey: 'lubricantId' });
   TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
   RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   OneTimeToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
@@ -53,4 +59,4 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, RunHold, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, HardwareSet, Joint, JointPosition, Lubricant, LubricantLot, Method, Reading, Run, RunComment, RunHold, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -33,6 +33,9 @@ function initialHeader(options: RecordOptions, user: RecordUser): HeaderState {
     cohortId: self?.cohortIds[0] ? String(self.cohortIds[0]) : '',
     recordedAt: new Date().toISOString().slice(0, 16),
     notes: '',
+    hardwareSetId: '',
+    lubricantLotId: '',
+    gasketCondition: '',
   };
 }
 

@@ -10,6 +10,9 @@ export interface HeaderState {
   cohortId: string;
   recordedAt: string;
   notes: string;
+  hardwareSetId: string;
+  lubricantLotId: string;
+  gasketCondition: string;
 }
 
 export type HeaderErrors = Record<string, string[] | undefined>;
@@ -22,6 +25,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
   const cohorts = options.cohorts.filter((c) => operator?.cohortIds.includes(c.id));
   const set = (key: keyof HeaderState) => (e: React.ChangeEvent<HTMLSelectElement | HTMLInputElement | HTMLTextAreaElement>) => {
     const next = { ...value, [key]: e.target.value };
+    if (key === 'lubricantId') next.lubricantLotId = '';
     if (key === 'operatorId') {
       const op = options.operators.find((o) => String(o.id) === e.target.value);
       if (!op?.cohortIds.includes(Number(next.cohortId))) next.cohortId = op?.cohortIds[0] ? String(op.cohortIds[0]) : '';
@@ -55,6 +59,9 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
       {field('lubricantId', 'Lubricant', select('lubricantId', options.lubricants))}
       {field('operatorId', 'Operator', select('operatorId', options.operators))}
       {field('cohortId', 'Cohort', select('cohortId', cohorts, <option value="">No cohort</option>))}
+      {field('hardwareSetId', 'Studs, nuts and washers (optional)', select('hardwareSetId', options.hardwareSets.map((h) => ({ id: h.id, name: `${h.name} (used ${h.useCount} times)` })), <option value="">Not recorded</option>))}
+      {field('lubricantLotId', 'Lubricant lot (optional)', select('lubricantLotId', options.lubricantLots.filter((l) => String(l.lubricantId) === value.lubricantId), <option value="">Not recorded</option>))}
+      {field('gasketCondition', 'Gasket (optional)', select('gasketCondition', [], <><option value="">Not recorded</option><option value="new">New</option><option value="reused">Reused</option></>))}
       {field('recordedAt', 'Recorded at (UTC)', <input type="datetime-local" aria-labelledby="header-recordedAt-label" name="recordedAt" value={value.recordedAt} onChange={set('recordedAt')} className={CONTROL} aria-invalid={errors.recordedAt ? true : undefined} />)}
       <div className="sm:col-span-2">
         {field('notes', 'Notes (optional)', <input type="text" name="notes" value={value.notes} onChange={set('notes')} maxLength={2000} placeholder="e.g. gauge 5 re-zeroed before the run" className={CONTROL} />)}

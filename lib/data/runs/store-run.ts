@@ -4,6 +4,7 @@ import type { NormalisedRun } from '../../record/run-types';
 import { Run, sequelize } from '../../../models';
 import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
+import { claimHardwareUse } from './hardware-use';
 
 export interface RunHeader {
   jointId: number;
@@ -17,6 +18,9 @@ export interface RunHeader {
   status: RunStatus;
   recordedAt: Date;
   notes?: string | null;
+  hardwareSetId?: number | null;
+  lubricantLotId?: number | null;
+  gasketCondition?: 'new' | 'reused' | null;
   setAsideReason?: string | null;
   setAsideById?: number | null;
 }
@@ -41,8 +45,9 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
+  const hardwareUseNumber = header.hardwareSetId ? await claimHardwareUse(header.hardwareSetId, transaction) : null;
   const { id: runId } = await Run.create(
-    { ...header, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
+    { ...header, hardwareUseNumber, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
     { transaction },
   );
   await appendSteps(runId, run, 0, transaction);
