@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import { createHardwareSet, createLubricantLot, listHardware } from '@/lib/data/hardware';
 import { resolveRunHeader } from '@/lib/data/record';
+import { compareQuerySchema, compareRuns } from '@/lib/data/compare';
 import { storeRun } from '@/lib/data/runs/store-run';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
@@ -47,6 +48,10 @@ describe('hardware sets and lubricant lots', () => {
     expect(rows.map((r) => r.gasket_condition)).toEqual(['new', 'reused']);
     expect(rows.every((r) => r.lubricant_lot_id === lotId)).toBe(true);
     expect((await listHardware(instructor)).sets.find((s) => s.id === setId)?.useCount).toBe(2);
+    const byUse = await compareRuns(instructor, compareQuerySchema.parse({ by: 'hardwareUse', operatorId: String(instructor.id), from: '2026-03-01', to: '2026-03-01' }));
+    expect(byUse.groups.map((g) => g.label)).toEqual(['Use 1 of the set', 'Use 2 of the set']);
+    const byLot = await compareRuns(instructor, compareQuerySchema.parse({ by: 'lubricantLot', ids: String(lotId) }));
+    expect(byLot.groups[0]?.label).toMatch(new RegExp(`, lot ${TAG}-L1$`));
   });
 
   it('refuses a lot of another lubricant, and a set name twice', async () => {
