@@ -10,3 +10,4 @@ export * from './nut-bearing';
 export * from './warnings';
 export * from './calculate';
 export * from './gasket';
+export * from './tensioner-coverage';

@@ -16,6 +16,7 @@ describe('CalculatorForm', () => {
     expect(within(results).getByText(`78.1${SP}kN`)).toBeInTheDocument();
     expect(screen.getByRole('status', { name: 'Warnings' })).toHaveTextContent('No warnings');
     expect(screen.getByRole('complementary', { name: 'Caution' })).toHaveTextContent('stud, flange and gasket limits');
+    expect(screen.getByTestId('tensioner-caution')).toHaveTextContent('line of action');
   });
 
   it('converts values exactly when the units are switched, and back', () => {
