@@ -6,15 +6,18 @@ import { CohortCriteria } from './cohort-criteria';
 import { CohortMember } from './cohort-member';
 import { ColumnMap } from './column-map';
 import { ComparisonCache } from './comparison-cache';
+import { HardwareSet } from './hardware-set';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
 import { Lubricant } from './lubricant';
+import { LubricantLot } from './lubricant-lot';
 import { Method } from './method';
 import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { SavedComparison } from './saved-comparison';
 import { RunComment } from './run-comment';
+import { RunHold } from './run-hold';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -71,6 +74,11 @@ export const MODELS = [
   Run.belongsTo(Cohort, { as: 'cohort', foreignKey: 'cohortId' });
   Run.hasMany(TighteningStep, { as: 'steps', foreignKey: 'runId' });
   Run.hasMany(RunComment, { as: 'comments', foreignKey: 'runId' });
+  Run.hasMany(RunHold, { as: 'holds', foreignKey: 'runId' });
+  Run.belongsTo(HardwareSet, { as: 'hardwareSet', foreignKey: 'hardwareSetId' });
+  Run.belongsTo(LubricantLot, { as: 'lubricantLot', foreignKey: 'lubricantLotId' });
+  Lubricant.hasMany(LubricantLot, { as: 'lots', foreignKey: 'lubricantId' });
+  LubricantLot.belongsTo(Lubricant, { as: 'lubricant', foreignKey: 'lubricantId' });
   TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
   RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   OneTimeToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
@@ -84,6 +92,9 @@ export const MODELS = [
 
 export {
   sequelize,
+  RunHold,
+  HardwareSet,
+  LubricantLot,
   AuditEntry,
   SavedComparison,
   CapturedMail,

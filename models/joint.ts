@@ -18,6 +18,16 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
   declare targetLoadN: number;
   declare bandPercent: CreationOptional<number>;
   declare notes: CreationOptional<string | null>;
+  /** Gasket contact diameters, mm (or the contact area, mm², when the diameters are not known). */
+  declare gasketInnerMm: CreationOptional<number | null>;
+  declare gasketOuterMm: CreationOptional<number | null>;
+  declare gasketAreaMm2: CreationOptional<number | null>;
+  /** The gasket's minimum seating and maximum stress, MPa, with the source the centre gives for them. */
+  declare gasketMinSeatingMpa: CreationOptional<number | null>;
+  declare gasketMaxMpa: CreationOptional<number | null>;
+  declare gasketStressSource: CreationOptional<string | null>;
+  declare flangeFacing: CreationOptional<string | null>;
+  declare clampLengthMm: CreationOptional<number | null>;
   /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -41,6 +51,14 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
         targetLoadN: { type: DataTypes.DOUBLE, allowNull: false },
         bandPercent: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 10 },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        gasketInnerMm: { type: DataTypes.DOUBLE, allowNull: true },
+        gasketOuterMm: { type: DataTypes.DOUBLE, allowNull: true },
+        gasketAreaMm2: { type: DataTypes.DOUBLE, allowNull: true, field: 'gasket_area_mm2' },
+        gasketMinSeatingMpa: { type: DataTypes.DOUBLE, allowNull: true },
+        gasketMaxMpa: { type: DataTypes.DOUBLE, allowNull: true },
+        gasketStressSource: { type: DataTypes.STRING(200), allowNull: true },
+        flangeFacing: { type: DataTypes.STRING(40), allowNull: true },
+        clampLengthMm: { type: DataTypes.DOUBLE, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },

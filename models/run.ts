@@ -32,6 +32,11 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare simulationKey: CreationOptional<string | null>;
   declare recordedAt: Date;
   declare notes: CreationOptional<string | null>;
+  /** The studs/nuts/washers set used, and its use number on this run (1 = first run on the set). */
+  declare hardwareSetId: CreationOptional<number | null>;
+  declare hardwareUseNumber: CreationOptional<number | null>;
+  declare lubricantLotId: CreationOptional<number | null>;
+  declare gasketCondition: CreationOptional<'new' | 'reused' | null>;
   declare studCount: number;
   declare stepCount: CreationOptional<number>;
   declare passCount: CreationOptional<number>;
@@ -72,6 +77,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         simulationKey: { type: DataTypes.CHAR(64), allowNull: true },
         recordedAt: { type: DataTypes.DATE, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        hardwareSetId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        hardwareUseNumber: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        lubricantLotId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        gasketCondition: { type: DataTypes.ENUM('new', 'reused'), allowNull: true },
         studCount: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false },
         stepCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         passCount: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 0 },

@@ -7,6 +7,7 @@ import type { UnitSystem } from '@/lib/calc/units';
 import { CalculatorResults } from './calculator-results';
 import { calculatorInputs, calculatorReducer, initialCalculatorState } from './calculator-state';
 import { RadioChoice } from './form-parts';
+import { GasketSection } from './gasket-section';
 import { StudSection } from './stud-section';
 import { TargetSection } from './target-section';
 import { TensionerSection } from './tensioner-section';
@@ -45,6 +46,7 @@ export function CalculatorForm() {
         <TargetSection id={id} state={state} dispatch={dispatch} errors={errors} />
         <TorqueSection state={state} dispatch={dispatch} errors={errors} />
         <TensionerSection state={state} dispatch={dispatch} errors={errors} />
+        <GasketSection state={state} dispatch={dispatch} preload={result.preload} />
       </form>
 
       <div className="flex flex-col gap-4 lg:sticky lg:top-4 lg:self-start">

@@ -62,11 +62,16 @@ export interface CalculatorState {
   clamp: QuantityField;
   ltfText: string;
   piston: QuantityField;
+  /** Gasket section: contact diameters, stud count and the target gasket stress. */
+  gasketInner: QuantityField;
+  gasketOuter: QuantityField;
+  gasketStress: QuantityField;
+  gasketStudsText: string;
 }
 
-type TextField = 'percentText' | 'muThreadText' | 'muBearingText' | 'ltfText';
-type TypedQuantity = 'stress' | 'clamp' | 'piston';
-const QUANTITY_OF: Record<TypedQuantity, Quantity> = { stress: 'stress', clamp: 'length', piston: 'area' };
+type TextField = 'percentText' | 'muThreadText' | 'muBearingText' | 'ltfText' | 'gasketStudsText';
+type TypedQuantity = 'stress' | 'clamp' | 'piston' | 'gasketInner' | 'gasketOuter' | 'gasketStress';
+const QUANTITY_OF: Record<TypedQuantity, Quantity> = { stress: 'stress', clamp: 'length', piston: 'area', gasketInner: 'length', gasketOuter: 'length', gasketStress: 'stress' };
 
 export type CalculatorAction =
   | { type: 'units'; units: UnitSystem }
@@ -107,6 +112,11 @@ export function initialCalculatorState(): CalculatorState {
     clamp: quantityField('length', inToMm(3), 'si'),
     ltfText: '1.2',
     piston: { text: '', si: Number.NaN },
+    // An example ring of 4.5 in × 5.5 in; 69 MPa is the seating stress of docs/REFERENCE.md §7 (a training default).
+    gasketInner: quantityField('length', inToMm(4.5), 'si'),
+    gasketOuter: quantityField('length', inToMm(5.5), 'si'),
+    gasketStress: quantityField('stress', 69, 'si'),
+    gasketStudsText: '8',
   };
 }
 
@@ -180,6 +190,9 @@ export function calculatorReducer(s: CalculatorState, a: CalculatorAction): Calc
         hole: switched('length', s.hole, a.units),
         clamp: switched('length', s.clamp, a.units),
         piston: switched('area', s.piston, a.units),
+        gasketInner: switched('length', s.gasketInner, a.units),
+        gasketOuter: switched('length', s.gasketOuter, a.units),
+        gasketStress: switched('stress', s.gasketStress, a.units),
       };
     case 'thread':
       return chooseThread(s, a.threadId);

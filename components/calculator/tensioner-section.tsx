@@ -49,6 +49,9 @@ export function TensionerSection({ state, dispatch, errors }: { state: Calculato
           hint="From the tool's data sheet; gives the pump pressure."
         />
       </div>
+      <p className="text-xs text-caution" data-testid="tensioner-caution">
+        Keep clear of the tool&apos;s line of action while it is pressurised, stay within the pressure limits of the tool maker, and follow the owner&apos;s procedures.
+      </p>
     </Section>
   );
 }

@@ -9,6 +9,8 @@ export const BY_CHOICES = [
   { key: 'cohort', label: 'Cohorts', option: 'cohorts' },
   { key: 'trainee', label: 'Operators', option: 'operators' },
   { key: 'runs', label: 'Hand-picked runs', option: null },
+  { key: 'hardwareUse', label: 'Hardware use count', option: null },
+  { key: 'lubricantLot', label: 'Lubricant lots', option: null },
 ] as const;
 
 export type ByChoice = (typeof BY_CHOICES)[number]['key'];

@@ -13,6 +13,7 @@ import { useFieldErrors } from '../ui/use-field-errors';
 import { CUSTOM_THREAD, jointTarget, numberFromText, STUD_COUNT_RANGE, targetInputFromForm, threadChoiceOf, type TargetMode } from '@/lib/joints/joint-input';
 import type { JointDetail } from '@/lib/data/joints';
 import { FlangeDiagram } from './flange-diagram';
+import { GasketSection } from './gasket-section';
 import { FieldMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
 
 type Action = (state: FormState, formData: FormData) => Promise<FormState>;
@@ -133,6 +134,8 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
           <TextField label="Gasket type" name="gasketType" value={v.gasketType} onChange={set('gasketType')} errors={errors.gasketType} width="w-72" hint="e.g. spiral-wound, graphite filled, with inner ring" />
         </div>
       </Section>
+
+      <GasketSection gasket={joint?.gasket ?? null} units={units} studCount={shownCount} errors={errors} />
 
       <Section title="Target stud load">
         {hasRuns ? <p className="text-sm text-muted">A new target applies to new runs only: the {joint?.runCount} runs already recorded keep the target they were recorded with.</p> : null}

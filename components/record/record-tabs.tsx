@@ -37,6 +37,9 @@ function initialHeader(options: RecordOptions, user: RecordUser, remembered: Rec
     cohortId: defaultCohortId(options, operator),
     recordedAt: new Date().toISOString().slice(0, 16),
     notes: '',
+    hardwareSetId: '',
+    lubricantLotId: '',
+    gasketCondition: '',
   };
 }
 

@@ -12,6 +12,9 @@ export interface HeaderState {
   cohortId: string;
   recordedAt: string;
   notes: string;
+  hardwareSetId: string;
+  lubricantLotId: string;
+  gasketCondition: string;
 }
 
 export type HeaderErrors = Record<string, string[] | undefined>;
@@ -27,6 +30,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
   const set = (key: keyof HeaderState) => (e: React.ChangeEvent<HTMLSelectElement | HTMLInputElement | HTMLTextAreaElement>) => {
     const next = { ...value, [key]: e.target.value };
     if (key === 'cohortId') setCohortNote('');
+    if (key === 'lubricantId') next.lubricantLotId = '';
     if (key === 'operatorId') {
       const op = options.operators.find((o) => String(o.id) === e.target.value);
       const change = cohortForOperator(options, op, value.cohortId);
@@ -67,6 +71,9 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
         {field('cohortId', 'Cohort', select('cohortId', cohorts, <option value="">No cohort</option>))}
         <p aria-live="polite" className="text-xs text-caution" data-testid="cohort-note">{cohortNote}</p>
       </div>
+      {field('hardwareSetId', 'Studs, nuts and washers (optional)', select('hardwareSetId', options.hardwareSets.map((h) => ({ id: h.id, name: `${h.name} (used ${h.useCount} times)` })), <option value="">Not recorded</option>))}
+      {field('lubricantLotId', 'Lubricant lot (optional)', select('lubricantLotId', options.lubricantLots.filter((l) => String(l.lubricantId) === value.lubricantId), <option value="">Not recorded</option>))}
+      {field('gasketCondition', 'Gasket (optional)', select('gasketCondition', [], <><option value="">Not recorded</option><option value="new">New</option><option value="reused">Reused</option></>))}
       {field('recordedAt', 'Recorded at (UTC)', <input type="datetime-local" aria-labelledby="header-recordedAt-label" name="recordedAt" value={value.recordedAt} onChange={set('recordedAt')} className={CONTROL} aria-invalid={errors.recordedAt ? true : undefined} />)}
       <div className="sm:col-span-2">
         {field('notes', 'Notes (optional)', <input type="text" name="notes" value={value.notes} onChange={set('notes')} maxLength={2000} placeholder="e.g. gauge 5 re-zeroed before the run" className={CONTROL} />)}

@@ -10,6 +10,9 @@ import type { Role } from '@/models/user';
 import { CommentPanel } from './comment-panel';
 import { FIGURE_EXPLANATIONS } from './figure-explanations';
 import { ReviewPanel } from './review-panel';
+import { GasketStressPanel } from './gasket-stress-panel';
+import { HoldPanel } from './hold-panel';
+import type { RunRelaxation } from '@/lib/analysis/relaxation';
 import { RunCharts } from './run-charts';
 import { ATTEMPT_KIND_LABEL, type AttemptKind } from '@/lib/qualification/attempt-kind';
 import { PrintHeader, PrintSignature } from '@/components/ui/print-signature';
@@ -33,9 +36,11 @@ interface Props {
   commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
   /** Confirm or set aside a run held for review; null for those who may not decide. */
   reviewAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  relaxation: RunRelaxation;
+  holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, relaxation, holdAction }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -136,6 +141,10 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           </table>
         </div>
       </section>
+
+      <HoldPanel relaxation={relaxation} units={units} action={holdAction} />
+
+      {header.joint.gasket ? <GasketStressPanel gasket={header.joint.gasket} passes={analysis.passes} finalLoadsN={analysis.finalLoadsN} units={units} /> : null}
 
       {role === 'researcher' ? null : <CommentPanel comments={comments} action={commentAction} />}
       <PrintSignature roles={['Trainee', 'Instructor']} />

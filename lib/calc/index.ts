@@ -9,3 +9,5 @@ export * from './nut-factors';
 export * from './nut-bearing';
 export * from './warnings';
 export * from './calculate';
+export * from './gasket';
+export * from './tensioner-coverage';

@@ -10,3 +10,4 @@ export { compareDriftByPositionChart } from './compare-drift-by-position-chart';
 export { nutFactorChart, type NutFactorRow } from './nut-factor-chart';
 export { GROUP_COLOURS, groupColour, deviationColour, deviationColourHex, THEME } from './palette';
 export { readStud, type StudReading } from './stud-reading';
+export { relaxationChart } from './relaxation-chart';

@@ -19,7 +19,7 @@ const idList = z
   .transform((text) => [...new Set(text.split(',').map(Number))])
   .refine((ids) => ids.length <= 8, 'can name at most 8 groups');
 
-export const COMPARE_BY = ['method', 'lubricant', 'cohort', 'trainee', 'runs'] as const;
+export const COMPARE_BY = ['method', 'lubricant', 'cohort', 'trainee', 'runs', 'hardwareUse', 'lubricantLot'] as const;
 export type CompareBy = (typeof COMPARE_BY)[number];
 
 /** Where runs come from: measured (uploaded, entered by hand, streamed live) or simulated, never pooled unasked. */
@@ -70,8 +70,8 @@ export interface CompareResponse extends ComparisonResult {
   nutFactors: NutFactorByLubricant[];
 }
 
-const GROUP_COLUMN: Record<CompareBy, string> = { method: 'r.method_id', lubricant: 'r.lubricant_id', cohort: 'r.cohort_id', trainee: 'r.operator_id', runs: 'r.id' };
-const SUBJECT: Record<CompareBy, string> = { method: 'these methods', lubricant: 'these lubricants', cohort: 'these cohorts', trainee: 'these operators', runs: 'these runs' };
+const GROUP_COLUMN: Record<CompareBy, string> = { method: 'r.method_id', lubricant: 'r.lubricant_id', cohort: 'r.cohort_id', trainee: 'r.operator_id', runs: 'r.id', hardwareUse: 'r.hardware_use_number', lubricantLot: 'r.lubricant_lot_id' };
+const SUBJECT: Record<CompareBy, string> = { method: 'these methods', lubricant: 'these lubricants', cohort: 'these cohorts', trainee: 'these operators', runs: 'these runs', hardwareUse: 'these uses of the hardware', lubricantLot: 'these lubricant lots' };
 const FILTER_COLUMN = { methodId: 'r.method_id', lubricantId: 'r.lubricant_id', cohortId: 'r.cohort_id', operatorId: 'r.operator_id', jointId: 'r.joint_id', studCount: 'r.stud_count', passCount: 'r.pass_count' } as const;
 const MEASURED_SQL = "r.source IN ('upload', 'manual', 'live')";
 const SOURCE_SQL = { measured: MEASURED_SQL, simulated: "r.source = 'simulated'", both: '1 = 1' } as const;
@@ -147,7 +147,7 @@ async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ wher
   if (query.to) (where.push('r.recorded_at < DATE_ADD(?, INTERVAL 1 DAY)'), params.push(`${query.to} 00:00:00`));
   const column = GROUP_COLUMN[query.by];
   if (query.ids?.length) (where.push(`${column} IN (?)`), params.push(query.ids));
-  else if (query.by === 'cohort') where.push('r.cohort_id IS NOT NULL');
+  else if (query.by === 'cohort' || query.by === 'hardwareUse' || query.by === 'lubricantLot') where.push(`${column} IS NOT NULL`);
   return { where, params };
 }
 
@@ -201,11 +201,17 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
 async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Promise<Map<number, string>> {
   const labels = new Map<number, string>();
   if (!ids.length) return labels;
-  const table = { method: 'methods', lubricant: 'lubricants', cohort: 'cohorts', trainee: 'users', runs: null }[by];
-  if (!table) {
-    for (const id of ids) labels.set(id, `Run ${id}`);
+  if (by === 'runs' || by === 'hardwareUse') {
+    // A use number n: the n-th run recorded on its hardware set.
+    for (const id of ids) labels.set(id, by === 'runs' ? `Run ${id}` : `Use ${id} of the set`);
     return labels;
   }
+  if (by === 'lubricantLot') {
+    const lots = await sequelize.query<{ id: number; name: string }>("SELECT o.id, CONCAT(l.name, ', lot ', o.lot_code) AS name FROM lubricant_lots o JOIN lubricants l ON l.id = o.lubricant_id WHERE o.id IN (?)", { type: QueryTypes.SELECT, replacements: [ids] });
+    for (const row of lots) labels.set(row.id, row.name);
+    return labels;
+  }
+  const table = { method: 'methods', lubricant: 'lubricants', cohort: 'cohorts', trainee: 'users' }[by];
   const rows = await sequelize.query<{ id: number; name: string }>(`SELECT id, name FROM ${table} WHERE id IN (?)`, { type: QueryTypes.SELECT, replacements: [ids] });
   for (const row of rows) labels.set(row.id, by === 'trainee' ? operatorLabel(user, row) : row.name);
   return labels;

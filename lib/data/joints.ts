@@ -3,6 +3,7 @@ import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
+import type { JointGasket } from '@/lib/joints/gasket-input';
 import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-properties';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
@@ -41,6 +42,7 @@ export interface JointDetail extends JointSummary {
   gasketType: string;
   notes: string | null;
   positions: { position: number; calibrationFactor: number; note: string | null; channel: string | null }[];
+  gasket: JointGasket;
 }
 
 export interface MethodSummary {
@@ -154,6 +156,7 @@ export async function getJoint(user: SessionUser, id: number): Promise<JointDeta
     gasketType: joint.gasketType,
     notes: joint.notes ?? null,
     positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null, channel: p.channel ?? null })),
+    gasket: jointGasketOf(joint),
   };
 }
 
@@ -186,7 +189,29 @@ const jointColumns = (input: JointInput) => ({
   targetLoadN: input.targetLoadN,
   bandPercent: input.bandPercent,
   notes: input.notes,
+  gasketInnerMm: input.gasket.innerMm,
+  gasketOuterMm: input.gasket.outerMm,
+  gasketAreaMm2: input.gasket.areaMm2,
+  gasketMinSeatingMpa: input.gasket.minSeatingMpa,
+  gasketMaxMpa: input.gasket.maxMpa,
+  gasketStressSource: input.gasket.stressSource,
+  flangeFacing: input.gasket.flangeFacing,
+  clampLengthMm: input.gasket.clampLengthMm,
 });
+
+/** A joint row's gasket and flange data (null where not stored). */
+export function jointGasketOf(joint: Joint): JointGasket {
+  return {
+    innerMm: joint.gasketInnerMm ?? null,
+    outerMm: joint.gasketOuterMm ?? null,
+    areaMm2: joint.gasketAreaMm2 ?? null,
+    minSeatingMpa: joint.gasketMinSeatingMpa ?? null,
+    maxMpa: joint.gasketMaxMpa ?? null,
+    stressSource: joint.gasketStressSource ?? null,
+    flangeFacing: joint.flangeFacing ?? null,
+    clampLengthMm: joint.clampLengthMm ?? null,
+  };
+}
 
 /**
  * Creates (id null) or updates a joint and all its positions in one transaction: either both are

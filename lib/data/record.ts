@@ -11,7 +11,7 @@ import type { RunHeader } from '@/lib/data/runs/store-run';
 import { jointForImport } from '@/lib/record/joint-import';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { MethodPass } from '@/models/method';
-import { Cohort, CohortMember, Joint, JointPosition, Lubricant, Method, User, sequelize } from '@/models';
+import { Cohort, CohortMember, HardwareSet, Joint, JointPosition, Lubricant, LubricantLot, Method, User, sequelize } from '@/models';
 import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
 import { formatDecimals } from '@/lib/calc/units';
@@ -74,6 +74,9 @@ export interface RecordOptions {
   cohorts: RecordCohort[];
   operators: RecordOperator[];
   rememberedMappings: RememberedMapping[];
+  /** Hardware sets with their use count so far, and lubricant lots with their lubricant. */
+  hardwareSets: (RecordOption & { useCount: number })[];
+  lubricantLots: (RecordOption & { lubricantId: number })[];
 }
 
 function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
@@ -123,6 +126,10 @@ export async function recordOptions(user: SessionUser): Promise<RecordOptions> {
     allowedOperators(user),
     sequelize.query<{ joint_id: number; header_signature: string; headers: string; mapping: unknown }>('SELECT joint_id, header_signature, headers, mapping FROM column_maps', { type: QueryTypes.SELECT }),
   ]);
+  const [hardwareSets, lots] = await Promise.all([
+    HardwareSet.findAll({ attributes: ['id', 'name', 'useCount'], order: [['name', 'ASC']], raw: true }),
+    LubricantLot.findAll({ attributes: ['id', 'lubricantId', 'lotCode'], order: [['lotCode', 'ASC']], raw: true }),
+  ]);
   const cohortIds = [...new Set(operators.flatMap((o) => o.cohortIds))];
   const cohorts = cohortIds.length ? await Cohort.findAll({ where: { id: cohortIds }, attributes: ['id', 'name', 'startsOn', 'endsOn'], order: [['startsOn', 'DESC']] }) : [];
   return {
@@ -131,6 +138,8 @@ export async function recordOptions(user: SessionUser): Promise<RecordOptions> {
     lubricants,
     cohorts: cohorts.map((c) => ({ id: c.id, name: c.name, startsOn: String(c.startsOn).slice(0, 10), endsOn: String(c.endsOn).slice(0, 10) })),
     operators,
+    hardwareSets: hardwareSets.map((h) => ({ id: h.id, name: h.name, useCount: h.useCount })),
+    lubricantLots: lots.map((l) => ({ id: l.id, name: l.lotCode, lubricantId: l.lubricantId })),
     rememberedMappings: maps.flatMap((row) => {
       const parsed = columnMappingSchema.safeParse(typeof row.mapping === 'string' ? JSON.parse(row.mapping) : row.mapping);
       return parsed.success ? [{ jointId: Number(row.joint_id), headerSignature: row.header_signature, headers: JSON.parse(row.headers) as string[], mapping: parsed.data }] : [];
@@ -178,6 +187,7 @@ export async function resolveRunHeader(user: SessionUser, input: unknown, source
   if (fields.cohortId !== null && !operator.cohortIds.includes(fields.cohortId)) {
     throw fieldError('cohortId', 'That operator is not in this cohort (or it is not yours). Choose one of their cohorts, or none.');
   }
+  await checkHardware(fields, lubricant.id, fieldError);
   const positions = await JointPosition.findAll({ where: { jointId: joint.id } });
   const dto = jointDto(joint, positions);
   return {
@@ -197,8 +207,19 @@ export async function resolveRunHeader(user: SessionUser, input: unknown, source
       status,
       recordedAt: recordedAtDate(fields.recordedAt),
       notes: fields.notes,
+      hardwareSetId: fields.hardwareSetId,
+      lubricantLotId: fields.lubricantLotId,
+      gasketCondition: fields.gasketCondition,
     },
   };
+}
+
+/** The header's hardware set exists, and its lubricant lot is a lot of the run's lubricant. */
+async function checkHardware(fields: RunHeaderFields, lubricantId: number, fieldError: (field: string, message: string) => AppError): Promise<void> {
+  if (fields.hardwareSetId !== null && !(await HardwareSet.findByPk(fields.hardwareSetId))) throw fieldError('hardwareSetId', 'That hardware set does not exist. Choose one from the list.');
+  if (fields.lubricantLotId === null) return;
+  const lot = await LubricantLot.findByPk(fields.lubricantLotId);
+  if (!lot || lot.lubricantId !== lubricantId) throw fieldError('lubricantLotId', 'That lot is not a lot of the chosen lubricant. Choose one from the list, or none.');
 }
 
 /** sha256 of a file's trimmed header names joined by a newline: the key of a remembered mapping. */

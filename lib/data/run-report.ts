@@ -6,6 +6,8 @@ import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
 import type { RunCheckReason } from '../run-check/types';
+import { gasketAreaOf } from '../joints/gasket-input';
+import { jointGasketOf } from './joints';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 
 export interface RunHeaderDto {
@@ -20,7 +22,7 @@ export interface RunHeaderDto {
   targetLoadN: number;
   bandPercent: number;
   studCount: number;
-  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string };
+  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string; gasket: RunGasketDto | null };
   method: { id: number; name: string; toolKind: string; passPercents: number[]; checkPasses: number; passOrders: number[][] };
   lubricant: { id: number; name: string; nominalNutFactor: number };
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
@@ -32,6 +34,21 @@ export interface RunReviewDto {
   reasons: RunCheckReason[];
   /** Who confirmed the run or set it aside, when, and their note; null while it awaits review. */
   decision: { by: string; at: string; note: string | null } | null;
+}
+
+/** The joint's gasket as the report needs it: contact area (mm²) and stress limits (MPa) with their source. */
+export interface RunGasketDto {
+  areaMm2: number;
+  minSeatingMpa: number | null;
+  maxMpa: number | null;
+  source: string | null;
+}
+
+/** The gasket data of a joint row, or null when its contact area is not known. */
+function runGasketOf(joint: Joint): RunGasketDto | null {
+  const g = jointGasketOf(joint);
+  const areaMm2 = gasketAreaOf(g);
+  return areaMm2 === null ? null : { areaMm2, minSeatingMpa: g.minSeatingMpa, maxMpa: g.maxMpa, source: g.stressSource };
 }
 
 export interface RunCommentDto {
@@ -108,7 +125,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       targetLoadN: run.targetLoadN,
       bandPercent: run.bandPercent,
       studCount: run.studCount,
-      joint: { id: run.joint.id, name: run.joint.name, nominalSize: run.joint.nominalSize, pressureClass: run.joint.pressureClass, studGrade: run.joint.studGrade, gasketType: run.joint.gasketType, thread: threadLabel(run.joint) },
+      joint: { id: run.joint.id, name: run.joint.name, nominalSize: run.joint.nominalSize, pressureClass: run.joint.pressureClass, studGrade: run.joint.studGrade, gasketType: run.joint.gasketType, thread: threadLabel(run.joint), gasket: runGasketOf(run.joint) },
       method: {
         id: method.id,
         name: method.name,

@@ -82,6 +82,16 @@ export function tensileStressAreaIn2(diameterIn: number, threadsPerInch: number)
 const B7_MIN_YIELD_PSI = 105_000; // docs/REFERENCE.md §2 ✓ [NANL], [BACO], ≤ 2-1/2 in
 const TARGET_FRACTION_OF_YIELD = 0.5; // docs/REFERENCE.md §4: "typically 50 %" ✓ [RODERY]; rule of thumb ✓ [ENGTIPS]
 
+/**
+ * Gasket contact rings of the demo joints, inches (invented, near a spiral-wound sealing element of the
+ * size), with the training stress limits: at the demo targets the average gasket stress lands just
+ * above the seating stress (about 10,100 psi for flange A, 10,900 psi for flange B, computed).
+ */
+export const DEMO_GASKET_RINGS: Record<string, { innerIn: number; outerIn: number }> = {
+  'nps4-cl150-8': { innerIn: 4.75, outerIn: 5.875 },
+  'nps6-cl300-12': { innerIn: 6.75, outerIn: 8.375 },
+};
+
 export function buildJoint(
   rng: Rng,
   key: string,

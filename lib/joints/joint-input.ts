@@ -7,6 +7,7 @@ import { STANDARD_THREADS, threadGeometry, threadSpecSchema, type ThreadGeometry
 import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
 import { gradeIdOf } from './joint-properties';
+import { parseGasketFields, type JointGasket } from './gasket-input';
 import { parseNumberText } from '@/lib/format/parse-number';
 import { channelKey } from '@/lib/ingest/channel-map';
 
@@ -156,6 +157,7 @@ export interface JointInput {
   targetLoadN: number;
   notes: string | null;
   positions: { position: number; calibrationFactor: number; note: string | null; channel?: string | null }[];
+  gasket: JointGasket;
 }
 
 export type ParseResult<T> = { ok: true; value: T } | { ok: false; errors: FieldErrors; message: string };
@@ -253,6 +255,8 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
   const units: UnitSystem = values.units === 'us' ? 'us' : 'si';
   const target = jointTarget(targetInputFromForm(values, units));
   for (const [key, messages] of Object.entries(target.errors)) errors[key] ??= messages;
+  const gasket = parseGasketFields(values, units);
+  Object.assign(errors, gasket.errors);
   if (!errors.studGrade && !errors.threadDiameter && !errors.threadPitch && !target.target && !Object.keys(target.errors).length) {
     errors.targetLoad = ['The target could not be worked out from these values.'];
   }
@@ -295,6 +299,7 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
       targetLoadN: target.target.loadN,
       notes: s.notes,
       positions,
+      gasket: gasket.value,
     },
   };
 }

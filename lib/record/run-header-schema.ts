@@ -19,6 +19,10 @@ export const runHeaderSchema = z.object({
     .trim()
     .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})?$/, 'Give the date and time the run was recorded, like 2026-03-31T09:30.')
     .refine((v) => !Number.isNaN(Date.parse(/[Z+-]\d{2}:?\d{2}$|Z$/.test(v) ? v : `${v}Z`)), 'That date does not exist.'),
+  /** Optional: the hardware set, lubricant lot and gasket condition of the run (empty = not recorded). */
+  hardwareSetId: z.preprocess((v) => (v === '' || v === undefined ? null : v), id.nullable()),
+  lubricantLotId: z.preprocess((v) => (v === '' || v === undefined ? null : v), id.nullable()),
+  gasketCondition: z.preprocess((v) => (v === '' || v === undefined ? null : v), z.enum(['new', 'reused'], { error: 'Choose new or reused.' }).nullable()),
   notes: z.preprocess((v) => (v === '' || v === undefined ? null : v), z.string().trim().max(2000, 'Keep notes under 2,000 characters.').nullable()),
 });
 

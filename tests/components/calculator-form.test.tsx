@@ -16,6 +16,7 @@ describe('CalculatorForm', () => {
     expect(within(results).getByText(`78.1${SP}kN`)).toBeInTheDocument();
     expect(screen.getByRole('status', { name: 'Warnings' })).toHaveTextContent('No warnings');
     expect(screen.getByRole('complementary', { name: 'Caution' })).toHaveTextContent('stud, flange and gasket limits');
+    expect(screen.getByTestId('tensioner-caution')).toHaveTextContent('line of action');
   });
 
   it('keeps each result value whole on one line: it may break only between two values at the "·"', () => {
@@ -76,5 +77,28 @@ describe('CalculatorForm', () => {
     expect((screen.getByLabelText('Nut factor (K)') as HTMLInputElement).value).toBe('0.12');
     fireEvent.change(screen.getByLabelText('Target, % of yield'), { target: { value: '80' } });
     expect(screen.getByRole('status', { name: 'Warnings' })).toHaveTextContent('above the 40–70 % range this calculator uses as its training default');
+  });
+
+  it('works from a target gasket stress to the stud load and back from the target preload, in SI and US units', () => {
+    render(<CalculatorForm />);
+    const load = screen.getByTestId('gasket-stud-load');
+    const back = screen.getByTestId('gasket-stress-at-preload');
+    // Ring 4.5 in × 5.5 in = 114.3 mm × 139.7 mm: A = π/4 (139.7² − 114.3²) = 5,067 mm² (area of an annulus, by hand).
+    // 69 MPa (docs/REFERENCE.md §7) × 5,067 mm² / 8 studs = 43,703 N = 43.7 kN each (stress = force / area, by hand).
+    expect(load).toHaveTextContent(`43.7${SP}kN each`);
+    // Back: 8 × 78.1 kN (the target preload above) / 5,067 mm² = 123 MPa (by hand).
+    expect(back).toHaveTextContent(`123${SP}MPa`);
+    fireEvent.click(screen.getByLabelText('US customary (in, lbf, ksi, ft-lb)'));
+    fireEvent.change(screen.getByLabelText(/^Target gasket stress/), { target: { value: '10' } });
+    // 10,000 psi × 2.5π in² / 8 = 9,817 lbf each; back: 8 × 17,559 lbf / 7.854 in² = 17,886 psi = 17.9 ksi (by hand).
+    expect(load).toHaveTextContent(`9,817${SP}lbf each`);
+    expect(back).toHaveTextContent(`17.9${SP}ksi`);
+  });
+
+  it('says what is wrong with a gasket outer diameter below the inner', () => {
+    render(<CalculatorForm />);
+    fireEvent.change(screen.getByLabelText(/^Gasket contact outer diameter/), { target: { value: '100' } });
+    expect(screen.getByText('The outer contact diameter must be larger than the inner.')).toBeInTheDocument();
+    expect(screen.getByTestId('gasket-stud-load')).toHaveTextContent('—');
   });
 });

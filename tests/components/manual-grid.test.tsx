@@ -10,7 +10,7 @@ const { manualEntrySchema } = await import('@/lib/record/manual-entry-schema');
 // An invented 4-stud joint and a one-pass cross method.
 const joint = { id: 1, name: 'Test joint', studCount: 4, targetLoadN: 2000, bandPercent: 10, maxStudLoadN: 1e6, maxStudLoadSource: 'test', calibration: [1, 1, 1, 1], stressAreaM2: null, youngsModulusPa: 205e9 };
 const method = { id: 1, name: 'Cross', checkPasses: 0, passes: [{ percentOfTarget: 100, orderByStudCount: { '4': [1, 3, 2, 4] } }] };
-const header = { jointId: '1', methodId: '1', lubricantId: '1', operatorId: '1', cohortId: '', recordedAt: '2026-01-01T08:00', notes: '' };
+const header = { jointId: '1', methodId: '1', lubricantId: '1', operatorId: '1', cohortId: '', recordedAt: '2026-01-01T08:00', notes: '', hardwareSetId: '', lubricantLotId: '', gasketCondition: '' };
 
 // Expected values: the decimal-comma rule of lib/format/parse-number.ts (issue 14, problem 7:
 // "1,500" is fifteen hundred, as the calculator reads it; "1,5" is one and a half).

@@ -23,6 +23,8 @@ const options: RecordOptions = {
     { id: 2, name: 'Tom Trainee', cohortIds: [10, 12] },
   ],
   rememberedMappings: [],
+  hardwareSets: [],
+  lubricantLots: [],
 };
 const user = { id: 1, role: 'instructor', units: 'si' as const };
 

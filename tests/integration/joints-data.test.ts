@@ -4,6 +4,7 @@ import { sequelize } from '@/lib/platform/db';
 import { getJoint, listJointLibrary, saveJoint, saveLubricant, saveMethod } from '@/lib/data/joints';
 import { lbfToN } from '@/lib/calc/units';
 import type { JointInput } from '@/lib/joints/joint-input';
+import { NO_GASKET_DATA } from '@/lib/joints/gasket-input';
 import type { SessionUser } from '@/lib/auth/session';
 
 const TAG = `itest-joints-${Date.now()}`;
@@ -25,6 +26,7 @@ const joint = (overrides: Partial<JointInput> = {}): JointInput => ({
   thread: { system: 'inch', diameterIn: 0.625, threadsPerInch: 11 }, studGrade: 'A193-B7', nutGrade: 'ASTM A194 2H',
   washer: null, gasketType: 'spiral-wound', bandPercent: 10, targetLoadN: lbfToN(11_865), notes: null,
   positions: Array.from({ length: 8 }, (_, i) => ({ position: i + 1, calibrationFactor: 1 + i / 100, note: i === 0 ? 'top' : null })),
+  gasket: NO_GASKET_DATA,
   ...overrides,
 });
 
@@ -38,6 +40,12 @@ describe('lib/data/joints against MariaDB', () => {
     expect(read?.positions[7]?.calibrationFactor).toBeCloseTo(1.07, 12);
     expect(read?.positions[0]?.note).toBe('top');
     expect(read?.runCount).toBe(0);
+  });
+
+  it('stores the gasket and flange data and reads it back', async () => {
+    const gasket = { innerMm: 100, outerMm: 150, areaMm2: null, minSeatingMpa: 69, maxMpa: 207, stressSource: 'maker data sheet', flangeFacing: 'Raised face', clampLengthMm: 76.2 };
+    const { id } = await saveJoint(instructor, null, joint({ name: `${TAG} gasket`, gasket }));
+    expect((await getJoint(instructor, id))?.gasket).toEqual(gasket);
   });
 
   it('changes the stud count of a joint without runs and replaces its positions', async () => {

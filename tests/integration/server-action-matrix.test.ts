@@ -28,6 +28,7 @@ const classroom = await import('@/app/(lab)/classroom/actions');
 const joints = await import('@/app/(lab)/joints/actions');
 const record = await import('@/app/(lab)/record/actions');
 const comments = await import('@/app/(lab)/runs/[id]/actions');
+const hardware = await import('@/app/(lab)/joints/hardware/actions');
 const people = await import('@/app/(lab)/people/actions');
 const lab = await import('@/app/(lab)/actions');
 
@@ -61,6 +62,10 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/record/actions.ts', name: 'finishRecordingAction', allowed: ['instructor', 'researcher', 'trainee'], call: () => record.finishRecordingAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'createStreamTokenAction', allowed: ['instructor'], call: () => record.createStreamTokenAction(idle, form()) },
   { file: 'app/(lab)/record/actions.ts', name: 'revokeStreamTokenAction', allowed: ['instructor'], call: () => record.revokeStreamTokenAction(idle, form()) },
+  { file: 'app/(lab)/joints/hardware/actions.ts', name: 'createHardwareSetAction', allowed: ['instructor', 'admin'], call: () => hardware.createHardwareSetAction(idle, form()) },
+  { file: 'app/(lab)/joints/hardware/actions.ts', name: 'updateConditionAction', allowed: ['instructor', 'admin'], call: () => hardware.updateConditionAction(0, idle, form()) },
+  { file: 'app/(lab)/joints/hardware/actions.ts', name: 'createLubricantLotAction', allowed: ['instructor', 'admin'], call: () => hardware.createLubricantLotAction(idle, form()) },
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addHoldsAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.addHoldsAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
   // Issue 17. Empty reasons and an already assessed run: callers who get past the role check change nothing.
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'confirmAttemptAction', allowed: ['instructor'], call: () => comments.confirmAttemptAction(ids.run, idle, form()) },

@@ -6,6 +6,7 @@ import { storedRunFigures } from '../../record/run-figures';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { RunCheckReason } from '../../run-check/types';
 import { checkBeforeStoring } from './check-before-storing';
+import { claimHardwareUse } from './hardware-use';
 
 export interface RunHeader {
   jointId: number;
@@ -19,6 +20,9 @@ export interface RunHeader {
   status: RunStatus;
   recordedAt: Date;
   notes?: string | null;
+  hardwareSetId?: number | null;
+  lubricantLotId?: number | null;
+  gasketCondition?: 'new' | 'reused' | null;
   setAsideReason?: string | null;
   setAsideById?: number | null;
   /** Who put the run in (the signed-in person); the way in is `source`. */
@@ -57,9 +61,11 @@ export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, 
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
   const checked = header.status === 'complete' ? await checkBeforeStoring(header, run, transaction) : null;
+  const hardwareUseNumber = header.hardwareSetId ? await claimHardwareUse(header.hardwareSetId, transaction) : null;
   const { id: runId } = await Run.create(
     {
       ...header,
+      hardwareUseNumber,
       status: checked?.status ?? header.status,
       reviewReasons: checked?.reasonsJson ?? null,
       simulationKey: header.simulationKey ?? null,

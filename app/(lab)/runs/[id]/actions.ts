@@ -7,6 +7,8 @@ import { parseFields, withActionRole } from '@/lib/http/server-action';
 import { REVIEW_ROLES, reviewRun, runReviewSchema } from '@/lib/data/runs/run-review';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
 import { changeRunStatus, confirmAttempt } from '@/lib/data/qualification/attempts';
+import { HOLD_ROLES, saveRunHolds } from '@/lib/data/run-holds';
+import { AppError } from '@/lib/http/errors';
 
 /** Adds an instructor's comment to a run (bound to the run id on the page). */
 export const addCommentAction = withActionRole(['instructor', 'admin'], async (user, form, runId: number) => {
@@ -46,4 +48,19 @@ export const reviewRunAction = withActionRole(REVIEW_ROLES, async (user, form, r
   revalidatePath(`/runs/${runId}`);
   revalidatePath('/runs');
   return okState(status === 'complete' ? 'Run confirmed: it now counts in comparisons, assessments and exports.' : 'Run set aside: it is kept but left out of statistics.');
+});
+
+const MAX_HOLD_FILE_BYTES = 256 * 1024;
+
+/** Adds hold readings to a run: an uploaded CSV, or the same text typed in (bound to the run id on the page). */
+export const addHoldsAction = withActionRole(HOLD_ROLES, async (user, form, runId: number) => {
+  const file = form.get('holdFile');
+  const typed = String(form.get('holdText') ?? '');
+  const units = z.enum(['si', 'us']).catch('si').parse(form.get('units'));
+  if (file instanceof File && file.size > MAX_HOLD_FILE_BYTES) throw new AppError('too_large', 'A hold readings file is at most 256 KB.', { field: 'holds' });
+  const text = file instanceof File && file.size > 0 ? await file.text() : typed;
+  if (text.trim() === '') throw new AppError('invalid_input', 'Choose a hold readings file or type the readings.', { field: 'holds' });
+  const { points } = await saveRunHolds(user, runId, text, units);
+  revalidatePath(`/runs/${runId}`);
+  return okState(`${points} hold time${points === 1 ? '' : 's'} saved.`);
 });

@@ -10,7 +10,9 @@ import { runAttempt } from '@/lib/data/qualification/attempts';
 import { AttemptPanel } from '@/components/run-report/attempt-panel';
 import { AuditHistory } from '@/components/audit/audit-history';
 import { REVIEW_ROLES } from '@/lib/data/runs/run-review';
-import { addCommentAction, confirmAttemptAction, restoreRunAction, reviewRunAction, setAsideAction } from './actions';
+import { addCommentAction, addHoldsAction, confirmAttemptAction, restoreRunAction, reviewRunAction, setAsideAction } from './actions';
+import { HOLD_ROLES, loadRunHolds } from '@/lib/data/run-holds';
+import { runRelaxation } from '@/lib/analysis/relaxation';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -26,6 +28,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
   const attempt = await runAttempt(user, parsed.data);
   const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
   const id = parsed.data;
+  const relaxation = runRelaxation(analysis.passes, await loadRunHolds(parsed.data, loaded.run.studCount));
   return (
     <>
     <RunReport
@@ -37,6 +40,8 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
       attempt={{ kind: attempt.kind, sourceLine: attempt.sourceLine }}
       commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
       reviewAction={REVIEW_ROLES.includes(user.role) ? reviewRunAction.bind(null, parsed.data) : null}
+      relaxation={relaxation}
+      holdAction={HOLD_ROLES.includes(user.role) ? addHoldsAction.bind(null, parsed.data) : null}
     />
     <div className="mt-6 space-y-6">
       <AttemptPanel actions={{
