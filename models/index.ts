@@ -1,4 +1,7 @@
 import { sequelize } from '../lib/platform/db';
+import { CalibrationLimit } from './calibration-limit';
+import { CalibrationResult } from './calibration-result';
+import { CalibrationSession } from './calibration-session';
 import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
 import { CohortCriteria } from './cohort-criteria';
@@ -24,7 +27,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, CalibrationLimit, CalibrationSession, CalibrationResult] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -49,6 +52,7 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   RunVerdict.belongsTo(User, { as: 'signedBy', foreignKey: 'signedById' });
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
+  CalibrationSession.hasMany(CalibrationResult, { as: 'results', foreignKey: 'sessionId' });
 }
 
-export { sequelize, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CalibrationLimit, CalibrationResult, CalibrationSession, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

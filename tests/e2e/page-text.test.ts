@@ -61,7 +61,7 @@ afterAll(async () => {
 /** Every page a role can open (app/(lab)), with the ids of the demo data it needs. */
 function pagesFor(role: Role): string[] {
   const common = ['/', '/runs', '/calculator'];
-  const library = ['/joints', `/joints/${ids.joint}`, '/joints/new', `/joints/lubricants/${ids.lubricant}`, '/joints/lubricants/new', `/joints/methods/${ids.method}`, '/joints/methods/new'];
+  const library = ['/joints', `/joints/${ids.joint}`, `/joints/${ids.joint}/calibration`, '/joints/new', `/joints/lubricants/${ids.lubricant}`, '/joints/lubricants/new', `/joints/methods/${ids.method}`, '/joints/methods/new'];
   const cohort = ['/cohorts', `/cohorts/${ids.instructorCohort}`, `/cohorts/${ids.instructorCohort}/sheet`, `/cohorts/${ids.instructorCohort}/trainees/${ids.cohortTrainee}`];
   const compare = ['/compare?by=method', '/compare?by=lubricant', '/compare?by=cohort'];
   switch (role) {

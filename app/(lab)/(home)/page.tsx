@@ -1,9 +1,11 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { CalibrationDueDates } from '@/components/calibration/due-dates';
 import { LatestRuns } from '@/components/home/latest-runs';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { StatCard } from '@/components/ui/stat-card';
 import { formatPercent } from '@/lib/calc/units';
+import { calibrationDueDates } from '@/lib/data/calibration';
 import { homeSummary } from '@/lib/data/home';
 import { formatDate, formatDateTime } from '@/lib/format/format-date';
 import { requirePageUser } from '@/lib/auth/session';
@@ -17,6 +19,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
   const user = await requirePageUser();
   const { notice } = await searchParams;
   const summary = await homeSummary(user);
+  const calibrationDue = user.role === 'admin' ? await calibrationDueDates(user) : [];
   return (
     <div className="space-y-6">
       {notice === 'not-allowed' ? (
@@ -105,6 +108,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             </table>
             <p className="mt-2 text-xs text-muted">{summary.totalRuns} runs are stored in the lab.</p>
           </section>
+          <CalibrationDueDates joints={calibrationDue} today={new Date().toISOString().slice(0, 10)} />
         </>
       ) : null}
     </div>
