@@ -1,4 +1,5 @@
 import { sequelize } from '../lib/platform/db';
+import { CalibrationCorrection } from './calibration-correction';
 import { CalibrationLimit } from './calibration-limit';
 import { CalibrationResult } from './calibration-result';
 import { CalibrationSession } from './calibration-session';
@@ -10,12 +11,14 @@ import { ColumnMap } from './column-map';
 import { ComparisonCache } from './comparison-cache';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
+import { JointVersion } from './joint-version';
 import { Lubricant } from './lubricant';
 import { Method } from './method';
 import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { RunComment } from './run-comment';
+import { RunFigureHistory } from './run-figure-history';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -27,7 +30,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, CalibrationLimit, CalibrationSession, CalibrationResult] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, CalibrationLimit, CalibrationSession, CalibrationResult, JointVersion, CalibrationCorrection, RunFigureHistory] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -55,4 +58,4 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   CalibrationSession.hasMany(CalibrationResult, { as: 'results', foreignKey: 'sessionId' });
 }
 
-export { sequelize, CalibrationLimit, CalibrationResult, CalibrationSession, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, CalibrationCorrection, JointVersion, RunFigureHistory, CalibrationLimit, CalibrationResult, CalibrationSession, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

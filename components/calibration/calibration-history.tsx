@@ -6,11 +6,13 @@ import { formatDecimals } from '@/lib/calc/units';
 import type { CalibrationSessionView } from '@/lib/data/calibration';
 import { PlotFigure } from '../charts/plot-figure';
 import { SelectField } from '../joints/form-controls';
+import { CorrectionForm } from './correction-form';
+import type { FormState } from '@/lib/http/form-state';
 
 const pct = (v: number) => `${formatDecimals(v, 2)} %`;
 
 /** Sessions of one joint, newest first, with a chart of one position's factor over the sessions. */
-export function CalibrationHistory({ sessions, studCount }: { sessions: CalibrationSessionView[]; studCount: number }) {
+export function CalibrationHistory({ sessions, studCount, correctActions }: { sessions: CalibrationSessionView[]; studCount: number; correctActions: Record<number, (state: FormState, form: FormData) => Promise<FormState>> }) {
   const [position, setPosition] = useState('1');
   const chart = useMemo(() => {
     const p = Number(position);
@@ -68,6 +70,7 @@ export function CalibrationHistory({ sessions, studCount }: { sessions: Calibrat
                 ))}
               </tbody>
             </table>
+            {correctActions[s.id] ? <CorrectionForm tableText={s.tableText} version={s.version} action={correctActions[s.id]!} /> : null}
           </li>
         ))}
       </ol>

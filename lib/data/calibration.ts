@@ -8,6 +8,7 @@ import { addMonths, type CalibrationSessionInput } from '@/lib/calibration/sessi
 import { CalibrationLimit, CalibrationResult, CalibrationSession, Joint, JointPosition, sequelize } from '@/models';
 import { assertRole, type SessionUser } from '../auth/session';
 import { JOINT_LIBRARY_ROLES } from './joints';
+import { recordJointVersion } from './joint-versions';
 
 /**
  * Gauge calibration against the reference load cell (instructors and admins, like the joint
@@ -56,7 +57,7 @@ export async function saveCalibrationLimits(user: SessionUser, limits: Calibrati
 }
 
 /** The latest accepted interval of each position before `performedOn` (excluding `exceptSessionId`). */
-async function previousIntervals(jointId: number, performedOn: string, exceptSessionId: number | null, transaction: Transaction): Promise<Map<number, { lower: number; upper: number }>> {
+export async function previousIntervals(jointId: number, performedOn: string, exceptSessionId: number | null, transaction: Transaction): Promise<Map<number, { lower: number; upper: number }>> {
   const previous = await CalibrationSession.findOne({
     where: { jointId, accepted: true, performedOn: { [Op.lte]: performedOn }, ...(exceptSessionId === null ? {} : { id: { [Op.ne]: exceptSessionId } }) },
     order: [['performedOn', 'DESC'], ['id', 'DESC']],
@@ -95,6 +96,7 @@ export async function writeSessionResults(session: CalibrationSession, results: 
   );
   if (!accepted) return;
   for (const r of results) await JointPosition.update({ calibrationFactor: r.factor }, { where: { jointId: session.jointId, position: r.position }, transaction });
+  await recordJointVersion(session.jointId, transaction);
 }
 
 /**

@@ -1,6 +1,7 @@
 import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
+import { recordJointVersion } from './joint-versions';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
 import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-properties';
@@ -227,6 +228,7 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
       input.positions.map((p) => ({ jointId, position: p.position, calibrationFactor: p.calibrationFactor, note: p.note })),
       { transaction },
     );
+    await recordJointVersion(jointId, transaction);
     return { id: jointId };
   });
 }

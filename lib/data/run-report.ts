@@ -6,6 +6,7 @@ import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { MethodPass } from '@/models/method';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
+import { jointAsRecorded } from './joint-versions';
 
 export interface RunHeaderDto {
   id: number;
@@ -17,7 +18,8 @@ export interface RunHeaderDto {
   targetLoadN: number;
   bandPercent: number;
   studCount: number;
-  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string };
+  /** The joint as it stood when the run was recorded (its version), not as it is now. */
+  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string; versionNumber: number | null };
   method: { id: number; name: string; toolKind: string; passPercents: number[]; checkPasses: number; passOrders: number[][] };
   lubricant: { id: number; name: string; nominalNutFactor: number };
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
@@ -40,7 +42,7 @@ export interface LoadedRun {
 
 type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; operator: User; cohort: Cohort | null };
 
-const threadLabel = (j: Joint) =>
+const threadLabel = (j: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch'>) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
 
 /** The method's % of target per pass, check passes (circular, 100 %) appended. */
@@ -81,6 +83,8 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
   }
   const comments = !seesFreeText(user) ? [] : await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
   const method = run.method;
+  const recorded = await jointAsRecorded(run.jointVersionId ?? null);
+  const asRecorded = recorded?.snapshot ?? run.joint;
   return {
     header: {
       id: run.id,
@@ -92,7 +96,16 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       targetLoadN: run.targetLoadN,
       bandPercent: run.bandPercent,
       studCount: run.studCount,
-      joint: { id: run.joint.id, name: run.joint.name, nominalSize: run.joint.nominalSize, pressureClass: run.joint.pressureClass, studGrade: run.joint.studGrade, gasketType: run.joint.gasketType, thread: threadLabel(run.joint) },
+      joint: {
+        id: run.joint.id,
+        name: asRecorded.name,
+        nominalSize: asRecorded.nominalSize,
+        pressureClass: asRecorded.pressureClass,
+        studGrade: asRecorded.studGrade,
+        gasketType: asRecorded.gasketType,
+        thread: threadLabel(asRecorded),
+        versionNumber: recorded?.versionNumber ?? null,
+      },
       method: {
         id: method.id,
         name: method.name,

@@ -2,8 +2,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { sequelize } from '@/lib/platform/db';
 import { saveJoint, getJoint } from '@/lib/data/joints';
 import { calibrationHistory, recordCalibration } from '@/lib/data/calibration';
-import { lbfToN } from '@/lib/calc/units';
-import type { JointInput } from '@/lib/joints/joint-input';
+import { calibrationSession as session, fourStudJoint as jointInput, tableFor } from './calibration-fixture';
 import type { SessionUser } from '@/lib/auth/session';
 
 const TAG = `itest-calibration-${Date.now()}`;
@@ -14,29 +13,8 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-const jointInput = (name: string): JointInput => ({
-  name, nominalSize: 'NPS 4', pressureClass: 'Class 150', studCount: 4,
-  thread: { system: 'inch', diameterIn: 0.625, threadsPerInch: 11 }, studGrade: 'A193-B7', nutGrade: null,
-  washer: null, gasketType: 'spiral-wound', bandPercent: 10, targetLoadN: lbfToN(11_865), notes: null,
-  positions: Array.from({ length: 4 }, (_, i) => ({ position: i + 1, calibrationFactor: 1, note: null })),
-});
 
-/** A table whose gauge p reads load/k[p] with a ±0.02 kN wobble (so every interval has a width). */
-function tableFor(k: number[]): string {
-  const levels = [20, 40, 60, 80];
-  const wobble = (i: number) => (i % 2 === 0 ? 0.02 : -0.02);
-  const row = (dir: string, load: number, i: number) => [dir, load, ...k.map((f) => load === 0 ? 0 : load / f + wobble(i))].join(',');
-  return [
-    ['direction', 'load_cell_kN', ...k.map((_, i) => `p${i + 1}`)].join(','),
-    ...levels.map((l, i) => row('up', l, i)),
-    ...[...levels].reverse().map((l, i) => row('down', l, i + 1)),
-    row('down', 0, 0),
-  ].join('\n');
-}
 
-const session = (performedOn: string, k: number[]) => ({
-  performedOn, dueOn: '', loadCellCertificate: 'LC-123', loadCellCertifiedOn: '2026-01-10', loadCellDueOn: '2027-01-10', table: tableFor(k),
-});
 
 describe('gauge calibration against MariaDB', () => {
   it('an accepted session writes the factors to the joint; a later one flags drift on the gauge whose factor left its interval', async () => {

@@ -3,6 +3,7 @@ import { AppError } from '../../http/errors';
 import type { NormalisedRun } from '../../record/run-types';
 import { Run, sequelize } from '../../../models';
 import { storedRunFigures } from '../../record/run-figures';
+import { runPins } from '../joint-versions';
 import type { RunSource, RunStatus } from '@/models/run';
 
 export interface RunHeader {
@@ -41,8 +42,9 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
+  const pins = await runPins(header.jointId, transaction);
   const { id: runId } = await Run.create(
-    { ...header, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
+    { ...header, ...pins, setAsideReason: header.setAsideReason ?? null, setAsideById: header.setAsideById ?? null, notes: header.notes ?? null, ...storedRunFigures(run) },
     { transaction },
   );
   await appendSteps(runId, run, 0, transaction);

@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
+import { FigureHistory } from '@/components/run-report/figure-history';
 import { RunReport } from '@/components/run-report/run-report';
+import { runFigureHistory } from '@/lib/data/calibration-correction';
 import { analyseRun } from '@/lib/analysis/analyse-run';
 import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
@@ -20,14 +22,19 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
     throw error;
   });
   const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
+  // Only after loadRun: the run is the viewer's to see.
+  const history = await runFigureHistory(parsed.data);
   return (
-    <RunReport
-      header={loaded.header}
-      analysis={analysis}
-      comments={loaded.comments}
-      units={user.units}
-      role={user.role}
-      commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
-    />
+    <div className="space-y-6">
+      <RunReport
+        header={loaded.header}
+        analysis={analysis}
+        comments={loaded.comments}
+        units={user.units}
+        role={user.role}
+        commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
+      />
+      <FigureHistory entries={history} />
+    </div>
   );
 }

@@ -8,7 +8,7 @@ import { LimitsForm } from '@/components/calibration/limits-form';
 import { calibrationHistory, getCalibrationLimits } from '@/lib/data/calibration';
 import { getJoint, JOINT_LIBRARY_ROLES } from '@/lib/data/joints';
 import { requirePageUser } from '@/lib/auth/session';
-import { recordCalibrationAction, saveLimitsAction } from './actions';
+import { correctCalibrationAction, recordCalibrationAction, saveLimitsAction } from './actions';
 
 export const metadata: Metadata = { title: 'Gauge calibration' };
 export const dynamic = 'force-dynamic';
@@ -32,7 +32,7 @@ export default async function CalibrationPage({ params }: { params: Promise<{ id
       <CautionBlock variant="calibration" />
       <section aria-labelledby="history-heading" className="space-y-3">
         <h2 id="history-heading" className="text-lg font-semibold">History</h2>
-        {sessions.length === 0 ? <p className="text-sm text-muted">No calibration is recorded for this joint yet.</p> : <CalibrationHistory sessions={sessions} studCount={joint.studCount} />}
+        {sessions.length === 0 ? <p className="text-sm text-muted">No calibration is recorded for this joint yet.</p> : <CalibrationHistory sessions={sessions} studCount={joint.studCount} correctActions={Object.fromEntries(sessions.map((s) => [s.id, correctCalibrationAction.bind(null, id, s.id)]))} />}
       </section>
       <section aria-labelledby="new-heading" className="space-y-3">
         <h2 id="new-heading" className="text-lg font-semibold">New calibration</h2>
