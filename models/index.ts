@@ -9,6 +9,7 @@ import { CohortCriteria } from './cohort-criteria';
 import { CohortMember } from './cohort-member';
 import { ColumnMap } from './column-map';
 import { ComparisonCache } from './comparison-cache';
+import { Equipment } from './equipment';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
 import { JointVersion } from './joint-version';
@@ -19,6 +20,7 @@ import { Reading } from './reading';
 import { Run } from './run';
 import { RunComment } from './run-comment';
 import { RunFigureHistory } from './run-figure-history';
+import { RunTool } from './run-tool';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -30,7 +32,7 @@ import { User } from './user';
 import { UserSession } from './user-session';
 
 /** Every model: one per table the migrations create (`tests/integration/models-match-schema.test.ts` checks it). */
-export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, CalibrationLimit, CalibrationSession, CalibrationResult, JointVersion, CalibrationCorrection, RunFigureHistory] as const;
+export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method, Lubricant, Run, TighteningStep, Reading, Upload, UploadChunk, RunComment, SignInAttempt, OneTimeToken, CohortCriteria, RunVerdict, CapturedMail, UserSession, ComparisonCache, ColumnMap, StreamToken, StreamSample, CalibrationLimit, CalibrationSession, CalibrationResult, JointVersion, CalibrationCorrection, RunFigureHistory, Equipment, RunTool] as const;
 
 // Module code runs once per module instance: init and wire the models here.
 {
@@ -58,4 +60,4 @@ export const MODELS = [User, Cohort, CohortMember, Joint, JointPosition, Method,
   CalibrationSession.hasMany(CalibrationResult, { as: 'results', foreignKey: 'sessionId' });
 }
 
-export { sequelize, CalibrationCorrection, JointVersion, RunFigureHistory, CalibrationLimit, CalibrationResult, CalibrationSession, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };
+export { sequelize, Equipment, RunTool, CalibrationCorrection, JointVersion, RunFigureHistory, CalibrationLimit, CalibrationResult, CalibrationSession, CapturedMail, Cohort, CohortCriteria, ColumnMap, ComparisonCache, StreamSample, StreamToken, OneTimeToken, RunVerdict, CohortMember, Joint, JointPosition, Lubricant, Method, Reading, Run, RunComment, SignInAttempt, TighteningStep, Upload, UploadChunk, User, UserSession };

@@ -42,6 +42,7 @@ beforeAll(async () => {
     '/cohorts', `/cohorts/${cohort}`, `/cohorts/${cohort}/sheet`, `/cohorts/${cohort}/trainees/${member}`,
     '/joints', '/joints/new', `/joints/${await firstId('SELECT id FROM joints ORDER BY id LIMIT 1')}`,
     `/joints/${await firstId('SELECT id FROM joints ORDER BY id LIMIT 1')}/calibration`,
+    '/equipment',
     '/joints/lubricants/new', `/joints/lubricants/${await firstId('SELECT id FROM lubricants ORDER BY id LIMIT 1')}`,
     '/joints/methods/new', `/joints/methods/${await firstId('SELECT id FROM methods ORDER BY id LIMIT 1')}`,
     '/no-such-page',

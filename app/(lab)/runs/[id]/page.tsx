@@ -2,13 +2,15 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { FigureHistory } from '@/components/run-report/figure-history';
 import { RunReport } from '@/components/run-report/run-report';
+import { RunTools } from '@/components/run-report/run-tools';
+import { listEquipment, runTools } from '@/lib/data/equipment';
 import { runFigureHistory } from '@/lib/data/calibration-correction';
 import { analyseRun } from '@/lib/analysis/analyse-run';
 import { isAppError } from '@/lib/http/errors';
 import { runIdSchema } from '@/lib/data/run-params';
 import { loadRun } from '@/lib/data/run-report';
 import { requirePageUser } from '@/lib/auth/session';
-import { addCommentAction } from './actions';
+import { addCommentAction, setRunToolsAction } from './actions';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -23,7 +25,8 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
   });
   const analysis = analyseRun(parsed.data, loaded.run, { bandPercent: loaded.header.bandPercent, passPercents: loaded.header.method.passPercents });
   // Only after loadRun: the run is the viewer's to see.
-  const history = await runFigureHistory(parsed.data);
+  const editsTools = user.role === 'instructor' || user.role === 'admin';
+  const [history, tools, register] = await Promise.all([runFigureHistory(parsed.data), runTools(user, parsed.data), editsTools ? listEquipment(user) : null]);
   return (
     <div className="space-y-6">
       <RunReport
@@ -34,6 +37,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
         role={user.role}
         commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
       />
+      <RunTools tools={tools} register={register} action={editsTools ? setRunToolsAction.bind(null, parsed.data) : null} />
       <FigureHistory entries={history} />
     </div>
   );
