@@ -50,7 +50,8 @@ export const up: Migration = async ({ context: qi }) => {
       positions: positions.map((p) => ({ position: Number(p.position), calibrationFactor: Number(p.calibration_factor), note: p.note })),
     };
     await qi.sequelize.query('INSERT INTO joint_versions (joint_id, version_number, snapshot, created_at) VALUES (?, 1, ?, NOW())', { replacements: [joint.id, JSON.stringify(snapshot)] });
-    await qi.sequelize.query('UPDATE runs SET joint_version_id = LAST_INSERT_ID() WHERE joint_id = ?', { replacements: [joint.id] });
+    // Not LAST_INSERT_ID(): the next query may run on another pooled connection.
+    await qi.sequelize.query('UPDATE runs SET joint_version_id = (SELECT id FROM joint_versions WHERE joint_id = ? AND version_number = 1) WHERE joint_id = ?', { replacements: [joint.id, joint.id] });
   }
 };
 
