@@ -6,12 +6,14 @@
  * A server-safe component (no hooks), so it renders in server and client trees alike.
  */
 
-export type CautionVariant = 'calculator' | 'joint' | 'classroom';
+export type CautionVariant = 'calculator' | 'joint' | 'classroom' | 'calibration';
 
 const VARIANT_LINE: Record<CautionVariant, string> = {
   calculator:
     'Check every result against the stud, flange and gasket limits in the approved procedure before using it; a lower nut factor than assumed over-loads the studs.',
   joint: 'A training joint is not a plant joint: its settings teach the method and are not values for equipment in service.',
+  calibration:
+    "Calibrate instruments by their owner's procedures and against a reference in date; these figures check a training rig's gauges and are not a calibration certificate.",
   classroom:
     'The rig studs are loaded: keep hands clear of the reaction arm and the flange gap, and stay out of line with the studs while a tool is working.',
 };

@@ -1,4 +1,11 @@
 import { sequelize } from '../lib/platform/db';
+import { RunTool } from './run-tool';
+import { RunFigureHistory } from './run-figure-history';
+import { Equipment } from './equipment';
+import { CalibrationSession } from './calibration-session';
+import { CalibrationResult } from './calibration-result';
+import { CalibrationLimit } from './calibration-limit';
+import { CalibrationCorrection } from './calibration-correction';
 import { AuditEntry } from './audit-entry';
 import { CapturedMail } from './captured-mail';
 import { Cohort } from './cohort';
@@ -9,6 +16,7 @@ import { ComparisonCache } from './comparison-cache';
 import { HardwareSet } from './hardware-set';
 import { Joint } from './joint';
 import { JointPosition } from './joint-position';
+import { JointVersion } from './joint-version';
 import { Lubricant } from './lubricant';
 import { LubricantLot } from './lubricant-lot';
 import { Method } from './method';
@@ -57,6 +65,14 @@ export const MODELS = [
   AuditEntry,
   SavedComparison,
   UserPreference,
+  CalibrationLimit,
+  CalibrationSession,
+  CalibrationResult,
+  JointVersion,
+  CalibrationCorrection,
+  RunFigureHistory,
+  Equipment,
+  RunTool,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -88,6 +104,7 @@ export const MODELS = [
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
   SavedComparison.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  CalibrationSession.hasMany(CalibrationResult, { as: 'results', foreignKey: 'sessionId' });
 }
 
 export {
@@ -121,4 +138,12 @@ export {
   User,
   UserSession,
   UserPreference,
+  CalibrationLimit,
+  CalibrationSession,
+  CalibrationResult,
+  JointVersion,
+  CalibrationCorrection,
+  RunFigureHistory,
+  Equipment,
+  RunTool,
 };

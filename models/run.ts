@@ -51,6 +51,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare driftJson: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  /** The joint as it stood when the run was recorded. */
+  declare jointVersionId: CreationOptional<number | null>;
+  /** The joint's calibration in force when the run was recorded (null: none recorded). */
+  declare calibrationSessionId: CreationOptional<number | null>;
 
   static initModel(sequelize: Sequelize) {
     Run.init(
@@ -93,6 +97,8 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         driftJson: { type: DataTypes.TEXT, allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
+        jointVersionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        calibrationSessionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       },
       { sequelize, tableName: 'runs', underscored: true },
     );

@@ -89,7 +89,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
         ) : null}
         {header.review ? <ReviewPanel review={header.review} status={header.status} action={reviewAction} /> : null}
         <dl className="grid gap-x-6 gap-y-2 rounded-card border border-rule bg-panel p-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
-          <Item term="Joint" value={`${header.joint.name}`} detail={`${header.studCount} studs · ${header.joint.thread} · ${header.joint.studGrade}`} />
+          <Item term="Joint" value={`${header.joint.name}`} detail={`${header.studCount} studs · ${header.joint.thread} · ${header.joint.studGrade} · ${header.joint.gasketType}${header.joint.versionNumber === null ? '' : ` · as recorded (version ${header.joint.versionNumber})`}`} />
           <Item term="Method" value={TOOL_LABELS[header.method.toolKind] ?? header.method.toolKind} detail={`Passes at ${header.method.passPercents.map((p) => `${p} %`).join(', ')}`} />
           <Item term="Lubricant" value={header.lubricant.name} detail={`Nominal nut factor K = ${formatNumber(header.lubricant.nominalNutFactor, 2)}`} />
           <Item term="Operator" value={header.operator.label} detail={header.cohort ? header.cohort.name : 'No cohort'} />

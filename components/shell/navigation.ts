@@ -18,6 +18,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/joints', label: 'Joints', roles: ['instructor', 'admin'] },
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/people', label: 'People', roles: ['admin'] },
+  { href: '/equipment', label: 'Equipment', roles: ['admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

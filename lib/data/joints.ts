@@ -1,6 +1,7 @@
 import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
+import { recordJointVersion } from './joint-versions';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
 import type { JointGasket } from '@/lib/joints/gasket-input';
@@ -252,6 +253,7 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
       input.positions.map((p) => ({ jointId, position: p.position, calibrationFactor: p.calibrationFactor, note: p.note, channel: p.channel ?? null })),
       { transaction },
     );
+    await recordJointVersion(jointId, transaction);
     return { id: jointId };
   });
 }

@@ -79,7 +79,8 @@ export interface RecordOptions {
   lubricantLots: (RecordOption & { lubricantId: number })[];
 }
 
-function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
+/** A joint as Record and the importer see it (also used to recompute a run from its kept file). */
+export function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint {
   const limit = maxBelievableStudLoad(joint);
   const calibration = Array.from({ length: joint.studCount }, (_, i) => positions.find((p) => p.position === i + 1)?.calibrationFactor ?? 1);
   const channelMap = positions.flatMap((p) => (p.channel && p.position <= joint.studCount ? [{ channel: p.channel, position: p.position }] : []));

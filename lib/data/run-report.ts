@@ -9,6 +9,7 @@ import type { RunCheckReason } from '../run-check/types';
 import { gasketAreaOf } from '../joints/gasket-input';
 import { jointGasketOf } from './joints';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
+import { jointAsRecorded } from './joint-versions';
 
 export interface RunHeaderDto {
   id: number;
@@ -22,7 +23,8 @@ export interface RunHeaderDto {
   targetLoadN: number;
   bandPercent: number;
   studCount: number;
-  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string; gasket: RunGasketDto | null };
+  /** The joint as it stood when the run was recorded (its version), not as it is now. */
+  joint: { id: number; name: string; nominalSize: string; pressureClass: string; studGrade: string; gasketType: string; thread: string; versionNumber: number | null; gasket: RunGasketDto | null };
   method: { id: number; name: string; toolKind: string; passPercents: number[]; checkPasses: number; passOrders: number[][] };
   lubricant: { id: number; name: string; nominalNutFactor: number };
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
@@ -66,7 +68,7 @@ export interface LoadedRun {
 
 type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; operator: User; cohort: Cohort | null };
 
-const threadLabel = (j: Joint) =>
+const threadLabel = (j: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch'>) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
 
 /** The method's % of target per pass, check passes (circular, 100 %) appended. */
@@ -108,6 +110,8 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
   const comments = !seesFreeText(user) ? [] : await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
   const method = run.method;
   const reviewer = run.reviewedById ? await User.findByPk(run.reviewedById, { attributes: ['id', 'name'] }) : null;
+  const recorded = await jointAsRecorded(run.jointVersionId ?? null);
+  const asRecorded = recorded?.snapshot ?? run.joint;
   return {
     header: {
       id: run.id,
@@ -125,7 +129,18 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       targetLoadN: run.targetLoadN,
       bandPercent: run.bandPercent,
       studCount: run.studCount,
-      joint: { id: run.joint.id, name: run.joint.name, nominalSize: run.joint.nominalSize, pressureClass: run.joint.pressureClass, studGrade: run.joint.studGrade, gasketType: run.joint.gasketType, thread: threadLabel(run.joint), gasket: runGasketOf(run.joint) },
+      joint: {
+        id: run.joint.id,
+        name: asRecorded.name,
+        nominalSize: asRecorded.nominalSize,
+        pressureClass: asRecorded.pressureClass,
+        studGrade: asRecorded.studGrade,
+        gasketType: asRecorded.gasketType,
+        thread: threadLabel(asRecorded),
+        versionNumber: recorded?.versionNumber ?? null,
+        // The gasket data are the joint's current ones (joint versions do not snapshot them yet).
+        gasket: runGasketOf(run.joint),
+      },
       method: {
         id: method.id,
         name: method.name,

@@ -62,6 +62,11 @@ export { multipleLinearRegression, type LinearRegressionResult } from './multipl
 export { regressionThroughOrigin } from './regression-through-origin';
 export { nutFactor, type NutFactorResult } from './nut-factor';
 
+// Gauge calibration
+export { calibrationFactor, type CalibrationFactorResult } from './calibration-factor';
+export { linearityError } from './linearity-error';
+export { hysteresisError, type HysteresisLevel } from './hysteresis-error';
+
 // Distribution functions
 export { fUpperTail } from './f-upper-tail';
 export { studentTUpperTail } from './student-t-upper-tail';

@@ -65,12 +65,12 @@ afterAll(async () => {
 /** Every page a role can open (app/(lab)), with the ids of the demo data it needs. */
 function pagesFor(role: Role): string[] {
   const common = ['/', '/runs', '/calculator'];
-  const library = ['/joints', `/joints/${ids.joint}`, '/joints/new', `/joints/lubricants/${ids.lubricant}`, '/joints/lubricants/new', `/joints/methods/${ids.method}`, '/joints/methods/new', '/joints/hardware'];
+  const library = ['/joints', `/joints/${ids.joint}`, `/joints/${ids.joint}/calibration`, '/joints/new', `/joints/lubricants/${ids.lubricant}`, '/joints/lubricants/new', `/joints/methods/${ids.method}`, '/joints/methods/new', '/joints/hardware'];
   const cohort = ['/cohorts', `/cohorts/${ids.instructorCohort}`, `/cohorts/${ids.instructorCohort}/sheet`, `/cohorts/${ids.instructorCohort}/trainees/${ids.cohortTrainee}`];
   const compare = ['/compare?by=method', '/compare?by=lubricant', '/compare?by=cohort'];
   switch (role) {
     case 'admin':
-      return [...common, `/runs/${ids.anyRun}`, ...cohort, ...library, '/people'];
+      return [...common, `/runs/${ids.anyRun}`, ...cohort, ...library, '/people', '/equipment'];
     case 'instructor':
       return [...common, `/runs/${ids.instructorRun}`, '/record', ...compare, '/classroom', ...cohort, ...library];
     case 'researcher':

@@ -31,6 +31,8 @@ const comments = await import('@/app/(lab)/runs/[id]/actions');
 const hardware = await import('@/app/(lab)/joints/hardware/actions');
 const people = await import('@/app/(lab)/people/actions');
 const lab = await import('@/app/(lab)/actions');
+const calibration = await import('@/app/(lab)/joints/[id]/calibration/actions');
+const equipment = await import('@/app/(lab)/equipment/actions');
 
 type Caller = Role | 'anonymous';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'instructor', 'researcher', 'trainee'];
@@ -77,6 +79,11 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/people/actions.ts', name: 'changeRoleAction', allowed: ['admin'], call: () => people.changeRoleAction(ids.trainee, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'setActiveAction', allowed: ['admin'], call: () => people.setActiveAction(ids.trainee, true, idle, form()) },
   { file: 'app/(lab)/people/actions.ts', name: 'endSessionsAction', allowed: ['admin'], call: () => people.endSessionsAction(ids.trainee, idle, form()) },
+  { file: 'app/(lab)/joints/[id]/calibration/actions.ts', name: 'recordCalibrationAction', allowed: ['instructor', 'admin'], call: () => calibration.recordCalibrationAction(ids.joint, idle, form()) },
+  { file: 'app/(lab)/joints/[id]/calibration/actions.ts', name: 'saveLimitsAction', allowed: ['admin'], call: () => calibration.saveLimitsAction(ids.joint, idle, form()) },
+  { file: 'app/(lab)/joints/[id]/calibration/actions.ts', name: 'correctCalibrationAction', allowed: ['instructor', 'admin'], call: () => calibration.correctCalibrationAction(ids.joint, 0, idle, form()) },
+  { file: 'app/(lab)/equipment/actions.ts', name: 'saveEquipmentAction', allowed: ['admin'], call: () => equipment.saveEquipmentAction(null, idle, form()) },
+  { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setRunToolsAction', allowed: ['instructor', 'admin'], call: () => comments.setRunToolsAction(ids.run, idle, form()) },
   { file: 'app/(lab)/actions.ts', name: 'signOutEverywhereAction', allowed: ['admin', 'instructor', 'researcher', 'trainee'], call: () => lab.signOutEverywhereAction(idle, form()) },
 ];
 

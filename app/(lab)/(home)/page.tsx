@@ -1,10 +1,15 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { CalibrationDueDates } from '@/components/calibration/due-dates';
+import { EquipmentTable } from '@/components/equipment/equipment-due';
 import { LatestRuns } from '@/components/home/latest-runs';
 import { SavedComparisons } from '@/components/home/saved-comparisons';
 import { ROLE_LABELS } from '@/components/shell/navigation';
 import { StatCard } from '@/components/ui/stat-card';
 import { formatPercent } from '@/lib/calc/units';
+import { calibrationDueDates } from '@/lib/data/calibration';
+import { listEquipment } from '@/lib/data/equipment';
+import { DUE_SOON_DAYS, dueStatus } from '@/lib/calibration/due-status';
 import { homeSummary } from '@/lib/data/home';
 import { listSavedComparisons } from '@/lib/data/saved-comparisons';
 import { formatDate, formatDateTime } from '@/lib/format/format-date';
@@ -20,6 +25,9 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
   const { notice } = await searchParams;
   const summary = await homeSummary(user);
   const saved = user.role === 'researcher' || user.role === 'instructor' ? await listSavedComparisons(user) : [];
+  const today = new Date().toISOString().slice(0, 10);
+  const calibrationDue = user.role === 'admin' ? await calibrationDueDates(user) : [];
+  const equipmentDue = user.role === 'admin' ? (await listEquipment(user)).filter((e) => e.inService && dueStatus(e.dueOn, today) !== 'in-date') : [];
   return (
     <div className="space-y-6">
       {notice === 'not-allowed' ? (
@@ -116,6 +124,12 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             </div>
             <p className="mt-2 text-xs text-muted">{summary.totalRuns} runs are stored in the lab.</p>
           </section>
+          <CalibrationDueDates joints={calibrationDue} today={today} />
+          {equipmentDue.length > 0 ? (
+            <section className="rounded-card border border-rule bg-panel p-4">
+              <EquipmentTable items={equipmentDue} today={today} editable caption={`Equipment overdue or due within ${DUE_SOON_DAYS} days`} />
+            </section>
+          ) : null}
         </>
       ) : null}
     </div>

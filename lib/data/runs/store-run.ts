@@ -3,6 +3,7 @@ import { AppError } from '../../http/errors';
 import type { NormalisedRun } from '../../record/run-types';
 import { Run, sequelize } from '../../../models';
 import { storedRunFigures } from '../../record/run-figures';
+import { runPins } from '../joint-versions';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { RunCheckReason } from '../../run-check/types';
 import { checkBeforeStoring } from './check-before-storing';
@@ -61,10 +62,12 @@ export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, 
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
   const checked = header.status === 'complete' ? await checkBeforeStoring(header, run, transaction) : null;
+  const pins = await runPins(header.jointId, transaction);
   const hardwareUseNumber = header.hardwareSetId ? await claimHardwareUse(header.hardwareSetId, transaction) : null;
   const { id: runId } = await Run.create(
     {
       ...header,
+      ...pins,
       hardwareUseNumber,
       status: checked?.status ?? header.status,
       reviewReasons: checked?.reasonsJson ?? null,

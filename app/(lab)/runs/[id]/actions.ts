@@ -9,6 +9,7 @@ import { addRunComment, commentSchema } from '@/lib/data/run-comments';
 import { changeRunStatus, confirmAttempt } from '@/lib/data/qualification/attempts';
 import { HOLD_ROLES, saveRunHolds } from '@/lib/data/run-holds';
 import { AppError } from '@/lib/http/errors';
+import { setRunTools } from '@/lib/data/equipment';
 
 /** Adds an instructor's comment to a run (bound to the run id on the page). */
 export const addCommentAction = withActionRole(['instructor', 'admin'], async (user, form, runId: number) => {
@@ -63,4 +64,12 @@ export const addHoldsAction = withActionRole(HOLD_ROLES, async (user, form, runI
   const { points } = await saveRunHolds(user, runId, text, units);
   revalidatePath(`/runs/${runId}`);
   return okState(`${points} hold time${points === 1 ? '' : 's'} saved.`);
+});
+
+/** Records the tools a run was made with (bound to the run id; instructors and admins). */
+export const setRunToolsAction = withActionRole(['instructor', 'admin'], async (user, form, runId: number) => {
+  const ids = z.array(z.coerce.number().int().positive()).max(50).parse(form.getAll('tool'));
+  await setRunTools(user, runId, ids);
+  revalidatePath(`/runs/${runId}`);
+  return okState('Tools saved.');
 });
