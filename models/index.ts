@@ -14,6 +14,7 @@ import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { SavedComparison } from './saved-comparison';
+import { RunAnalysisRow } from './run-analysis';
 import { RunComment } from './run-comment';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
@@ -54,6 +55,7 @@ export const MODELS = [
   AuditEntry,
   SavedComparison,
   UserPreference,
+  RunAnalysisRow,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -103,6 +105,7 @@ export {
   Reading,
   Run,
   RunComment,
+  RunAnalysisRow,
   SignInAttempt,
   TighteningStep,
   Upload,

@@ -4,8 +4,8 @@ import { AppError } from '../http/errors';
 import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
-import type { MethodPass } from '@/models/method';
 import type { RunCheckReason } from '../run-check/types';
+import { passPercentsOf } from '../analysis/pass-percents-of';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 
 export interface RunHeaderDto {
@@ -51,11 +51,6 @@ type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; 
 
 const threadLabel = (j: Joint) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
-
-/** The method's % of target per pass, check passes (circular, 100 %) appended. */
-export function passPercentsOf(method: { passes: MethodPass[]; checkPasses: number }): number[] {
-  return [...method.passes.map((p) => p.percentOfTarget), ...Array.from({ length: method.checkPasses }, () => 100)];
-}
 
 /**
  * A run the viewer may see, with its steps and readings. Throws not_found when it does not exist
