@@ -24,6 +24,7 @@ import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { SavedComparison } from './saved-comparison';
+import { RunAnalysisRow } from './run-analysis';
 import { RunComment } from './run-comment';
 import { RunHold } from './run-hold';
 import { RunVerdict } from './run-verdict';
@@ -73,6 +74,7 @@ export const MODELS = [
   RunFigureHistory,
   Equipment,
   RunTool,
+  RunAnalysisRow,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -131,6 +133,7 @@ export {
   Reading,
   Run,
   RunComment,
+  RunAnalysisRow,
   SignInAttempt,
   TighteningStep,
   Upload,

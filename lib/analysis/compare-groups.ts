@@ -40,8 +40,8 @@ const formatP = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${formatInputValu
 /** A run's own figures (% of target), or null when it has fewer than two final loads. */
 function runProfile(run: ComparedRun): { meanPercent: number; sdPercent: number; cv: number } | null {
   if (run.finalLoadsN.length < 2) return null;
-  const m = mean(run.finalLoadsN);
-  const sd = sampleStandardDeviation(run.finalLoadsN);
+  const m = run.stored ? run.stored.meanN : mean(run.finalLoadsN);
+  const sd = run.stored ? run.stored.sdN : sampleStandardDeviation(run.finalLoadsN);
   return m > 0 ? { meanPercent: (m / run.targetLoadN) * 100, sdPercent: (sd / run.targetLoadN) * 100, cv: sd / m } : null;
 }
 

@@ -10,6 +10,11 @@ export interface ComparedRun {
   operator?: string | number;
   /** The operator's n-th complete run (1-based), when known. */
   attempt?: number | null;
+  /**
+   * The run's stored figures (runs.final_mean_n, final_sd_n: `storedRunFigures`, the same mean and
+   * sample SD of `finalLoadsN`), so a comparison of thousands of runs need not recompute them.
+   */
+  stored?: { meanN: number; sdN: number } | null;
 }
 
 export interface GroupInput {

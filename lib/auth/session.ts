@@ -32,10 +32,29 @@ export async function getSessionUser(): Promise<SessionUser | null> {
   const name = SESSION_COOKIES.find((cookie) => store.has(cookie));
   const value = name ? store.get(name)?.value : undefined;
   if (!value) return null;
-  const token = await decode({ token: value, secret: authSecret() }).catch(() => null);
+  const token = await decodedToken(value);
   if (typeof token?.exp === 'number' && token.exp * 1000 < Date.now()) return null;
   const claims = sessionClaimsOf(token);
   return claims ? checkSession(claims) : null;
+}
+
+/**
+ * Decoding a session token (key derivation, then decryption) costs more than the rest of a light
+ * request, and a person sends the same token with every request until it is renewed: the decoded
+ * claims are remembered per token text (at most DECODED_LIMIT, the oldest dropped first). This is
+ * a pure function's memo, not session state: the expiry is checked on every request and whether
+ * the session still stands is decided by checkSession.
+ */
+const DECODED_LIMIT = 5000;
+const decoded = new Map<string, Promise<JWT | null>>();
+
+function decodedToken(value: string): Promise<JWT | null> {
+  const known = decoded.get(value);
+  if (known) return known;
+  const pending = decode({ token: value, secret: authSecret() }).catch(() => null);
+  if (decoded.size >= DECODED_LIMIT) decoded.delete(decoded.keys().next().value as string);
+  decoded.set(value, pending);
+  return pending;
 }
 
 /** The one role check: throws 401 when signed out and 403 when the role is not allowed. */

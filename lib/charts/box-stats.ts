@@ -22,13 +22,14 @@ export interface BoxStats {
  */
 export function boxStats(values: readonly number[]): BoxStats | null {
   if (values.length === 0) return null;
-  const q1 = quantile(values, 0.25);
-  const median = quantile(values, 0.5);
-  const q3 = quantile(values, 0.75);
+  // Sorted once (a typed array sorts numerically without a comparator); quantile's answer does not depend on the order.
+  const sorted = Array.from(Float64Array.from(values).sort());
+  const q1 = quantile(sorted, 0.25);
+  const median = quantile(sorted, 0.5);
+  const q3 = quantile(sorted, 0.75);
   const iqr = q3 - q1;
   const lowFence = q1 - 1.5 * iqr;
   const highFence = q3 + 1.5 * iqr;
-  const sorted = [...values].sort((a, b) => a - b);
   const inside = sorted.filter((v) => v >= lowFence && v <= highFence);
   return {
     n: values.length,

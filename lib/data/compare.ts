@@ -83,6 +83,8 @@ interface RunRowSql {
   attempt: number;
   target_load_n: number;
   final_loads_json: string;
+  final_mean_n: number | null;
+  final_sd_n: number | null;
   drift_json?: string | null;
 }
 
@@ -160,7 +162,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
   const column = GROUP_COLUMN[query.by];
   const oneStudCount = shape.studCounts.min !== null && shape.studCounts.min === shape.studCounts.max;
   const rows = await sequelize.query<RunRowSql>(
-    `SELECT ${column} AS group_id, r.operator_id, a.attempt, r.target_load_n, r.final_loads_json${oneStudCount ? ', r.drift_json' : ''}
+    `SELECT ${column} AS group_id, r.operator_id, a.attempt, r.target_load_n, r.final_loads_json, r.final_mean_n, r.final_sd_n${oneStudCount ? ', r.drift_json' : ''}
      FROM runs r
      JOIN (SELECT id, ROW_NUMBER() OVER (PARTITION BY operator_id ORDER BY recorded_at, id) AS attempt
            FROM runs WHERE status = 'complete' AND operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${where.join(' AND ')})) a ON a.id = r.id
@@ -188,6 +190,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
       operator: r.operator_id,
       // Set-aside runs have no place in the operator's sequence of complete runs.
       attempt: r.attempt ?? null,
+      stored: r.final_mean_n !== null && r.final_sd_n !== null ? { meanN: Number(r.final_mean_n), sdN: Number(r.final_sd_n) } : null,
     })),
   }));
   const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });

@@ -2,6 +2,7 @@ import 'server-only';
 import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
 import { recordJointVersion } from './joint-versions';
+import { forgetMethodAnalyses } from './runs/stored-analysis';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
 import type { JointGasket } from '@/lib/joints/gasket-input';
@@ -274,6 +275,8 @@ export async function saveMethod(user: SessionUser, id: number | null, input: Me
       const method = await Method.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!method) throw new AppError('not_found', 'There is no method with this id; it may have been removed.');
       await method.update({ ...input, version: nextVersion(method.version, sentVersion) }, { transaction });
+      // The stored analyses of its runs name each pass's % of target: analysed again on request.
+      await forgetMethodAnalyses(id, transaction);
       return { id };
     });
   } catch (error) {

@@ -4,10 +4,10 @@ import { AppError } from '../http/errors';
 import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
-import type { MethodPass } from '@/models/method';
 import type { RunCheckReason } from '../run-check/types';
 import { gasketAreaOf } from '../joints/gasket-input';
 import { jointGasketOf } from './joints';
+import { passPercentsOf } from '../analysis/pass-percents-of';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 import { jointAsRecorded } from './joint-versions';
 
@@ -70,11 +70,6 @@ type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; 
 
 const threadLabel = (j: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch'>) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
-
-/** The method's % of target per pass, check passes (circular, 100 %) appended. */
-export function passPercentsOf(method: { passes: MethodPass[]; checkPasses: number }): number[] {
-  return [...method.passes.map((p) => p.percentOfTarget), ...Array.from({ length: method.checkPasses }, () => 100)];
-}
 
 /**
  * A run the viewer may see, with its steps and readings. Throws not_found when it does not exist

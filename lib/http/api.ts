@@ -60,9 +60,14 @@ export function assertSameOrigin(request: Request): void {
   if (site === 'cross-site' || site === 'same-site') throw new AppError('forbidden', 'This request came from another site and was refused.');
 }
 
-/** Signed-in answers are one person's data: no shared cache may keep them, nor the browser's disk cache. */
+/**
+ * Signed-in answers are one person's data: no shared cache may keep them, nor the browser's disk
+ * cache. A handler that serves an ETag may say `private, no-cache` instead (the browser keeps the
+ * answer but revalidates it before each use); anything else becomes `private, no-store`.
+ */
 function privateNoStore(response: Response): Response {
   try {
+    if (response.headers.get('Cache-Control') === 'private, no-cache' && response.headers.has('ETag')) return response;
     response.headers.set('Cache-Control', 'private, no-store');
   } catch {
     // a response with immutable headers (e.g. Response.redirect) carries no private data

@@ -1,11 +1,14 @@
 /**
  * The benchmarks of `npm run bench`, side by side in one run:
  *  1. ingest: parse + store of a 1,000,000-reading wide CSV (8 studs) vs MariaDB's LOAD DATA LOCAL
- *     INFILE of the equivalent readings into a scratch table (target >= 0.5x).
- *  2. compare: GET /api/compare over 10,000 runs in 6 groups vs one bare SQL aggregate returning
- *     the same group counts and means (target <= 2x).
+ *     INFILE of the equivalent readings into a scratch table (target >= 0.7x).
+ *  2. compare: GET /api/compare over 10,000 runs in 6 groups (mixed model included) vs one bare SQL
+ *     aggregate returning the same group counts and means (targets: first, uncached <= 5x; repeat
+ *     <= 1.5x). The route is warmed by another comparison first, so "first" is the first
+ *     computation of this selection, not the server's first request.
  *  3. load: runs-list and run-analysis APIs under 50 connections vs a constant-JSON handler
- *     (target: runs-list >= 0.5x throughput, p99 < 100 ms).
+ *     (targets: runs list and analysis >= 0.8x throughput, runs list p99 < 100 ms); the analysis
+ *     also as a repeat with If-None-Match (answered 304 from the stored ETag).
  *  4. burst: 200 connections for 60 s on the runs list: errors, non-2xx, timeouts (target 0).
  *  5. uploads: /api/health's p99 while pathological 19.9 MB files and a chunked 40 MB body are
  *     refused, and the server's peak memory (targets p99 < 200 ms, peak < 600 MB), on a fresh server.
@@ -77,8 +80,8 @@ async function benchIngest() {
 
   const ingestRate = ingest.readings / ingest.totalSeconds;
   const loadRate = Number(n) / loadSeconds;
-  results.ingest = { ...ingest, loadDataRows: Number(n), loadDataSeconds: loadSeconds, ingestReadingsPerSecond: ingestRate, loadDataRowsPerSecond: loadRate, ratio: ingestRate / loadRate, target: '>= 0.5' };
-  rows.push(['ingest 1M readings (parse + store)', `${Math.round(ingestRate).toLocaleString('en-US')} readings/s (${ingest.totalSeconds.toFixed(1)} s; parse ${ingest.parseSeconds.toFixed(1)} s, store ${ingest.storeSeconds.toFixed(1)} s)`, `LOAD DATA ${Math.round(loadRate).toLocaleString('en-US')} rows/s (${loadSeconds.toFixed(1)} s)`, `${(ingestRate / loadRate).toFixed(2)}x (>= 0.5x)`]);
+  results.ingest = { ...ingest, loadDataRows: Number(n), loadDataSeconds: loadSeconds, ingestReadingsPerSecond: ingestRate, loadDataRowsPerSecond: loadRate, ratio: ingestRate / loadRate, target: '>= 0.7' };
+  rows.push(['ingest 1M readings (parse + store)', `${Math.round(ingestRate).toLocaleString('en-US')} readings/s (${ingest.totalSeconds.toFixed(1)} s; parse ${ingest.parseSeconds.toFixed(1)} s, store ${ingest.storeSeconds.toFixed(1)} s)`, `LOAD DATA ${Math.round(loadRate).toLocaleString('en-US')} rows/s (${loadSeconds.toFixed(1)} s)`, `${(ingestRate / loadRate).toFixed(2)}x (>= 0.7x)`]);
   rows.push(['ingest peak memory', `${ingest.maxRssMb.toFixed(0)} MB max RSS`, '', ingest.maxRssMb < 500 ? 'under 500 MB' : 'OVER 500 MB']);
 }
 
@@ -121,6 +124,8 @@ async function benchCompare(baseUrl: string) {
   const api: number[] = [];
   const sql: number[] = [];
   let totalRuns = 0;
+  // Warm the route (its modules loaded, the statistics code compiled) with another comparison.
+  await (await researcher.get(`/api/compare?by=lubricant&source=both`)).json();
   // Cold: nothing cached, so the comparison is computed (statistics on every stored run profile).
   await sequelize.query('DELETE FROM comparison_cache');
   const coldStarted = performance.now();
@@ -142,9 +147,10 @@ async function benchCompare(baseUrl: string) {
   rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median, repeat); first ${coldMs.toFixed(0)} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 1.5x); first ${(coldMs / sqlMs).toFixed(1)}x (<= 5x)`]);
 }
 
-async function cannon(url: string, cookie: string, connections: number, seconds: number) {
-  const result = await autocannon({ url, connections, duration: seconds, headers: cookie ? { cookie } : {}, timeout: 10 });
-  return { requestsPerSecond: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx, total: result.requests.total };
+async function cannon(url: string, cookie: string, connections: number, seconds: number, extraHeaders: Record<string, string> = {}) {
+  const result = await autocannon({ url, connections, duration: seconds, headers: { ...(cookie ? { cookie } : {}), ...extraHeaders }, timeout: 10 });
+  const notModified = (result.statusCodeStats as Record<string, { count: number }> | undefined)?.['304']?.count ?? 0;
+  return { requestsPerSecond: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx - notModified, notModified, total: result.requests.total };
 }
 
 async function benchLoad(baseUrl: string) {
@@ -153,12 +159,17 @@ async function benchLoad(baseUrl: string) {
   const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 10);
   const constant = await cannon(`${baseUrl}/api/ping`, '', 50, seconds);
   const list = await cannon(`${baseUrl}/api/runs?pageSize=25`, researcher.cookie, 50, seconds);
-  const analysis = await cannon(`${baseUrl}/api/runs/${run!.id}/analysis`, researcher.cookie, 50, seconds);
-  results.load = { connections: 50, seconds, constant, runsList: list, runAnalysis: analysis, runsListRatio: list.requestsPerSecond / constant.requestsPerSecond, analysisRatio: analysis.requestsPerSecond / constant.requestsPerSecond, target: 'runs list >= 0.5x constant, p99 < 100 ms' };
+  const analysisUrl = `${baseUrl}/api/runs/${run!.id}/analysis`;
+  const analysis = await cannon(analysisUrl, researcher.cookie, 50, seconds);
+  // A repeat: the client sends the ETag it holds and gets 304 Not Modified.
+  const etag = (await researcher.get(`/api/runs/${run!.id}/analysis`)).headers.get('etag');
+  const repeat = await cannon(analysisUrl, researcher.cookie, 50, seconds, etag ? { 'if-none-match': etag } : {});
+  results.load = { connections: 50, seconds, constant, runsList: list, runAnalysis: analysis, runAnalysisRepeat: repeat, runsListRatio: list.requestsPerSecond / constant.requestsPerSecond, analysisRatio: analysis.requestsPerSecond / constant.requestsPerSecond, analysisRepeatRatio: repeat.requestsPerSecond / constant.requestsPerSecond, target: 'runs list and analysis >= 0.8x constant, runs list p99 < 100 ms' };
   const line = (name: string, r: typeof list) => `${Math.round(r.requestsPerSecond)} req/s, p50 ${r.p50} ms, p99 ${r.p99} ms, errors ${r.errors + r.timeouts + r.non2xx}`;
   rows.push(['load 50 conn: constant JSON', line('constant', constant), '', 'baseline']);
-  rows.push(['load 50 conn: GET /api/runs', line('list', list), '', `${(list.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.5x), p99 ${list.p99 < 100 ? '<' : '>='} 100 ms`]);
-  rows.push(['load 50 conn: GET /api/runs/:id/analysis', line('analysis', analysis), '', `${(analysis.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x`]);
+  rows.push(['load 50 conn: GET /api/runs', line('list', list), '', `${(list.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x), p99 ${list.p99 < 100 ? '<' : '>='} 100 ms`]);
+  rows.push(['load 50 conn: GET /api/runs/:id/analysis', line('analysis', analysis), '', `${(analysis.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x)`]);
+  rows.push(['load 50 conn: analysis, If-None-Match', `${line('repeat', repeat)}, 304s ${repeat.notModified}`, etag ? `ETag ${etag.slice(0, 12)}…` : 'no ETag', `${(repeat.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x)`]);
 }
 
 async function benchBurst(baseUrl: string) {

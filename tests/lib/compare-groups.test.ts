@@ -1,6 +1,7 @@
 import { median } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { compareGroups, evenSample, MAX_DOTS_PER_GROUP, SMALL_GROUP_RUNS, type GroupInput } from '@/lib/analysis/compare-groups';
+import { storedRunFigures } from '@/lib/record/run-figures';
 import fixture from '../fixtures/scipy/compare-selection.json';
 
 // A hand-made selection (three groups of 4-stud runs by four operators, attempts numbered per
@@ -121,5 +122,23 @@ describe('evenSample and large groups', () => {
     const all = many.runs.flatMap((r) => r.finalLoadsN.map((l) => (l / target) * 100));
     expect(chart.finalLoadsBox!.median).toBeCloseTo(median(all), 10);
     expect(big.groups[0]!.studs).toBe(480);
+  });
+});
+
+describe('compareGroups with the stored per-run figures', () => {
+  it('matches scipy/statsmodels the same when each run brings its stored mean and SD (storedRunFigures)', () => {
+    const withStored: GroupInput[] = inputs.map((g) => ({
+      ...g,
+      runs: g.runs.map((r) => {
+        const figures = storedRunFigures({ studCount: r.finalLoadsN.length, targetLoadN: r.targetLoadN, steps: [{ order: 1, pass: 1, position: 1, loadsN: r.finalLoadsN }] });
+        return { ...r, stored: { meanN: figures.finalMeanN!, sdN: figures.finalSdN! } };
+      }),
+    }));
+    const result = compareGroups(withStored, { subject: 'these methods' });
+    for (const id of ['welch-ln-cv', 'anova-ln-cv', 'welch-within-sd', 'anova-within-sd', 'spread-of-run-means'] as const) {
+      const found = result.tests.find((t) => t.id === id)!;
+      close(found.statistic, fixture.tests[id].statistic, 1e-9);
+      close(found.pValue, fixture.tests[id].pValue, 1e-7);
+    }
   });
 });
