@@ -33,7 +33,7 @@ afterAll(async () => {
 async function uploadGood(file: string, session = instructor, operator = () => instructorId) {
   const bytes = goodFile(file);
   const response = await postUpload(session, server.baseUrl, bytes, file, mappingFor(bytes, FOUR_STUD_JOINT), header(jointId, operator(), ids));
-  const body = (await response.json()) as { runId?: number; error?: { message: string; runId?: number } };
+  const body = (await response.json()) as { runId?: number; status?: string; reviewReasons?: Array<{ rule: string }>; error?: { message: string; runId?: number } };
   return { response, body };
 }
 
