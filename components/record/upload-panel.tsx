@@ -10,6 +10,7 @@ import { MappingEditor } from './mapping-editor';
 import { headerPayload, type HeaderErrors, type HeaderState } from './run-header-fields';
 import { sendUpload, type UploadOutcome } from './upload-request';
 import { DerivedSteps, MappingConfirm, PreviewTable, SheetChoice } from './upload-preview';
+import { SavedOutcome } from './upload-outcome';
 import { useFileParse, type Progress } from './use-file-parse';
 
 const BUTTON = 'rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50';
@@ -115,9 +116,7 @@ export function UploadPanel({ joint, method, header, rememberedMappings, onHeade
       ) : null}
 
       <div aria-live="polite">
-        {outcome?.kind === 'saved' ? (
-          <p className="text-sm text-good" role="status">Saved run {outcome.runId} with {outcome.stepCount} steps. <Link className="underline" href={`/runs/${outcome.runId}`}>Open run {outcome.runId}</Link></p>
-        ) : null}
+        {outcome?.kind === 'saved' ? <SavedOutcome outcome={outcome} /> : null}
         {outcome?.kind === 'duplicate' ? (
           <p className="text-sm text-caution" role="alert">{outcome.message} {outcome.runId ? <Link className="underline" href={`/runs/${outcome.runId}`}>Open run {outcome.runId}</Link> : null}</p>
         ) : null}

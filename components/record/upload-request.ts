@@ -1,10 +1,11 @@
 import type { ColumnMapping } from '@/lib/ingest/shapes';
+import type { RunCheckReason } from '@/lib/run-check/types';
 import type { HeaderErrors } from './run-header-fields';
 import type { Progress } from './use-file-parse';
 
 /** How an upload ended, as the panel shows it. */
 export type UploadOutcome =
-  | { kind: 'saved'; runId: number; stepCount: number }
+  | { kind: 'saved'; runId: number; stepCount: number; needsReview: boolean; reviewReasons: RunCheckReason[] }
   | { kind: 'duplicate'; runId: number | null; message: string }
   | { kind: 'error'; message: string };
 
@@ -31,9 +32,9 @@ export function sendUpload(
   xhr.upload.onload = () => onProgress({ label: 'Storing the run', fraction: 1 });
   xhr.onload = () => {
     onProgress(null);
-    const body = (xhr.response ?? {}) as { runId?: number; stepCount?: number; error?: { message?: string; runId?: number | null; fieldErrors?: HeaderErrors } };
+    const body = (xhr.response ?? {}) as { runId?: number; stepCount?: number; status?: string; reviewReasons?: RunCheckReason[]; error?: { message?: string; runId?: number | null; fieldErrors?: HeaderErrors } };
     if (xhr.status === 201 && body.runId) {
-      onOutcome({ kind: 'saved', runId: body.runId, stepCount: body.stepCount ?? 0 });
+      onOutcome({ kind: 'saved', runId: body.runId, stepCount: body.stepCount ?? 0, needsReview: body.status === 'needs_review', reviewReasons: body.reviewReasons ?? [] });
       onHeaderErrors({});
     } else if (xhr.status === 409) {
       onOutcome({ kind: 'duplicate', runId: body.error?.runId ?? null, message: body.error?.message ?? 'This file was uploaded before.' });

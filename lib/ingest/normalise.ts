@@ -177,9 +177,26 @@ function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options
 }
 
 /**
+ * A check step takes time: the rows after the last rise hold the method's check-pass steps only
+ * when they last at least this fraction of the median rows between the starts of the steps found,
+ * per check step. A short hold after the last pull (the logger left running a second) is not a
+ * check pass. Our rule.
+ */
+const CHECK_STEP_ROWS_FRACTION = 0.5;
+
+/** The median number of rows from one derived step's first line to the next one's (1 for a single step). */
+function medianRowsPerStep(steps: ReadonlyArray<{ firstLine: number }>): number {
+  const gaps = steps.slice(1).map((s, i) => s.firstLine - steps[i]!.firstLine).sort((a, b) => a - b);
+  if (gaps.length === 0) return 1;
+  const mid = Math.floor(gaps.length / 2);
+  return gaps.length % 2 ? gaps[mid]! : (gaps[mid - 1]! + gaps[mid]!) / 2;
+}
+
+/**
  * When the rises found are, in order, the method's first steps (same studs), the method's passes are
  * used, and the method's check-pass steps after the last rise (studs already at load, where no stud
- * rises) are kept as steps: their reading is the last row, their lines share out the rows
+ * rises) are kept as steps when the rows after the last rise last long enough for them
+ * ({@link CHECK_STEP_ROWS_FRACTION}): their reading is the last row, their lines share out the rows
  * after the last rise. Our rule; a warning says so.
  */
 function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<JointForImport['plannedSteps']>, warnings: string[]): void {
@@ -191,7 +208,7 @@ function keepPlannedStepsAfterLastRise(d: DeriveStepsResult, plan: NonNullable<J
   if (!rest.every((p) => p.check)) return;
   const from = found[found.length - 1]!.lastLine + 1;
   const rows = d.last.line - from + 1;
-  if (rows < rest.length) return;
+  if (rows < rest.length * CHECK_STEP_ROWS_FRACTION * medianRowsPerStep(found)) return;
   rest.forEach((p, i) => {
     const firstLine = from + Math.floor((rows * i) / rest.length);
     const lastLine = i === rest.length - 1 ? d.last!.line : from + Math.floor((rows * (i + 1)) / rest.length) - 1;

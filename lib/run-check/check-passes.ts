@@ -1,22 +1,21 @@
-import { planSteps } from '../record/step-plan';
 import { count } from './format';
 import type { RunCheckInput, RunCheckReason } from './types';
 
 /**
  * Passes and steps: the run has as many passes and steps as its method prescribes for the joint's
  * stud count (each pass tightens every stud once; check passes included). A run with 4 passes of
- * 8 studs stored as "one pass, cross order" contradicts its method.
+ * 8 studs stored as "one pass, cross order" contradicts its method. Counted from the method's
+ * passes, so a method without a stud order for this stud count is still held to its passes.
  */
 export function checkPasses({ run, jointStudCount, method }: RunCheckInput): RunCheckReason | null {
-  const plan = planSteps(method, jointStudCount);
-  if (plan.problem) return null; // checkStudCount reports it
   const plannedPasses = method.passes.length + method.checkPasses;
+  const plannedSteps = plannedPasses * jointStudCount;
   const recordedPasses = new Set(run.steps.map((step) => step.pass)).size;
-  if (recordedPasses === plannedPasses && run.steps.length === plan.steps.length) return null;
+  if (recordedPasses === plannedPasses && run.steps.length === plannedSteps) return null;
   return {
     rule: 'passes',
     message:
       `The run has ${count(recordedPasses, 'pass', 'passes')} and ${count(run.steps.length, 'step', 'steps')}; ` +
-      `the method "${method.name}" prescribes ${count(plannedPasses, 'pass', 'passes')} and ${count(plan.steps.length, 'step', 'steps')} for ${jointStudCount} studs.`,
+      `the method "${method.name}" prescribes ${count(plannedPasses, 'pass', 'passes')} and ${count(plannedSteps, 'step', 'steps')} for ${jointStudCount} studs.`,
   };
 }

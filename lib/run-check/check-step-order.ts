@@ -4,10 +4,11 @@ import type { RunCheckInput, RunCheckReason } from './types';
 /**
  * Order: step by step, the stud tightened is the one the method's order prescribes (check passes
  * go round the studs in turn, as the hand-entry grid plans them). Reports the first difference.
+ * A method without a stud order for the joint's stud count prescribes no order, so nothing is held.
  */
 export function checkStepOrder({ run, jointStudCount, method }: RunCheckInput): RunCheckReason | null {
   const plan = planSteps(method, jointStudCount);
-  if (plan.problem) return null; // checkStudCount reports it
+  if (plan.problem) return null;
   const steps = [...run.steps].sort((a, b) => a.order - b.order);
   const length = Math.min(steps.length, plan.steps.length);
   for (let i = 0; i < length; i += 1) {

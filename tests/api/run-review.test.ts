@@ -18,11 +18,10 @@ import { reviewRun } from '@/lib/data/runs/run-review';
 import type { SessionUser } from '@/lib/auth/session';
 import type { AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
-import { postUpload } from '../support/record-fixtures';
+import { CROSS_4, createTestMethod, dropTestMethods, postUpload } from '../support/record-fixtures';
 import { sessionUserFor } from '../integration/support';
 
 const TARGET_N = 90_000;
-const CROSS_4 = [1, 3, 2, 4]; // the 4-stud cross order (common practice: opposite studs in turn)
 let server: AppServer;
 let session: HttpSession;
 let instructor: SessionUser;
@@ -36,14 +35,9 @@ let lubricantId: number;
 const methodIds: number[] = [];
 
 async function insertMethod(name: string, percents: number[]): Promise<number> {
-  const now = new Date();
-  const passes = percents.map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross', orderByStudCount: { '4': CROSS_4 } }));
-  const [id] = await sequelize.query('INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?,?,?,0,NULL,?,?)', {
-    type: QueryTypes.INSERT,
-    replacements: [`${name} ${Date.now()} (invented)`, 'manual_torque_wrench', JSON.stringify(passes), now, now],
-  });
-  methodIds.push(Number(id));
-  return Number(id);
+  const id = await createTestMethod(name, percents);
+  methodIds.push(id);
+  return id;
 }
 
 /** A wide file with step and pass columns: `passes` cross passes of 4 studs, each stud reaching `fraction[p]` × its final load (kN). */
@@ -104,7 +98,7 @@ beforeAll(async () => {
 afterAll(async () => {
   if (jointId) await sequelize.query('DELETE FROM runs WHERE joint_id = ?', { replacements: [jointId] });
   if (jointId) await sequelize.query('DELETE FROM joints WHERE id = ?', { replacements: [jointId] });
-  if (methodIds.length) await sequelize.query('DELETE FROM methods WHERE id IN (?)', { replacements: [methodIds] });
+  await dropTestMethods(methodIds);
   await server?.stop();
   await sequelize.close();
 });

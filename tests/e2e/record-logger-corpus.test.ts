@@ -3,7 +3,8 @@
  * scripts/generate-logger-corpus.ts, all invented) uploaded through the Record page in Chromium:
  * a zero-based AI file, German headers with a decimal comma, an Excel workbook whose table is on its
  * second sheet, and gauge serial names, whose guessed mapping must be confirmed before saving. The
- * expected step counts are the generator's own inputs (manifest.json).
+ * expected step counts are the generator's own inputs (manifest.json). The mapping step of a
+ * channel-named file (CH1 (kN) … CH8 (kN)) is shot for the notes.
  */
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -46,6 +47,9 @@ afterAll(async () => {
 async function upload(file: string) {
   await page.goto(`${server.baseUrl}/record`);
   await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (8 studs)` });
+  // A method with a check pass, while these files hold none (the generator's plan): the page must not
+  // take the short hold after the last pull for 8 check steps (it did: 32 steps for 24).
+  await page.getByLabel('Method', { exact: true }).selectOption({ label: 'Three cross passes 30/60/100 % + circular check' });
   await page.locator('input[type=file]').setInputFiles(path.join(DIR, 'good', file));
   const save = page.getByRole('button', { name: new RegExp(`^Save run \\(${stepsOf(file)} steps`) });
   await save.waitFor({ timeout: 30_000 });
@@ -62,6 +66,14 @@ describe('Record page with logger files', () => {
       await page.getByText(/^Saved run \d+ with/).waitFor({ timeout: 30_000 });
     });
   }
+
+  it('shows the mapping step of a channel-named file filled with its guess', async () => {
+    await upload('channels-ch-kn.csv');
+    await page.getByText('Column mapping', { exact: true }).waitFor();
+    // CH1 (kN) … CH8 (kN): channel k is stud k (the joint has no channel map), unit kN from the headers.
+    for (let k = 1; k <= 8; k++) await expect(page.getByLabel(`Stud position of column CH${k} (kN)`).inputValue()).resolves.toBe(String(k));
+    await page.screenshot({ path: '/work/notes/shots/mapping-step.png', fullPage: true });
+  });
 
   it('asks to confirm a guessed mapping (gauge serial names) before saving', async () => {
     const save = await upload('gauge-serials.csv');

@@ -81,6 +81,13 @@ describe('logger corpus: good files give the generator\'s steps and final loads'
     expect(r.run.steps.slice(24).every((s) => s.pass === 4)).toBe(true);
   });
 
+  it.each(manifest.good.filter((g) => !g.plannedSteps && !/^long-/.test(g.file)))('$file with a method that has a check pass keeps the generator\'s steps: the short hold after the last pull is no check pass', async (g) => {
+    // The generator holds 10 rows after each pull; its check steps are 30 held rows each (scripts/generate-logger-corpus.ts).
+    const plannedSteps = manifest.good.find((c) => c.file === 'check-pass-wide.csv')!.plannedSteps;
+    const r = await parse('good', g.file, { plannedSteps, channelMap: g.channelMap }, g.sheet);
+    expect(r.run.steps).toHaveLength(g.steps);
+  });
+
   it('tare is switchable: switched off, CH5\'s −0.9 kN offset (the generator\'s) is a negative load beyond the noise band', async () => {
     const text = readFileSync(path.join(DIR, 'good', 'tare-offsets.csv'), 'utf8');
     const guessed = parseLoggerText(text, undefined, CORPUS_JOINT);

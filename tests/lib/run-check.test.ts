@@ -68,9 +68,9 @@ describe('checkStudCount', () => {
   it('holds a run whose joint has another stud count', () => {
     expect(checkStudCount(input(FOUR_PASS_RUN, { jointStudCount: 12 }))?.message).toBe('The run has loads for 8 studs, but its joint has 12.');
   });
-  it('holds a run whose method has no order for the stud count', () => {
+  it('does not hold a run because its method has no order for the stud count (the library lacks it, the run does not)', () => {
     const method = { name: 'Twelve only', passes: [{ percentOfTarget: 100, pattern: 'cross' as const, orderByStudCount: { '12': [1] } }], checkPasses: 0 };
-    expect(checkStudCount(input(FOUR_PASS_RUN, { method }))?.rule).toBe('stud_count');
+    expect(checkStudCount(input(FOUR_PASS_RUN, { method }))).toBeNull();
   });
 });
 
@@ -83,6 +83,13 @@ describe('checkPasses', () => {
       'The run has 4 passes and 32 steps; the method "One pass, cross order, 100 %" prescribes 1 pass and 8 steps for 8 studs.',
     );
   });
+  it('counts the passes of a method without an order for the stud count: 4 passes against 1 × 8 studs is held, 4 against 3 + 1 passes is not', () => {
+    const noOrder = (m: typeof ONE_PASS) => ({ ...m, passes: m.passes.map((p) => ({ ...p, orderByStudCount: { '12': [1] } })) });
+    expect(checkPasses(input(FOUR_PASS_RUN, { method: noOrder(ONE_PASS) }))?.message).toBe(
+      'The run has 4 passes and 32 steps; the method "One pass, cross order, 100 %" prescribes 1 pass and 8 steps for 8 studs.',
+    );
+    expect(checkPasses(input(FOUR_PASS_RUN, { method: noOrder(THREE_PASS_CHECK) }))).toBeNull();
+  });
   it('holds a run that stops short of the method (2 of 4 passes)', () => {
     const short = { ...FOUR_PASS_RUN, steps: FOUR_PASS_RUN.steps.slice(0, 16) };
     expect(checkPasses(input(short))?.rule).toBe('passes');
@@ -92,6 +99,12 @@ describe('checkPasses', () => {
 describe('checkStepOrder', () => {
   it('passes the cross order followed step by step, check pass circular', () => {
     expect(checkStepOrder(input(FOUR_PASS_RUN))).toBeNull();
+  });
+  it('says nothing when the method has no order for the stud count (no order to hold the steps to)', () => {
+    const circular = runOf({ orders: [[1, 2, 3, 4, 5, 6, 7, 8]], fractions: [1], finalLoadsN: EVEN });
+    const method = { ...ONE_PASS, passes: [{ ...pass(100), orderByStudCount: { '12': [1] } }] };
+    expect(checkStepOrder(input(circular, { method }))).toBeNull();
+    expect(checkStepOrder(input(circular, { method: ONE_PASS }))?.rule).toBe('step_order');
   });
   it('names the first step tightened out of the cross order (a circular first pass: step 2 is stud 2, not 5)', () => {
     const circular = runOf({ orders: [[1, 2, 3, 4, 5, 6, 7, 8], CROSS_8, CROSS_8, [1, 2, 3, 4, 5, 6, 7, 8]], fractions: [0.3, 0.6, 1, 1], finalLoadsN: EVEN });

@@ -32,6 +32,28 @@ export async function createTestJoint(studCount: number, tag: string): Promise<n
   return Number(id);
 }
 
+/** The 4-stud cross order: opposite studs in turn (common practice), as the 4-stud fixtures tighten. */
+export const CROSS_4 = [1, 3, 2, 4];
+
+/**
+ * An invented test method of cross passes at `percents` of target with a 4-stud order (the demo
+ * methods have none for 4 studs), so a 4-stud test run can follow its method; remove it with
+ * {@link dropTestMethods} after the runs that use it.
+ */
+export async function createTestMethod(name: string, percents: number[]): Promise<number> {
+  const now = new Date();
+  const passes = percents.map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross', orderByStudCount: { '4': CROSS_4 } }));
+  const [id] = await sequelize.query('INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?,?,?,0,NULL,?,?)', {
+    type: QueryTypes.INSERT,
+    replacements: [`${name} ${Date.now()} (invented)`, 'manual_torque_wrench', JSON.stringify(passes), now, now],
+  });
+  return Number(id);
+}
+
+export async function dropTestMethods(ids: number[]): Promise<void> {
+  if (ids.length) await sequelize.query('DELETE FROM methods WHERE id IN (?)', { replacements: [ids] });
+}
+
 /** Removes test joints with their runs (steps, readings, uploads, samples cascade). */
 export async function dropTestJoints(ids: number[]): Promise<void> {
   if (!ids.length) return;
@@ -103,11 +125,17 @@ export async function tableCounts(): Promise<Record<'runs' | 'tightening_steps' 
 
 export const kN = (...v: number[]) => v.map((x) => x * 1000);
 
-/** The shared set-up of the upload tests: the app, an instructor and a trainee signed in, a 4-stud test joint. */
+/**
+ * The shared set-up of the upload tests: the app, an instructor and a trainee signed in, a 4-stud
+ * test joint and, as `ids.methodId`, two cross passes 50/100 % with a 4-stud order: the method the
+ * 4-stud fixtures that are whole runs follow (wide-no-marker.csv), so those are stored complete.
+ */
 export async function startUploadTestbed(tag: string) {
   const { sharedAppServer } = await import('./shared-app-server');
   const { DEMO_ACCOUNTS, signInAs } = await import('./http-session');
   const server = sharedAppServer();
+  const { lubricantId } = await firstIds();
+  const methodId = await createTestMethod('Two cross passes 50/100 % (4 studs)', [50, 100]);
   const testbed = {
     server,
     instructor: await signInAs(server.baseUrl, DEMO_ACCOUNTS.instructor),
@@ -115,9 +143,10 @@ export async function startUploadTestbed(tag: string) {
     jointId: await createTestJoint(4, tag),
     instructorId: await userId(DEMO_ACCOUNTS.instructor),
     traineeId: await userId(DEMO_ACCOUNTS.trainee),
-    ids: await firstIds(),
+    ids: { methodId, lubricantId },
     async stop() {
       await dropTestJoints([testbed.jointId]);
+      await dropTestMethods([methodId]);
       await sequelize.close();
     },
   };

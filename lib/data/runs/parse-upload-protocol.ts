@@ -18,6 +18,10 @@ export interface ParseJob {
 export interface ParsedUpload {
   detection: Omit<DetectionReport, 'text'>;
   mapping: ColumnMapping;
+  /** False when the mapping was the parser's guess and assumed something (see parseLoggerText). */
+  mappingCertain: boolean;
+  /** What the guess assumed, in sentences. */
+  mappingNotes: string[];
   run: NormalisedRun;
   derivedSteps: boolean;
   warnings: string[];

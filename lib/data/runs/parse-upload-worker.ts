@@ -20,7 +20,7 @@ parentPort?.on('message', async (job: ParseJob) => {
     const { text: _text, ...detection } = parsed.detection;
     reply = {
       ok: true,
-      parsed: { detection, mapping: parsed.mapping, run: parsed.run, derivedSteps: parsed.derivedSteps, warnings: parsed.warnings, rowCount: parsed.rowCount },
+      parsed: { detection, mapping: parsed.mapping, mappingCertain: parsed.mappingCertain, mappingNotes: parsed.mappingNotes, run: parsed.run, derivedSteps: parsed.derivedSteps, warnings: parsed.warnings, rowCount: parsed.rowCount },
     };
   } catch (error) {
     reply = error instanceof AppError ? { ok: false, code: error.code, message: error.message, details: error.details } : { ok: false, code: 'internal', message: String((error as Error)?.stack ?? error), details: {} };

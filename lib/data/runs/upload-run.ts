@@ -11,6 +11,7 @@ import { planSteps } from '@/lib/record/step-plan';
 import type { SessionUser } from '@/lib/auth/session';
 import { Run, Upload, sequelize } from '@/models';
 import { parseUploadInWorker } from './parse-in-worker';
+import type { ParsedUpload } from './parse-upload-protocol';
 import { storeRunWithStatus } from './store-run';
 import type { RunCheckReason } from '@/lib/run-check/types';
 import type { RunStatus } from '@/models/run';
@@ -24,6 +25,8 @@ export interface UploadInput {
   mapping: unknown;
   /** The run header fields (JSON from the form), validated here. */
   header: unknown;
+  /** Without a mapping: store with the server's guess even when the guess is uncertain. */
+  acceptGuess: boolean;
 }
 
 export interface UploadResult {
@@ -41,6 +44,19 @@ export interface UploadResult {
 /** The 413 for a body or file over the upload limit. */
 export function uploadTooLarge(): AppError {
   return new AppError('too_large', `The file is larger than the upload limit of ${UPLOAD_LIMIT_BYTES / BYTES_PER_MB} MB. Split the log or export only this run.`, { field: 'file', limitBytes: UPLOAD_LIMIT_BYTES });
+}
+
+/**
+ * The 422 for a file sent without a mapping whose columns the server could only guess: the guess
+ * and what it assumed are in the body, so an API client confirms it (sends it back as `mapping`,
+ * corrected or not) or sends `acceptGuess=1`. The page always sends the mapping the person confirmed.
+ */
+function uncertainGuess(parsed: ParsedUpload): AppError {
+  return new AppError(
+    'invalid_input',
+    `The columns were guessed, not recognised for certain (${parsed.mappingNotes.join(' ') || 'the file does not say everything'}). Check the guessed mapping and send it as "mapping", or send acceptGuess=1 to store the run with it.`,
+    { field: 'mapping', guess: parsed.mapping, mappingNotes: parsed.mappingNotes },
+  );
 }
 
 /** The upload with this sha256, if any, and its run. */
@@ -70,7 +86,8 @@ async function duplicate(user: SessionUser, runId: number | null): Promise<AppEr
  *
  * @throws AppError: 'too_large' over {@link UPLOAD_LIMIT_BYTES}; 'invalid_input' naming line and
  *   column; 'conflict' for a file already uploaded (same sha256), with `runId` when this person may
- *   see that run; 'forbidden' for an operator this person may not record as.
+ *   see that run; 'forbidden' for an operator this person may not record as; 'invalid_input' with
+ *   the guess for a file without a mapping whose guess is uncertain, unless `acceptGuess`.
  */
 export async function storeUploadedRun(user: SessionUser, input: UploadInput): Promise<UploadResult> {
   const resolved = await resolveRunHeader(user, input.header, 'upload', 'complete');
@@ -81,6 +98,7 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
   const mapping = input.mapping === null || input.mapping === undefined ? undefined : parseColumnMapping(input.mapping);
   const plannedSteps = planSteps(resolved.method, resolved.joint.studCount).steps;
   const parsed = await parseUploadInWorker(input.bytes, UPLOAD_LIMIT_BYTES, mapping, { ...resolved.jointImport, plannedSteps });
+  if (!mapping && !parsed.mappingCertain && !input.acceptGuess) throw uncertainGuess(parsed);
   const report = {
     detection: parsed.detection.sentences,
     delimiter: parsed.detection.delimiter,
