@@ -136,7 +136,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
 
       <Section title="Target stud load">
         {hasRuns ? <p className="text-sm text-muted">A new target applies to new runs only: the {joint?.runCount} runs already recorded keep the target they were recorded with.</p> : null}
-        <fieldset className="flex flex-wrap gap-4">
+        <fieldset className="flex min-w-0 flex-wrap gap-4">
           <legend className="mb-1 text-sm font-medium text-ink">Set the target as</legend>
           {([['load', 'Stud load'], ['percentOfYield', '% of yield'], ['stress', 'Stud stress']] as const).map(([value, label]) => (
             <label key={value} className="flex items-center gap-2 text-sm text-ink">

@@ -35,7 +35,7 @@ export function SelectField({
   errors,
   children,
   hint,
-  className = 'max-w-md',
+  className = 'max-w-[min(28rem,100%)]',
 }: {
   label: string;
   name?: string;
