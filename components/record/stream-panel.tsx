@@ -147,6 +147,7 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
         </div>
       ) : null}
       {tokens.length ? (
+        <div className="overflow-x-auto">
         <table className="w-full text-sm">
           <thead className="text-left text-muted"><tr><th className="py-1">Name</th><th>Joint</th><th>Created</th><th>Last used</th><th /></tr></thead>
           <tbody>
@@ -162,6 +163,7 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
             ))}
           </tbody>
         </table>
+        </div>
       ) : <p className="text-sm text-muted">No tokens yet: create one above and give it to the bridge.</p>}
       <p aria-live="polite" className="text-sm">{revokeState.message ? <span className={revokeState.status === 'ok' ? 'text-good' : 'text-danger'}>{revokeState.message}</span> : null}</p>
     </section>
