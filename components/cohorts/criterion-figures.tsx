@@ -15,7 +15,7 @@ export function limitText(result: CriterionResult): string {
 /** The per-criterion table of one judged run: measured, limit, met, and the reading. */
 export function CriterionTable({ results, caption }: { results: CriterionResult[]; caption?: string }) {
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
     <table className="w-full text-sm">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
       <thead className="text-left text-muted">

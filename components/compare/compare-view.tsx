@@ -98,7 +98,7 @@ export function NutFactors({ data }: { data: CompareResponse }) {
       {data.nutFactors.length === 0 ? (
         <p className="mt-2 text-sm text-muted">No runs with recorded torque in these groups. Nut factors need runs whose steps carry the applied torque.</p>
       ) : (
-        <div className="mt-2 overflow-x-auto">
+        <div className="mt-2 relative overflow-x-auto">
         <table className="w-full text-sm">
           <thead className="text-left text-muted"><tr><th className="py-1">Lubricant</th><th className="text-right">Fitted K</th><th className="text-right">95 % CI</th><th className="text-right">Readings</th></tr></thead>
           <tbody className="num">

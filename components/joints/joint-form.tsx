@@ -184,7 +184,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
         ) : (
           <div className="flex flex-wrap items-start gap-6">
             <FlangeDiagram studCount={shownCount} />
-            <div className="max-h-96 min-w-[min(100%,24rem)] flex-1 overflow-auto rounded border border-rule">
+            <div className="relative max-h-96 min-w-[min(100%,24rem)] flex-1 overflow-auto rounded border border-rule">
               <table className="w-full text-sm">
                 <thead className="sticky top-0 bg-panel text-left text-muted">
                   <tr><th className="px-2 py-1.5">Position</th><th className="px-2 py-1.5">Logger channel</th><th className="px-2 py-1.5">Gauge calibration factor</th><th className="px-2 py-1.5">Note</th></tr>

@@ -55,7 +55,7 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
         {data ? <p className="text-muted">{data.total} run{data.total === 1 ? '' : 's'}{isLoading ? ' · updating…' : ''}</p> : isLoading ? <p className="text-muted">Loading runs…</p> : null}
       </div>
 
-      <div className="overflow-x-auto rounded-card border border-rule bg-panel">
+      <div className="relative overflow-x-auto rounded-card border border-rule bg-panel">
         <table className="w-full text-sm">
           <thead className="bg-rule/40 text-left">
             <tr>

@@ -21,7 +21,7 @@ export default async function PeoplePage() {
           <a href="/api/admin/audit-log" download className="underline underline-offset-4">Download the audit log (CSV)</a>: every change to runs, verdicts, criteria and accounts, with who, when, the reason, and the values before and after.
         </p>
       </div>
-      <div className="overflow-x-auto rounded-card border border-rule bg-panel">
+      <div className="relative overflow-x-auto rounded-card border border-rule bg-panel">
       <table className="w-full text-sm">
         <thead className="text-left text-muted">
           <tr><th className="px-3 py-2">Name</th><th>E-mail</th><th>Role</th><th>Status</th><th>Since</th><th>Change</th></tr>

@@ -55,7 +55,7 @@ export default async function ProgressPage() {
               <strong className="num">{progress.runs.filter((r) => r.kind !== 'assessed').length}</strong> practice or simulated runs. Only assessed attempts count towards your course outcome.
             </p>
             <ProgressChart points={progress.runs.map((r) => ({ attempt: r.attempt, cvPercent: r.cvPercent, largestDeviationPercent: r.largestDeviationPercent }))} cvLimit={limit('cv')} bandLimit={limit('band')} />
-            <div className="mt-3 overflow-x-auto">
+            <div className="mt-3 relative overflow-x-auto">
             <table className="w-full text-sm">
               <caption className="text-left text-xs text-muted">The chart&apos;s figures as a table.</caption>
               <thead className="text-left text-muted">
