@@ -12,7 +12,9 @@ import { EndFigures } from './end-figures';
 import type { BuiltScene } from './scene-model';
 
 function useViewport() {
-  const [size, setSize] = useState({ width: 1280, height: 720 });
+  // The stage is drawn only after Start (never on the server), so the first render can read the
+  // window: a phone then lays out stacked at once instead of drawing the chart in a too-narrow column.
+  const [size, setSize] = useState(() => (typeof window === 'undefined' ? { width: 1280, height: 720 } : { width: window.innerWidth, height: window.innerHeight }));
   useEffect(() => {
     const update = () => setSize({ width: window.innerWidth, height: window.innerHeight });
     update();
