@@ -22,7 +22,7 @@ export default async function PeoplePage() {
         </p>
       </div>
       <div className="relative overflow-x-auto rounded-card border border-rule bg-panel">
-      <table className="w-full text-sm">
+      <table className="w-full min-w-[52rem] text-sm">
         <thead className="text-left text-muted">
           <tr><th className="px-3 py-2">Name</th><th>E-mail</th><th>Role</th><th>Status</th><th>Since</th><th>Change</th></tr>
         </thead>
