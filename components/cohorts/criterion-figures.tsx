@@ -16,7 +16,7 @@ export function limitText(result: CriterionResult): string {
 export function CriterionTable({ results, caption }: { results: CriterionResult[]; caption?: string }) {
   return (
     <div className="relative overflow-x-auto">
-    <table className="w-full text-sm">
+    <table className="w-full min-w-[30rem] text-sm">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
       <thead className="text-left text-muted">
         <tr><th className="py-1">Criterion</th><th className="text-right">Measured</th><th className="text-right">Limit</th><th className="pl-3">Result</th></tr>

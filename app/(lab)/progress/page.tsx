@@ -56,7 +56,7 @@ export default async function ProgressPage() {
             </p>
             <ProgressChart points={progress.runs.map((r) => ({ attempt: r.attempt, cvPercent: r.cvPercent, largestDeviationPercent: r.largestDeviationPercent }))} cvLimit={limit('cv')} bandLimit={limit('band')} />
             <div className="mt-3 relative overflow-x-auto">
-            <table className="w-full text-sm">
+            <table className="w-full min-w-[36rem] text-sm">
               <caption className="text-left text-xs text-muted">The chart&apos;s figures as a table.</caption>
               <thead className="text-left text-muted">
                 <tr><th className="py-1">Attempt</th><th>Recorded</th><th>Method</th><th className="text-right">CV of final loads</th><th className="text-right">Largest deviation from target</th><th className="pl-3">Counts as</th><th className="pl-3">Verdict</th></tr>
