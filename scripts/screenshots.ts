@@ -2,16 +2,18 @@
  * npm run screenshots [-- --url http://127.0.0.1:3000] [--out .data/screenshots/NAME]
  *
  * Signs in as each demo role and shoots every page the role can open (the main navigation, plus
- * the first run report, cohort, cohort sheet, trainee sheet and joint it links to) at 1280 and 390 px
+ * the first run report, cohort, cohort sheet, trainee sheet, joint, method, lubricant and saved
+ * comparison it links to; `tests/support/role-pages.ts`) at 1280 and 390 px
  * wide, in the light and the dark scheme, full page, into a folder under .data/ (not committed).
  * Needs a running app with the demo data (`npm start`); uses playwright-core with Debian's
  * Chromium, as the browser tests do.
  */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, signInThroughForm } from '../tests/support/browser';
 import { DEMO_ACCOUNTS } from '../tests/support/http-session';
+import { pagesOfRole } from '../tests/support/role-pages';
 
 const WIDTHS = [1280, 390] as const;
 const SCHEMES = ['light', 'dark'] as const;
@@ -24,26 +26,6 @@ function argument(name: string): string | undefined {
 const baseUrl = (argument('url') ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`).replace(/\/$/, '');
 const out = path.resolve(argument('out') ?? path.join('.data', 'screenshots', new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-')));
 
-/** Every page of the role: the navigation's links, then the first detail page each list links to. */
-async function pagesOf(page: Page): Promise<string[]> {
-  const nav = await page.locator('nav[aria-label="Main"] a').evaluateAll((links) => links.map((a) => a.getAttribute('href') ?? '/'));
-  const pages = [...new Set(nav)];
-  const firstLink = async (list: string, pattern: RegExp) => {
-    await page.goto(`${baseUrl}${list}`);
-    await page.waitForLoadState('networkidle');
-    const hrefs = await page.locator('main a').evaluateAll((links) => links.map((a) => a.getAttribute('href') ?? ''));
-    return hrefs.find((h) => pattern.test(h));
-  };
-  const details: (string | undefined)[] = [await firstLink('/runs', /^\/runs\/\d+$/)];
-  if (nav.includes('/cohorts')) {
-    const cohort = await firstLink('/cohorts', /^\/cohorts\/\d+$/);
-    details.push(cohort);
-    if (cohort) details.push(`${cohort}/sheet`, await firstLink(cohort, /^\/cohorts\/\d+\/trainees\/\d+$/));
-  }
-  if (nav.includes('/joints')) details.push(await firstLink('/joints', /^\/joints\/\d+$/));
-  return [...pages, ...details.filter((d): d is string => Boolean(d))];
-}
-
 const fileName = (role: string, url: string, width: number, scheme: string) =>
   `${role}-${url === '/' ? 'home' : url.slice(1).replace(/\//g, '-')}-${width}-${scheme}.png`;
 
@@ -51,7 +33,7 @@ async function shootRole(browser: Browser, role: keyof typeof DEMO_ACCOUNTS): Pr
   const discover = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   const first = await discover.newPage();
   await signInThroughForm(first, baseUrl, DEMO_ACCOUNTS[role]);
-  const urls = await pagesOf(first);
+  const urls = await pagesOfRole(first, baseUrl);
   const state = await discover.storageState();
   await discover.close();
   let shots = 0;

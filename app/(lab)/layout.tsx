@@ -31,7 +31,7 @@ export default async function LabLayout({ children }: { children: React.ReactNod
           </HeaderMenu>
         </nav>
       </header>
-      <main className="mx-auto max-w-7xl px-4 py-6">{children}</main>
+      <main className="mx-auto max-w-7xl break-words px-4 py-6">{children}</main>
       {demo ? (
         <footer className="mx-auto max-w-7xl px-4 pb-6 text-xs text-muted">
           <p>{DEMO_NOTICE}</p>

@@ -33,7 +33,7 @@ export function CalculatorForm() {
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_24rem]">
-      <form className="flex flex-col gap-6" onSubmit={(e) => e.preventDefault()} aria-label="Calculator inputs" noValidate>
+      <form className="flex min-w-0 flex-col gap-6" onSubmit={(e) => e.preventDefault()} aria-label="Calculator inputs" noValidate>
         <RadioChoice
           name={`${id}-units`}
           legend="Units"
@@ -49,7 +49,7 @@ export function CalculatorForm() {
         <GasketSection state={state} dispatch={dispatch} preload={result.preload} />
       </form>
 
-      <div className="flex flex-col gap-4 lg:sticky lg:top-4 lg:self-start">
+      <div className="flex min-w-0 flex-col gap-4 lg:sticky lg:top-4 lg:self-start">
         <CalculatorResults result={result} units={state.units} nutFactorText={state.kText} />
         <CautionBlock variant="calculator" />
       </div>

@@ -5,7 +5,7 @@ import type { ReactNode } from 'react';
 /** One titled group of calculator inputs. */
 export function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <fieldset className="flex flex-col gap-3 rounded-card border border-rule bg-panel p-4">
+    <fieldset className="flex min-w-0 flex-col gap-3 rounded-card border border-rule bg-panel p-4">
       <legend className="px-1 text-base font-semibold text-ink">{title}</legend>
       {children}
     </fieldset>

@@ -91,7 +91,7 @@ export function PlotFigure({ options, title, description, table, legend, fit, la
       {table && table.rows.length > 0 && (
         <details className="no-print mt-3 text-sm">
           <summary className="cursor-pointer text-ink">Show the numbers</summary>
-          <div className="mt-2 overflow-x-auto">
+          <div className="relative mt-2 overflow-x-auto">
             <table className="num w-full border-collapse text-left">
               <caption className="sr-only">{title}</caption>
               <thead>

@@ -84,6 +84,11 @@ export function ClassroomView({ library, cohorts, realRuns, realRun, initialOrde
     return () => window.removeEventListener('keydown', onKey);
   }, [playing, act]);
 
+  // Marks the layer once React has hydrated it, so a browser test clicks Start only when the click can work.
+  useEffect(() => {
+    rootRef.current?.setAttribute('data-hydrated', 'true');
+  }, []);
+
   const start = (index = 0) => {
     setPosition({ sceneIndex: index, step: 0 });
     setPlaying(true);
@@ -91,7 +96,7 @@ export function ClassroomView({ library, cohorts, realRuns, realRun, initialOrde
   };
 
   return (
-    <div ref={rootRef} className="fixed inset-0 z-40 overflow-auto bg-paper text-ink">
+    <div ref={rootRef} data-testid="classroom-root" className="fixed inset-0 z-40 overflow-auto bg-paper text-ink">
       {!playing ? (
         <ScenePicker
           order={order}

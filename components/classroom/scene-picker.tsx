@@ -20,7 +20,7 @@ export function ScenePicker(props: {
   const { order, onOrder, library, jointId, onJoint, realRuns, realRun, onRealRun, onStart } = props;
   const unused = SCENE_KEYS.filter((k) => !order.includes(k));
   return (
-    <div className="mx-auto max-w-6xl space-y-6 px-8 py-8">
+    <div className="mx-auto max-w-6xl space-y-6 px-4 py-8 sm:px-8">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <h1 className="text-room-lg font-semibold">Classroom</h1>
         <a href="/" className="text-xl text-muted underline">Leave the classroom</a>
@@ -37,7 +37,7 @@ export function ScenePicker(props: {
                   <p className="text-3xl font-semibold">{SCENES[key].title}</p>
                   <p className="text-lg text-muted">{SCENES[key].lesson}</p>
                 </div>
-                <div className="flex gap-2 text-lg">
+                <div className="flex flex-wrap gap-2 text-lg">
                   <button type="button" className="rounded-md border border-rule px-3 py-2 disabled:opacity-40" disabled={index === 0} onClick={() => onOrder(moveScene(order, index, -1))} aria-label={`Move ${SCENES[key].title} up`}>Up</button>
                   <button type="button" className="rounded-md border border-rule px-3 py-2 disabled:opacity-40" disabled={index === order.length - 1} onClick={() => onOrder(moveScene(order, index, 1))} aria-label={`Move ${SCENES[key].title} down`}>Down</button>
                   <button type="button" className="rounded-md border border-rule px-3 py-2 disabled:opacity-40" disabled={order.length === 1} onClick={() => onOrder(toggleScene(order, key))} aria-label={`Leave out ${SCENES[key].title}`}>Leave out</button>

@@ -12,7 +12,9 @@ import { EndFigures } from './end-figures';
 import type { BuiltScene } from './scene-model';
 
 function useViewport() {
-  const [size, setSize] = useState({ width: 1280, height: 720 });
+  // The stage is drawn only after Start (never on the server), so the first render can read the
+  // window: a phone then lays out stacked at once instead of drawing the chart in a too-narrow column.
+  const [size, setSize] = useState(() => (typeof window === 'undefined' ? { width: 1280, height: 720 } : { width: window.innerWidth, height: window.innerHeight }));
   useEffect(() => {
     const update = () => setSize({ width: window.innerWidth, height: window.innerHeight });
     update();
@@ -33,7 +35,7 @@ export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, se
   const headerHeight = 104;
   const rowHeight = Math.max(240, Math.floor((height - headerHeight - 16) / Math.max(1, scene.sides.length)));
   return (
-    <div className="flex min-h-screen flex-col px-6 py-3">
+    <div className="flex min-h-screen flex-col px-3 py-3 sm:px-6">
       <header className="flex flex-wrap items-center gap-x-8 gap-y-1" style={{ minHeight: headerHeight - 12 }}>
         <div className="min-w-0 flex-1">
           <h1 className="text-room font-semibold">{scene.title}</h1>
@@ -41,7 +43,7 @@ export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, se
             Scene {sceneNumber} of {sceneCount} · {atEnd ? 'the figures' : step === 0 ? 'all studs snug, nothing tightened yet' : `step ${step} of ${scene.totalSteps}`}
           </p>
         </div>
-        {!atEnd && scene.sides.length ? <DeviationLegend bandPercent={scene.bandPercent} large className="w-[26rem]" /> : null}
+        {!atEnd && scene.sides.length ? <DeviationLegend bandPercent={scene.bandPercent} large className="w-[26rem] max-w-full" /> : null}
         <div className="flex gap-2 text-lg">
           <button type="button" onClick={onHelp} className="rounded-md border border-rule px-3 py-1">Keys (?)</button>
           <button type="button" onClick={onBack} className="rounded-md border border-rule px-3 py-1">Scenes</button>

@@ -104,7 +104,7 @@ export function MembersList({ cohort, pages, hrefFor }: ListsProps) {
       {members.length === 0 ? (
         <EmptyState title="No trainees yet">Invite them above by e-mail address; they appear here at once.</EmptyState>
       ) : (
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <table className="w-full text-sm">
             <thead className="text-left text-muted">
               <tr><th className="py-1 pr-3">Trainee</th><th className="pr-3">E-mail</th><th className="pr-3">Account</th><th className="pr-3 text-right">Assessed attempts</th><th className="pr-3 text-right">Practice</th><th className="pr-3 text-right">Latest CV</th><th className="pr-3 text-right">Criteria met (latest)</th><th className="text-right">Sheet</th></tr>

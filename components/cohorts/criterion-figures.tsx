@@ -15,7 +15,8 @@ export function limitText(result: CriterionResult): string {
 /** The per-criterion table of one judged run: measured, limit, met, and the reading. */
 export function CriterionTable({ results, caption }: { results: CriterionResult[]; caption?: string }) {
   return (
-    <table className="w-full text-sm">
+    <div className="relative overflow-x-auto">
+    <table className="w-full min-w-[30rem] text-sm">
       {caption ? <caption className="sr-only">{caption}</caption> : null}
       <thead className="text-left text-muted">
         <tr><th className="py-1">Criterion</th><th className="text-right">Measured</th><th className="text-right">Limit</th><th className="pl-3">Result</th></tr>
@@ -34,5 +35,6 @@ export function CriterionTable({ results, caption }: { results: CriterionResult[
         ))}
       </tbody>
     </table>
+    </div>
   );
 }

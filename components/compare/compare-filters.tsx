@@ -15,7 +15,7 @@ export const BY_CHOICES = [
 
 export type ByChoice = (typeof BY_CHOICES)[number]['key'];
 
-const field = 'mt-1 rounded-md border border-rule bg-paper px-2 py-1.5';
+const field = 'mt-1 max-w-full rounded-md border border-rule bg-paper px-2 py-1.5';
 
 /** The factors a comparison can be narrowed by (other than the grouping), each a single choice. */
 const FACTOR_FILTERS = [
@@ -38,13 +38,13 @@ export function CompareFilters({ options, params, update }: Props) {
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-4">
-        <label className="text-sm" htmlFor="compare-by">
+        <label className="min-w-0 max-w-full text-sm" htmlFor="compare-by">
           <span className="block text-muted">Compare</span>
           <select id="compare-by" value={by} onChange={(e) => update({ by: e.target.value, ids: null })} className={field}>
             {BY_CHOICES.map((c) => <option key={c.key} value={c.key}>{c.label}</option>)}
           </select>
         </label>
-        <label className="text-sm" htmlFor="compare-source">
+        <label className="min-w-0 max-w-full text-sm" htmlFor="compare-source">
           <span className="block text-muted">Runs from</span>
           <select id="compare-source" value={params.get('source') ?? 'measured'} onChange={(e) => update({ source: e.target.value === 'measured' ? null : e.target.value })} className={field}>
             <option value="measured">Measured runs only</option>
@@ -52,7 +52,7 @@ export function CompareFilters({ options, params, update }: Props) {
             <option value="both">Measured and simulated, pooled</option>
           </select>
         </label>
-        <label className="text-sm" htmlFor="compare-status">
+        <label className="min-w-0 max-w-full text-sm" htmlFor="compare-status">
           <span className="block text-muted">Status</span>
           <select id="compare-status" value={params.get('status') ?? 'complete'} onChange={(e) => update({ status: e.target.value === 'complete' ? null : e.target.value })} className={field}>
             <option value="complete">Complete</option>
@@ -61,7 +61,7 @@ export function CompareFilters({ options, params, update }: Props) {
           </select>
         </label>
         {FACTOR_FILTERS.map((f) => (
-          <label key={f.param} className="text-sm">
+          <label key={f.param} className="min-w-0 max-w-full text-sm">
             <span className="block text-muted">{f.label}</span>
             <select value={params.get(f.param) ?? ''} onChange={(e) => update({ [f.param]: e.target.value })} className={field}>
               <option value="">{f.all}</option>
@@ -69,19 +69,19 @@ export function CompareFilters({ options, params, update }: Props) {
             </select>
           </label>
         ))}
-        <label className="text-sm">
+        <label className="min-w-0 max-w-full text-sm">
           <span className="block text-muted">Studs</span>
           <input type="number" min={3} max={200} value={params.get('studCount') ?? ''} placeholder="any" onChange={(e) => update({ studCount: e.target.value })} className={`${field} w-20`} />
         </label>
-        <label className="text-sm">
+        <label className="min-w-0 max-w-full text-sm">
           <span className="block text-muted">From</span>
           <input type="date" value={params.get('from') ?? ''} onChange={(e) => update({ from: e.target.value })} className={field} />
         </label>
-        <label className="text-sm">
+        <label className="min-w-0 max-w-full text-sm">
           <span className="block text-muted">To</span>
           <input type="date" value={params.get('to') ?? ''} onChange={(e) => update({ to: e.target.value })} className={field} />
         </label>
-        <label className="text-sm">
+        <label className="min-w-0 max-w-full text-sm">
           <span className="block text-muted">Passes</span>
           <input type="number" min={1} max={50} value={params.get('passCount') ?? ''} placeholder="any" onChange={(e) => update({ passCount: e.target.value })} className={`${field} w-20`} />
         </label>

@@ -9,7 +9,7 @@ const range = (lower: number, upper: number) => `${formatNumber(lower, 2)} – $
 export function CompareGroupsTable({ groups }: { groups: GroupSummary[] }) {
   const methods = [...new Set(groups.flatMap((g) => (g.components ? [g.components.betweenMethod] : [])))];
   return (
-    <section aria-labelledby="groups-heading" className="overflow-x-auto rounded-card border border-rule bg-panel p-4">
+    <section aria-labelledby="groups-heading" className="relative overflow-x-auto rounded-card border border-rule bg-panel p-4">
       <h2 id="groups-heading" className="text-lg font-semibold">Groups</h2>
       <table className="mt-2 w-full text-sm">
         <thead className="text-left text-muted">

@@ -25,7 +25,7 @@ function TestItem({ test }: { test: ComparisonTest }) {
 function PairsTable({ title, pairs }: { title: string; pairs: PairComparison[] }) {
   if (!pairs.length) return null;
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <h3 className="font-medium">{title}</h3>
       <table className="mt-1 w-full text-sm">
         <thead className="text-left text-muted"><tr><th className="py-1">Pair</th><th className="text-right">Run CV ratio</th><th className="text-right">95 % interval</th><th className="text-right">Adjusted p</th></tr></thead>
@@ -61,7 +61,7 @@ export function CompareTests({ data }: { data: Pick<ComparisonResult, 'tests' | 
         <PairsTable title="Pairs, equal variances (Tukey–Kramer, 95 % family-wise)" pairs={data.pairs.tukeyKramer} />
       </div>
       {blocks ? (
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <h3 className="font-medium">Operators as blocks</h3>
           <table className="mt-1 w-full text-sm">
             <thead className="text-left text-muted"><tr><th className="py-1">Group</th><th className="text-right">Run CV relative to {blocks.estimates[0]?.label}</th><th className="text-right">95 % interval</th></tr></thead>

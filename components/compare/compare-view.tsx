@@ -98,7 +98,8 @@ export function NutFactors({ data }: { data: CompareResponse }) {
       {data.nutFactors.length === 0 ? (
         <p className="mt-2 text-sm text-muted">No runs with recorded torque in these groups. Nut factors need runs whose steps carry the applied torque.</p>
       ) : (
-        <table className="mt-2 w-full text-sm">
+        <div className="mt-2 relative overflow-x-auto">
+        <table className="w-full text-sm">
           <thead className="text-left text-muted"><tr><th className="py-1">Lubricant</th><th className="text-right">Fitted K</th><th className="text-right">95 % CI</th><th className="text-right">Readings</th></tr></thead>
           <tbody className="num">
             {data.nutFactors.map((k) => (
@@ -106,6 +107,7 @@ export function NutFactors({ data }: { data: CompareResponse }) {
             ))}
           </tbody>
         </table>
+        </div>
       )}
       <p className="mt-2 text-xs text-muted">K from T = K·D·F (short form, common practice), fitted through the origin over first-pass steps, where each stud is pulled up from snug so its load right after its own step is the load the torque produced.</p>
     </section>

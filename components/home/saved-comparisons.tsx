@@ -9,7 +9,8 @@ export function SavedComparisons({ items }: { items: { slug: string; title: stri
       {items.length === 0 ? (
         <p className="mt-2 text-sm text-muted">None yet. On <Link className="underline decoration-rule underline-offset-4" href="/compare">Compare</Link>, “Freeze this comparison” keeps its results under a link you can cite.</p>
       ) : (
-        <table className="mt-2 w-full text-sm">
+        <div className="mt-2 relative overflow-x-auto">
+        <table className="w-full text-sm">
           <thead className="text-left text-muted"><tr><th className="py-1">Title</th><th>Frozen</th><th className="text-right">Runs</th></tr></thead>
           <tbody className="num">
             {items.map((c) => (
@@ -21,6 +22,7 @@ export function SavedComparisons({ items }: { items: { slug: string; title: stri
             ))}
           </tbody>
         </table>
+        </div>
       )}
     </section>
   );

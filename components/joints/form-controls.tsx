@@ -28,9 +28,9 @@ export function TextField({ label, name, value, onChange, errors, unit, hint, op
   const id = useId();
   const invalid = Boolean(errors?.length);
   return (
-    <div className="flex flex-col gap-1">
+    <div className="flex min-w-0 max-w-full flex-col gap-1">
       <FieldLabel htmlFor={id} label={label} optional={optional} />
-      <div className="flex items-center gap-2">
+      <div className="flex min-w-0 items-center gap-2">
         <input
           id={id}
           name={name}
@@ -42,7 +42,7 @@ export function TextField({ label, name, value, onChange, errors, unit, hint, op
           autoComplete="off"
           aria-invalid={invalid || undefined}
           aria-describedby={`${id}-msg${hint ? ` ${id}-hint` : ''}`}
-          className={`${width} ${inputMode !== 'text' ? 'num font-mono' : ''} ${INPUT_CLASS} read-only:bg-rule/30`}
+          className={`${width} min-w-0 max-w-full ${inputMode !== 'text' ? 'num font-mono' : ''} ${INPUT_CLASS} read-only:bg-rule/30`}
         />
         {unit ? <span className="text-sm text-muted">{unit}</span> : null}
       </div>

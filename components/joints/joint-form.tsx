@@ -139,7 +139,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
 
       <Section title="Target stud load">
         {hasRuns ? <p className="text-sm text-muted">A new target applies to new runs only: the {joint?.runCount} runs already recorded keep the target they were recorded with.</p> : null}
-        <fieldset className="flex flex-wrap gap-4">
+        <fieldset className="flex min-w-0 flex-wrap gap-4">
           <legend className="mb-1 text-sm font-medium text-ink">Set the target as</legend>
           {([['load', 'Stud load'], ['percentOfYield', '% of yield'], ['stress', 'Stud stress']] as const).map(([value, label]) => (
             <label key={value} className="flex items-center gap-2 text-sm text-ink">
@@ -187,7 +187,7 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
         ) : (
           <div className="flex flex-wrap items-start gap-6">
             <FlangeDiagram studCount={shownCount} />
-            <div className="max-h-96 flex-1 overflow-y-auto rounded border border-rule">
+            <div className="relative max-h-96 min-w-[min(100%,24rem)] flex-1 overflow-auto rounded border border-rule">
               <table className="w-full text-sm">
                 <thead className="sticky top-0 bg-panel text-left text-muted">
                   <tr><th className="px-2 py-1.5">Position</th><th className="px-2 py-1.5">Logger channel</th><th className="px-2 py-1.5">Gauge calibration factor</th><th className="px-2 py-1.5">Note</th></tr>

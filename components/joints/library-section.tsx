@@ -30,7 +30,7 @@ export function LibrarySection({
       {empty ? (
         <div className="mt-3"><EmptyState title={empty.title}>{empty.text}</EmptyState></div>
       ) : (
-        <div className="mt-3 overflow-x-auto">
+        <div className="mt-3 relative overflow-x-auto">
           <table className="w-full text-sm">
             <thead className="bg-rule/40 text-left">
               <tr>

@@ -82,7 +82,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
       <div className="flex flex-wrap items-end gap-4">
         <label className="text-sm">
           <span className="block font-medium">Unit on the display</span>
-          <select value={unit} onChange={(e) => setUnit(e.target.value as ManualUnit)} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
+          <select value={unit} onChange={(e) => setUnit(e.target.value as ManualUnit)} className="mt-1 max-w-full rounded-md border border-rule bg-paper px-2 py-1.5">
             {MANUAL_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
           </select>
         </label>
@@ -98,7 +98,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
           </p>
         ) : <p className="text-muted">Mean and CV appear here as soon as one row is complete.</p>}
       </div>
-      <div className="max-h-[32rem] overflow-auto rounded-md border border-rule">
+      <div className="relative max-h-[32rem] overflow-auto rounded-md border border-rule">
         <table className="text-sm">
           <thead className="sticky top-0 z-10 bg-panel">
             <tr>

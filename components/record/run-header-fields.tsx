@@ -42,7 +42,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
     onChange(next);
   };
   const field = (key: keyof HeaderState, label: string, control: React.ReactNode) => (
-    <label className="text-sm">
+    <label className="min-w-0 text-sm">
       <span id={`header-${key}-label`} className="block font-medium">{label}</span>
       {control}
       <span aria-live="polite" id={`header-${key}-error`} className="block text-danger">
@@ -61,7 +61,7 @@ export function RunHeaderFields({ options, value, onChange, errors }: { options:
     </select>
   );
   return (
-    <fieldset className="grid gap-3 rounded-card border border-rule bg-panel p-4 sm:grid-cols-2 lg:grid-cols-4">
+    <fieldset className="grid min-w-0 gap-3 rounded-card border border-rule bg-panel p-4 sm:grid-cols-2 lg:grid-cols-4">
       <legend className="px-1 text-sm font-semibold">Run header</legend>
       {field('jointId', 'Joint', select('jointId', options.joints.map((j) => ({ id: j.id, name: `${j.name} (${j.studCount} studs)` }))))}
       {field('methodId', 'Method', select('methodId', options.methods))}

@@ -43,7 +43,7 @@ export function SimulatePanel({ header, onHeaderErrors }: { header: HeaderState;
       <div className="flex flex-wrap items-end gap-4">
         <label className="text-sm" htmlFor="simulate-gasket">
           <span className="block font-medium">Gasket</span>
-          <select id="simulate-gasket" value={gasket} onChange={(e) => setGasket(e.target.value as typeof gasket)} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
+          <select id="simulate-gasket" value={gasket} onChange={(e) => setGasket(e.target.value as typeof gasket)} className="mt-1 max-w-full rounded-md border border-rule bg-paper px-2 py-1.5">
             {GASKETS.map((g) => <option key={g.value} value={g.value}>{g.label}</option>)}
           </select>
         </label>

@@ -56,7 +56,7 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
           {recordings.length || watching ? (
             <label className="text-sm">
               Watching{' '}
-              <select value={watching ?? ''} onChange={(e) => setWatching(e.target.value ? Number(e.target.value) : null)} className="rounded-md border border-rule bg-paper px-2 py-1.5">
+              <select value={watching ?? ''} onChange={(e) => setWatching(e.target.value ? Number(e.target.value) : null)} className="max-w-full rounded-md border border-rule bg-paper px-2 py-1.5">
                 {watching && !recordings.some((r) => r.id === watching) ? <option value={watching}>Run {watching}</option> : null}
                 {recordings.map((r) => <option key={r.id} value={r.id}>Run {r.id} · {formatDateTime(r.recordedAt)}</option>)}
               </select>
@@ -127,9 +127,9 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
       <h2 id="tokens-title" className="font-semibold">Bridge tokens</h2>
       <p className="text-sm text-muted">A token lets one bridge post readings for one joint (sent as <code>Authorization: Bearer …</code>). Revoke it when a bridge is retired or the token has leaked.</p>
       <form action={createAction} className="flex flex-wrap items-end gap-3">
-        <label className="text-sm">
+        <label className="min-w-0 max-w-full text-sm">
           <span className="block">Joint</span>
-          <select name="jointId" defaultValue={joint.id} className="mt-1 rounded-md border border-rule bg-paper px-2 py-1.5">
+          <select name="jointId" defaultValue={joint.id} className="mt-1 max-w-full rounded-md border border-rule bg-paper px-2 py-1.5">
             {joints.map((j) => <option key={j.id} value={j.id}>{j.name}</option>)}
           </select>
         </label>
@@ -147,6 +147,7 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
         </div>
       ) : null}
       {tokens.length ? (
+        <div className="relative overflow-x-auto">
         <table className="w-full text-sm">
           <thead className="text-left text-muted"><tr><th className="py-1">Name</th><th>Joint</th><th>Created</th><th>Last used</th><th /></tr></thead>
           <tbody>
@@ -162,6 +163,7 @@ function TokenManager({ joint, joints, tokens }: { joint: RecordJoint; joints: R
             ))}
           </tbody>
         </table>
+        </div>
       ) : <p className="text-sm text-muted">No tokens yet: create one above and give it to the bridge.</p>}
       <p aria-live="polite" className="text-sm">{revokeState.message ? <span className={revokeState.status === 'ok' ? 'text-good' : 'text-danger'}>{revokeState.message}</span> : null}</p>
     </section>

@@ -18,7 +18,7 @@ export function PreviewTable({ headers, rows, mapping }: { headers: string[]; ro
   return (
     <section aria-labelledby="preview-title" className="space-y-1">
       <h2 id="preview-title" className="font-semibold">First rows</h2>
-      <div className="overflow-x-auto rounded-md border border-rule">
+      <div className="relative overflow-x-auto rounded-md border border-rule">
         <table className="w-full text-sm">
           <thead className="bg-paper text-left">
             <tr><th className="px-2 py-1 text-muted">Line</th>{headers.map((h, i) => <th key={`${h}-${i}`} className="px-2 py-1 font-medium">{h}<span className="block text-xs font-normal text-muted">{roleOf(h, mapping)}</span></th>)}</tr>
@@ -64,7 +64,7 @@ export function DerivedSteps({ derived, units, confirmed, onConfirmed }: { deriv
     <section aria-labelledby="derived-title" className="space-y-2">
       <h2 id="derived-title" className="font-semibold">Steps found in the loads ({derived.length})</h2>
       <p className="text-sm text-muted">The file has no step marker, so each time one stud&rsquo;s load rose clearly while the others did not, that is taken as a step on that stud. Check them before saving.</p>
-      <div className="max-h-72 overflow-auto rounded-md border border-rule">
+      <div className="relative max-h-72 overflow-auto rounded-md border border-rule">
         <table className="w-full text-sm">
           <thead className="sticky top-0 bg-panel text-left"><tr><th className="px-2 py-1">Step</th><th className="px-2 py-1">Pass</th><th className="px-2 py-1">Stud</th><th className="px-2 py-1">Lines</th><th className="px-2 py-1">Time</th><th className="px-2 py-1">Rise</th></tr></thead>
           <tbody>

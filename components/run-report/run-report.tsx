@@ -117,7 +117,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
 
       <section aria-labelledby="final-table-heading" className="rounded-card border border-rule bg-panel p-4">
         <h2 id="final-table-heading" className="text-lg font-semibold">Final loads by stud</h2>
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <table className="mt-2 w-full text-sm">
             <thead className="text-left text-muted">
               <tr><th className="py-1">Position</th><th className="px-3 text-right">Final load</th><th className="px-3 text-right">% of target</th><th className="px-3 text-right">Drift since last tightened</th><th className="px-3">Band</th></tr>

@@ -77,7 +77,7 @@ export function RunsFilters({ params, options, onChange }: { params: URLSearchPa
       <form id="runs-filters" onSubmit={(e) => e.preventDefault()} aria-label="Filters"
         className={`${open ? 'grid' : 'hidden'} gap-3 rounded-card border border-rule bg-panel p-3 sm:grid sm:grid-cols-3 lg:grid-cols-8`}>
         {SELECTS.map((filter) => (
-          <label key={filter.key} className="text-sm">
+          <label key={filter.key} className="min-w-0 text-sm">
             <span className="block text-muted">{filter.label}</span>
             <select value={params.get(filter.key) ?? ''} onChange={(e) => onChange({ [filter.key]: e.target.value })} className={field}>
               <option value="">All</option>
@@ -85,7 +85,7 @@ export function RunsFilters({ params, options, onChange }: { params: URLSearchPa
             </select>
           </label>
         ))}
-        <label className="text-sm">
+        <label className="min-w-0 text-sm">
           <span className="block text-muted">Status</span>
           <select value={params.get('status') ?? ''} onChange={(e) => onChange({ status: e.target.value })} className={field}>
             <option value="">All</option>
@@ -93,7 +93,7 @@ export function RunsFilters({ params, options, onChange }: { params: URLSearchPa
           </select>
         </label>
         {DATES.map((date) => (
-          <label key={date.key} className="text-sm">
+          <label key={date.key} className="min-w-0 text-sm">
             <span className="block text-muted">{date.label}</span>
             <input type="date" value={params.get(date.key) ?? ''} onChange={(e) => onChange({ [date.key]: e.target.value })} className={field} />
           </label>

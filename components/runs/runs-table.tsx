@@ -55,8 +55,8 @@ export function RunsTable({ options, units }: { options: RunFilterOptions; units
         {data ? <p className="text-muted">{data.total} run{data.total === 1 ? '' : 's'}{isLoading ? ' · updating…' : ''}</p> : isLoading ? <p className="text-muted">Loading runs…</p> : null}
       </div>
 
-      <div className="overflow-x-auto rounded-card border border-rule bg-panel">
-        <table className="w-full text-sm">
+      <div className="relative overflow-x-auto rounded-card border border-rule bg-panel">
+        <table className="w-full min-w-[42rem] text-sm">
           <thead className="bg-rule/40 text-left">
             <tr>
               <th aria-sort={ariaSort('recordedAt')} className="px-3 py-2"><SortButton label="Recorded" active={sort === 'recordedAt'} dir={dir} onClick={() => sortBy('recordedAt')} /></th>

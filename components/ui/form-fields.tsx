@@ -35,7 +35,7 @@ export function SelectField({
   errors,
   children,
   hint,
-  className = 'max-w-md',
+  className = 'max-w-[min(28rem,100%)]',
 }: {
   label: string;
   name?: string;
@@ -49,7 +49,7 @@ export function SelectField({
   const id = useId();
   const invalid = typeof errors === 'string' ? errors.length > 0 : Boolean(errors?.length);
   return (
-    <div className="flex flex-col gap-1">
+    <div className="flex min-w-0 max-w-full flex-col gap-1">
       <FieldLabel htmlFor={id} label={label} />
       <select
         id={id}

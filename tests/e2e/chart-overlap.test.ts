@@ -184,14 +184,11 @@ const CASES: { name: string; role: keyof typeof DEMO_ACCOUNTS; charts: number; o
     charts: 2,
     open: async (page) => {
       await page.goto(`${server.baseUrl}/classroom`);
-      // A click before the page has hydrated does nothing: click again until the scene shows.
-      const start = page.locator('li', { hasText: 'One pass or several' }).getByRole('button', { name: 'Start here' });
-      await expect
-        .poll(async () => {
-          if (await start.isVisible()) await start.click();
-          return page.getByTestId('side-status').count();
-        }, { timeout: 90_000, interval: 2_000 })
-        .toBeGreaterThan(0);
+      // A click before React has hydrated the picker does nothing; the layer says when it has (data-hydrated,
+      // set in an effect), and then one click starts the scene.
+      await page.locator('[data-testid="classroom-root"][data-hydrated="true"]').waitFor({ timeout: 60_000 });
+      await page.locator('li', { hasText: 'One pass or several' }).getByRole('button', { name: 'Start here' }).click();
+      await page.getByTestId('side-status').first().waitFor();
       for (let i = 0; i < 6; i += 1) await page.keyboard.press('Space');
       await page.getByText('step 6 of').waitFor();
     },

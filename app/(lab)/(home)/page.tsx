@@ -46,7 +46,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="cohorts-heading">
             <h2 id="cohorts-heading" className="font-semibold">Your cohorts</h2>
-            <div className="overflow-x-auto">
+            <div className="relative overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1 pr-3">Cohort</th><th className="pr-3">Site</th><th className="pr-3">Dates</th><th className="pr-3 text-right">Trainees</th><th className="text-right">Runs</th></tr></thead>
               <tbody className="num">
@@ -75,7 +75,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="by-method">
             <h2 id="by-method" className="font-semibold">Scatter by method (complete runs)</h2>
-            <div className="overflow-x-auto">
+            <div className="relative overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Method</th><th className="text-right">Runs</th><th className="text-right">Mean CV of final loads</th></tr></thead>
               <tbody className="num">
@@ -112,7 +112,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           </div>
           <section className="rounded-card border border-rule bg-panel p-4" aria-labelledby="accounts">
             <h2 id="accounts" className="font-semibold">Newest accounts</h2>
-            <div className="overflow-x-auto">
+            <div className="relative overflow-x-auto">
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-muted"><tr><th className="py-1">Name</th><th>E-mail</th><th>Role</th><th>Created</th></tr></thead>
               <tbody>

@@ -23,7 +23,8 @@ export default async function CohortsPage() {
         {cohorts.length === 0 ? (
           <div className="mt-3"><EmptyState title="No cohorts yet">Create one below: a course name, its site and its dates.</EmptyState></div>
         ) : (
-          <table className="mt-2 w-full text-sm">
+          <div className="mt-2 relative overflow-x-auto">
+          <table className="w-full text-sm">
             <thead className="text-left text-muted">
               <tr><th className="py-1">Course</th><th>Site</th><th>Dates</th>{user.role === 'admin' ? <th>Instructor</th> : null}<th className="text-right">Trainees</th><th className="text-right">Runs</th><th className="text-right">Signed off</th></tr>
             </thead>
@@ -41,6 +42,7 @@ export default async function CohortsPage() {
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </section>
       <section aria-labelledby="new-cohort" className="rounded-card border border-rule bg-panel p-4">

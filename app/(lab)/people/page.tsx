@@ -21,7 +21,8 @@ export default async function PeoplePage() {
           <a href="/api/admin/audit-log" download className="underline underline-offset-4">Download the audit log (CSV)</a>: every change to runs, verdicts, criteria and accounts, with who, when, the reason, and the values before and after.
         </p>
       </div>
-      <table className="w-full rounded-card border border-rule bg-panel text-sm">
+      <div className="relative overflow-x-auto rounded-card border border-rule bg-panel">
+      <table className="w-full min-w-[52rem] text-sm">
         <thead className="text-left text-muted">
           <tr><th className="px-3 py-2">Name</th><th>E-mail</th><th>Role</th><th>Status</th><th>Since</th><th>Change</th></tr>
         </thead>
@@ -38,6 +39,7 @@ export default async function PeoplePage() {
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

@@ -55,7 +55,8 @@ export default async function ProgressPage() {
               <strong className="num">{progress.runs.filter((r) => r.kind !== 'assessed').length}</strong> practice or simulated runs. Only assessed attempts count towards your course outcome.
             </p>
             <ProgressChart points={progress.runs.map((r) => ({ attempt: r.attempt, cvPercent: r.cvPercent, largestDeviationPercent: r.largestDeviationPercent }))} cvLimit={limit('cv')} bandLimit={limit('band')} />
-            <table className="mt-3 w-full text-sm">
+            <div className="mt-3 relative overflow-x-auto">
+            <table className="w-full min-w-[36rem] text-sm">
               <caption className="text-left text-xs text-muted">The chart&apos;s figures as a table.</caption>
               <thead className="text-left text-muted">
                 <tr><th className="py-1">Attempt</th><th>Recorded</th><th>Method</th><th className="text-right">CV of final loads</th><th className="text-right">Largest deviation from target</th><th className="pl-3">Counts as</th><th className="pl-3">Verdict</th></tr>
@@ -74,6 +75,7 @@ export default async function ProgressPage() {
                 ))}
               </tbody>
             </table>
+            </div>
           </section>
 
           <section aria-labelledby="now-heading" className="rounded-card border border-rule bg-panel p-4">

@@ -28,6 +28,7 @@ export default async function CohortSheetPage({ params }: { params: Promise<{ id
         <p className="text-sm">{cohort.site} · {formatDate(cohort.startsOn)} – {formatDate(cohort.endsOn)} · instructor {cohort.instructorName}</p>
         <p className="text-sm">Criteria: every final load within ±{c.bandPercent}&nbsp;% of target; CV at most {c.maxCvPercent}&nbsp;%;{c.requirePattern ? ' the prescribed pattern followed;' : ''} no stud above {c.maxYieldPercent}&nbsp;% of its minimum yield load.</p>
       </header>
+      <div className="relative overflow-x-auto print:overflow-visible">
       <table className="w-full border-collapse text-sm">
         <thead className="text-left">
           <tr className="border-b border-rule"><th className="py-1">Trainee</th><th className="text-right">Assessed attempts</th><th className="text-right">Practice runs</th><th className="text-right">Latest CV</th><th className="text-right">Criteria met (latest)</th><th className="text-right">Runs signed off</th><th className="text-right">Of those, all met</th></tr>
@@ -49,6 +50,7 @@ export default async function CohortSheetPage({ params }: { params: Promise<{ id
           })}
         </tbody>
       </table>
+      </div>
       <p className="text-xs text-muted">Assessed attempts are runs the instructor recorded or confirmed as witnessed; practice runs were recorded by the trainee; simulated runs never count. Training results on an instrumented training joint; the approved procedure, local codes and qualified engineering judgement govern every real joint.</p>
       <PrintSignature roles={['Instructor']} />
     </article>
