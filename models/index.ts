@@ -22,6 +22,8 @@ import { StreamToken } from './stream-token';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
+import { CourseOutcome } from './course-outcome';
+import { TrainingRecord } from './training-record';
 import { User } from './user';
 import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
@@ -54,6 +56,8 @@ export const MODELS = [
   AuditEntry,
   SavedComparison,
   UserPreference,
+  CourseOutcome,
+  TrainingRecord,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -110,4 +114,6 @@ export {
   User,
   UserSession,
   UserPreference,
+  CourseOutcome,
+  TrainingRecord,
 };
