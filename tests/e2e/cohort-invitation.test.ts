@@ -229,16 +229,6 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await visit.goto(`${server.baseUrl}/verify/ZZZZZZZZZZZZZZZZ`);
     await visit.getByText('No record with this code.').waitFor();
 
-    // The trainee finds it on Progress with the refresher date and downloads it.
-    const own = await signedInPage(browser, server.baseUrl, { email: traineeEmail, password: 'tight in three passes' }, { viewport: { width: 1280, height: 900 } });
-    await own.goto(`${server.baseUrl}/progress`);
-    await own.getByRole('heading', { name: 'Your records of training' }).waitFor();
-    await own.getByText('Refresher due by').waitFor();
-    const download = await own.request.get(`${server.baseUrl}/api/training-records/${record!.id}/pdf`);
-    expect(download.status()).toBe(200);
-    expect(execFileSync('pdftotext', ['-', '-'], { input: await download.body(), encoding: 'utf8' })).toContain('Ilse Marrow');
-    await own.context().close();
-
     const reason = page.getByLabel('Reason for revoking');
     await reason.fill('Issued to the wrong cohort');
     await page.getByRole('button', { name: 'Revoke', exact: true }).click();
@@ -247,6 +237,16 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await visit.getByText('Status: Revoked').waitFor();
     await visit.screenshot({ path: screenshotPath('verify-page-revoked'), fullPage: true });
     await stranger.close();
+    // The trainee still finds it on Progress, marked revoked, and can download it.
+    const own = await signedInPage(browser, server.baseUrl, { email: traineeEmail, password: 'tight in three passes' }, { viewport: { width: 1280, height: 900 } });
+    await own.goto(`${server.baseUrl}/progress`);
+    await own.getByRole('heading', { name: 'Your records of training' }).waitFor();
+    await own.getByText('Revoked', { exact: true }).first().waitFor();
+    const download = await own.request.get(`${server.baseUrl}/api/training-records/${record!.id}/pdf`);
+    expect(download.status()).toBe(200);
+    expect(execFileSync('pdftotext', ['-', '-'], { input: await download.body(), encoding: 'utf8' })).toContain('Ilse Marrow');
+    await own.context().close();
+
     await page.close();
   });
 
