@@ -8,6 +8,8 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
   declare startsOn: string;
   declare endsOn: string;
   declare instructorId: ForeignKey<User['id']>;
+  /** How long a record of training from this cohort is valid (36 months unless the centre sets its own). */
+  declare recordValidityMonths: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -20,6 +22,7 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
         startsOn: { type: DataTypes.DATEONLY, allowNull: false },
         endsOn: { type: DataTypes.DATEONLY, allowNull: false },
         instructorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        recordValidityMonths: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 36 },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
       },

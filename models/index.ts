@@ -34,6 +34,8 @@ import { StreamToken } from './stream-token';
 import { TighteningStep } from './tightening-step';
 import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
+import { CourseOutcome } from './course-outcome';
+import { TrainingRecord } from './training-record';
 import { User } from './user';
 import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
@@ -75,6 +77,8 @@ export const MODELS = [
   Equipment,
   RunTool,
   RunAnalysisRow,
+  CourseOutcome,
+  TrainingRecord,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -149,4 +153,6 @@ export {
   RunFigureHistory,
   Equipment,
   RunTool,
+  CourseOutcome,
+  TrainingRecord,
 };

@@ -66,3 +66,17 @@ evenload_stop_services_on_exit() {
     trap 'evenload_mail_fake_stop; bash scripts/db.sh stop >/dev/null 2>&1 || true' EXIT
   fi
 }
+
+# Records of training embed DejaVu Sans (Debian's fonts-dejavu-core); the tests also read PDFs back
+# with poppler-utils (pdftotext, pdftoppm). Each is installed when missing.
+evenload_ensure_debian_packages() {
+  local missing=()
+  for pair in "$@"; do
+    [ -e "${pair%%=*}" ] || missing+=("${pair#*=}")
+  done
+  [ "${#missing[@]}" -eq 0 ] && return 0
+  evenload_log "installing Debian's ${missing[*]}"
+  export DEBIAN_FRONTEND=noninteractive
+  apt-get update -qq
+  apt-get install -y -qq "${missing[@]}" >/dev/null
+}

@@ -5,6 +5,7 @@ set -euo pipefail
 source "$(dirname "$0")/setup.sh"
 evenload_setup
 npx tsx scripts/migrate.ts seed >&2
+evenload_ensure_debian_packages /usr/share/fonts/truetype/dejavu/DejaVuSans-Bold.ttf=fonts-dejavu-core
 if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib models proxy.ts instrumentation-client.ts next.config.mjs tailwind.config.ts -newer .next/BUILD_ID -print -quit 2>/dev/null)" ]; then
   evenload_log "building the app"
   npx next build

@@ -36,6 +36,9 @@ if ! /usr/bin/python3 -c 'import numpy, scipy, statsmodels' >/dev/null 2>&1; the
   apt-get install -y -qq python3 python3-numpy python3-scipy python3-statsmodels >/dev/null
 fi
 
+# Records of training embed DejaVu Sans; their tests read the PDF back with pdftotext and render it with pdftoppm.
+evenload_ensure_debian_packages /usr/share/fonts/truetype/dejavu/DejaVuSans-Bold.ttf=fonts-dejavu-core /usr/bin/pdftotext=poppler-utils
+
 if [ "${EVENLOAD_SKIP_BUILD:-0}" != "1" ]; then
   evenload_log "building the app for the end-to-end tests (next build also type-checks the whole project)"
   npx next build >&2

@@ -13,6 +13,10 @@ const ACTION_LABELS: Record<string, string> = {
   deactivate: 'Deactivated',
   reactivate: 'Reactivated',
   end_sessions: 'Signed out everywhere',
+  issue: 'Record of training issued',
+  revoke: 'Record of training revoked',
+  replace: 'Replaced by a reissued record',
+  record_validity: 'Validity of records changed',
 };
 
 /** What changed between before and after, as "field: old → new" lines (only fields that differ). */

@@ -26,7 +26,7 @@ let warnedNoClientAddress = false;
  * X-Forwarded-For. Started another way (plain `next start`), production has no trustworthy address,
  * so every client shares one and the per-account limits still hold; `next dev` uses Next's header.
  */
-function clientAddress(headers: Record<string, unknown> | undefined): string {
+export function clientAddress(headers: Record<string, unknown> | undefined): string {
   const resolved = headers?.[CLIENT_ADDRESS_HEADER];
   if (typeof resolved === 'string' && resolved) return resolved;
   if (env.NODE_ENV !== 'production') {

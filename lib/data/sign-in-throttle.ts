@@ -51,8 +51,11 @@ export async function recordFailure(keys: string[], now = new Date()): Promise<v
   await countEvents(keys.map((key) => ({ key, lockAfter: (failures: number) => (failures >= genericLimit(key) ? new Date(now.getTime() + SIGN_IN_LIMIT.lockMs) : null) })), now);
 }
 
-/** One more event on each key inside one transaction; a key's window restarts once it has passed. */
-async function countEvents(counters: Array<{ key: string; lockAfter: (failures: number) => Date | null }>, now: Date): Promise<void> {
+/**
+ * One more event on each key inside one transaction; a key's window restarts once it has passed.
+ * Also the counter of other per-address limits (the public verify page, lib/data/qualification/verify-record.ts).
+ */
+export async function countEvents(counters: Array<{ key: string; lockAfter: (failures: number) => Date | null }>, now: Date): Promise<void> {
   await sequelize.transaction(async (transaction) => {
     for (const { key, lockAfter } of counters) {
       const row = await SignInAttempt.findByPk(key, { transaction, lock: transaction.LOCK.UPDATE });

@@ -24,6 +24,8 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/runs/[id]', method: 'GET', path: '/api/runs/{springRun}', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
   { route: '/api/runs/[id]/analysis', method: 'GET', path: '/api/runs/{springRun}/analysis', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
   { route: '/api/runs/[id]/export', method: 'GET', path: '/api/runs/{springRun}/export', expect: { anonymous: 401, admin: 200, instructor: 200, researcher: 200, trainee: 404 } },
+  // No record has this id: the roles that may download records get 404, researchers 403.
+  { route: '/api/training-records/[id]/pdf', method: 'GET', path: '/api/training-records/999999999/pdf', expect: { anonymous: 401, admin: 404, instructor: 404, researcher: 403, trainee: 404 } },
   { route: '/api/admin/audit-log', method: 'GET', path: '/api/admin/audit-log', expect: { anonymous: 401, admin: 200, instructor: 403, researcher: 403, trainee: 403 } },
   { route: '/api/compare', method: 'GET', path: '/api/compare?by=method', expect: { anonymous: 401, admin: 403, instructor: 200, researcher: 200, trainee: 403 } },
   // A saved comparison no one has: 404 for the roles of Compare (we do not reveal whether it exists).

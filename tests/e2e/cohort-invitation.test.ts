@@ -1,3 +1,5 @@
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
@@ -52,6 +54,7 @@ afterAll(async () => {
   await browser?.close();
   if (cohortId) {
     await sequelize.query('DELETE FROM runs WHERE cohort_id = ?', { replacements: [cohortId] });
+    await sequelize.query("DELETE FROM sign_in_attempts WHERE attempt_key LIKE 'verify:%'");
     await sequelize.query('DELETE FROM cohorts WHERE id = ?', { replacements: [cohortId] });
   }
   await sequelize.query('DELETE FROM users WHERE email = ?', { replacements: [traineeEmail] });
@@ -184,6 +187,67 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await page.getByText('Stud 5 ended high').waitFor();
     await page.screenshot({ path: screenshotPath('cohort-progress'), fullPage: true });
     await page.context().close();
+  });
+
+  it('the instructor decides a pass and issues the record of training; a stranger checks it by its code; revoked shows "revoked"', async () => {
+    const [trainee] = await sequelize.query<{ id: number }>('SELECT id FROM users WHERE email = ?', { type: QueryTypes.SELECT, replacements: [traineeEmail] });
+    const page = await instructorContext.newPage();
+    await page.goto(`${server.baseUrl}/cohorts/${cohortId}/trainees/${trainee!.id}`);
+    await page.getByRole('heading', { name: 'Course outcome' }).waitFor();
+    expect(await page.getByRole('button', { name: 'Issue the record of training' }).count(), 'no record before a pass').toBe(0);
+    await page.getByLabel('Pass', { exact: true }).check();
+    await page.getByLabel('Hand torque').check();
+    await page.getByRole('button', { name: 'Save the decision' }).click();
+    await page.getByRole('button', { name: 'Issue the record of training' }).click({ timeout: 15_000 });
+    // The issue button gives way to the record itself (code, dates, downloads) once it is issued.
+    await expect.poll(() => count('SELECT COUNT(*) AS n FROM training_records WHERE cohort_id = ?', [cohortId]), { timeout: 15_000 }).toBe(1);
+    const [record] = await sequelize.query<{ id: number; code: string; issued_on: string; valid_until: string }>(
+      'SELECT id, code, issued_on, valid_until FROM training_records WHERE cohort_id = ? AND user_id = ?', { type: QueryTypes.SELECT, replacements: [cohortId, trainee!.id] },
+    );
+    expect(record, 'one record stored').toBeTruthy();
+    await page.getByText(record!.code.match(/.{4}/g)!.join('-')).first().waitFor({ timeout: 15_000 });
+    await page.screenshot({ path: screenshotPath('record-of-training-sheet'), fullPage: true });
+
+    // The PDF as the instructor downloads it, read back and rendered with Debian's poppler-utils.
+    const pdf = await page.request.get(`${server.baseUrl}/api/training-records/${record!.id}/pdf?paper=a4`);
+    expect(pdf.headers()['content-type']).toBe('application/pdf');
+    const pdfFile = screenshotPath('record-pdf').replace(/\.png$/, '.pdf');
+    writeFileSync(pdfFile, await pdf.body());
+    const text = execFileSync('pdftotext', ['-layout', pdfFile, '-'], { encoding: 'utf8' });
+    for (const expected of ['Ilse Marrow', cohortName, 'Hand torque', record!.code.match(/.{4}/g)!.join('-'), `/verify/${record!.code}`]) expect(text).toContain(expected);
+    execFileSync('pdftoppm', ['-png', '-r', '60', '-singlefile', pdfFile, screenshotPath('record-pdf').replace(/\.png$/, '')]);
+
+    // A stranger: no cookies at all.
+    const stranger = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const visit = await stranger.newPage();
+    await visit.goto(`${server.baseUrl}/verify/${record!.code}`);
+    await visit.getByText('Status: Valid').waitFor();
+    for (const shown of ['Ilse Marrow', cohortName, 'Hand torque']) await visit.getByText(shown, { exact: true }).waitFor();
+    expect(await visit.getByText('Brackwater Bolting School').count(), 'the site is not shown').toBe(0);
+    expect(await visit.getByText(traineeEmail).count(), 'no e-mail address').toBe(0);
+    await visit.screenshot({ path: screenshotPath('verify-page'), fullPage: true });
+    await visit.goto(`${server.baseUrl}/verify/ZZZZZZZZZZZZZZZZ`);
+    await visit.getByText('No record with this code.').waitFor();
+
+    const reason = page.getByLabel('Reason for revoking');
+    await reason.fill('Issued to the wrong cohort');
+    await page.getByRole('button', { name: 'Revoke', exact: true }).click();
+    await expect.poll(() => count('SELECT COUNT(*) AS n FROM training_records WHERE id = ? AND revoked_at IS NOT NULL', [record!.id]), { timeout: 15_000 }).toBe(1);
+    await visit.goto(`${server.baseUrl}/verify/${record!.code}`);
+    await visit.getByText('Status: Revoked').waitFor();
+    await visit.screenshot({ path: screenshotPath('verify-page-revoked'), fullPage: true });
+    await stranger.close();
+    // The trainee still finds it on Progress, marked revoked, and can download it.
+    const own = await signedInPage(browser, server.baseUrl, { email: traineeEmail, password: 'tight in three passes' }, { viewport: { width: 1280, height: 900 } });
+    await own.goto(`${server.baseUrl}/progress`);
+    await own.getByRole('heading', { name: 'Your records of training' }).waitFor();
+    await own.getByText('Revoked', { exact: true }).first().waitFor();
+    const download = await own.request.get(`${server.baseUrl}/api/training-records/${record!.id}/pdf`);
+    expect(download.status()).toBe(200);
+    expect(execFileSync('pdftotext', ['-', '-'], { input: await download.body(), encoding: 'utf8' })).toContain('Ilse Marrow');
+    await own.context().close();
+
+    await page.close();
   });
 
   it('hides the development outbox in a production build without EVENLOAD_OUTBOX=1', async () => {

@@ -34,7 +34,7 @@ const header = async (jointId: number) => ({
 const MICROSTRAIN = readFileSync('tests/ingest/good/microstrain.csv', 'utf8');
 async function upload(jointId: number, label: string): Promise<number> {
   const bytes = new TextEncoder().encode(MICROSTRAIN.replace('# Invented', `# ${TAG} ${label}. Invented`));
-  return (await storeUploadedRun(instructor, { bytes, fileName: `${label}.csv`, contentType: 'text/csv', mapping: null, header: await header(jointId) })).runId;
+  return (await storeUploadedRun(instructor, { bytes, fileName: `${label}.csv`, contentType: 'text/csv', mapping: null, acceptGuess: false, header: await header(jointId) })).runId;
 }
 const finalLoads = async (runId: number) => JSON.parse(String((await sequelize.query<{ final_loads_json: string }>('SELECT final_loads_json FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [runId] }))[0]!.final_loads_json)) as number[];
 

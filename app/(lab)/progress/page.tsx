@@ -4,8 +4,10 @@ import { ProgressChart } from '@/components/charts/progress-chart';
 import { CautionBlock } from '@/components/caution-block';
 import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { EmptyState } from '@/components/ui/empty-state';
+import { MyRecordsSection } from '@/components/qualification/my-records-section';
 import { formatPercent } from '@/lib/calc/units';
 import { traineeProgress } from '@/lib/data/progress';
+import { myTrainingRecords } from '@/lib/data/qualification/training-records';
 import { formatDateTime } from '@/lib/format/format-date';
 import { requirePageUser } from '@/lib/auth/session';
 
@@ -18,6 +20,7 @@ const pct = (value: number | null) => (value === null ? '—' : formatPercent(va
 export default async function ProgressPage() {
   const user = await requirePageUser(['trainee']);
   const progress = await traineeProgress(user);
+  const records = await myTrainingRecords(user);
   const limit = (key: 'cv' | 'band') => progress.latest?.results.find((r) => r.key === key)?.limit ?? null;
   return (
     <div className="space-y-6">
@@ -25,6 +28,8 @@ export default async function ProgressPage() {
         <h1 className="text-2xl font-semibold">Your progress</h1>
         <p className="text-sm text-muted">Your complete runs in order, how even their final loads were, and what your instructor said.</p>
       </div>
+
+      <MyRecordsSection records={records} />
 
       <section aria-labelledby="evenness" className="grid gap-4 lg:grid-cols-[2fr_1fr]">
         <div className="rounded-card border border-rule bg-panel p-4 text-sm">

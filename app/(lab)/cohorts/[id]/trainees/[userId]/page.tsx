@@ -4,7 +4,9 @@ import { notFound } from 'next/navigation';
 import { CriterionTable } from '@/components/cohorts/criterion-figures';
 import { PrintButton } from '@/components/ui/print-button';
 import { PrintHeader, PrintSignature } from '@/components/ui/print-signature';
+import { RecordOfTrainingSection } from '@/components/qualification/record-of-training-section';
 import { cohortDetail } from '@/lib/data/cohorts';
+import { traineeQualification } from '@/lib/data/qualification/training-records';
 import { orNotFound } from '@/lib/data/page-guards';
 import { formatDate, formatDateTime } from '@/lib/format/format-date';
 import { requirePageUser } from '@/lib/auth/session';
@@ -18,6 +20,7 @@ export default async function TraineeSheetPage({ params }: { params: Promise<{ i
   const cohort = await orNotFound(() => cohortDetail(user, Number(id)));
   const member = cohort.members.find((m) => m.id === Number(userId));
   if (!member) notFound();
+  const qualification = await traineeQualification(user, cohort.id, member.id);
   const complete = cohort.runs.filter((r) => r.operatorId === member.id && r.status === 'complete');
   const runs = complete.filter((r) => r.attemptKind === 'assessed');
   const practice = complete.filter((r) => r.attemptKind !== 'assessed');
@@ -56,6 +59,7 @@ export default async function TraineeSheetPage({ params }: { params: Promise<{ i
           </ul>
         </section>
       ) : null}
+      <RecordOfTrainingSection cohortId={cohort.id} traineeId={member.id} qualification={qualification} />
       <PrintSignature roles={['Trainee', 'Instructor']} />
       <p className="text-xs text-muted">Training results on an instrumented training joint; the approved procedure, local codes and qualified engineering judgement govern every real joint.</p>
     </article>

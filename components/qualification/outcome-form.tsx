@@ -1,0 +1,60 @@
+'use client';
+
+import { useActionState } from 'react';
+import { decideOutcomeAction, recordValidityAction } from '@/app/(lab)/cohorts/[id]/trainees/[userId]/actions';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
+import { DEFAULT_SCOPES } from '@/lib/qualification/training-record';
+import { keepValuesSubmit } from '../ui/keep-values-submit';
+import { FieldError } from '../ui/field-error';
+import { FormMessage } from '../ui/form-message';
+
+interface OutcomeFormProps {
+  cohortId: number;
+  traineeId: number;
+  outcome: { decision: 'pass' | 'not_yet'; scopes: string[]; version: number } | null;
+}
+
+/** The decision (pass or not yet) and the scopes it covers. */
+export function OutcomeForm({ cohortId, traineeId, outcome }: OutcomeFormProps) {
+  const [state, action, pending] = useActionState(decideOutcomeAction.bind(null, cohortId, traineeId), IDLE_FORM_STATE);
+  const scopes = [...new Set([...DEFAULT_SCOPES, ...(outcome?.scopes ?? [])])];
+  return (
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="space-y-2" noValidate>
+      <input type="hidden" name="version" value={outcome?.version ?? 0} />
+      <fieldset className="flex flex-wrap gap-4 text-sm">
+        <legend className="mb-1 font-medium">Decision</legend>
+        <label className="flex items-center gap-2"><input type="radio" name="decision" value="pass" defaultChecked={outcome?.decision === 'pass'} /> Pass</label>
+        <label className="flex items-center gap-2"><input type="radio" name="decision" value="not_yet" defaultChecked={outcome?.decision === 'not_yet'} /> Not yet</label>
+      </fieldset>
+      <FieldError id="decision-error" messages={state.fieldErrors?.decision} />
+      <fieldset className="flex flex-wrap gap-4 text-sm" aria-describedby="scopes-error">
+        <legend className="mb-1 font-medium">Scope</legend>
+        {scopes.map((scope) => (
+          <label key={scope} className="flex items-center gap-2"><input type="checkbox" name="scopes" value={scope} defaultChecked={outcome?.scopes.includes(scope) ?? false} /> {scope}</label>
+        ))}
+      </fieldset>
+      <FieldError id="scopes-error" messages={state.fieldErrors?.scopes} />
+      <div className="flex flex-wrap items-center gap-4">
+        <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-60">{pending ? 'Saving…' : 'Save the decision'}</button>
+        <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
+      </div>
+    </form>
+  );
+}
+
+/** How long the cohort's records are valid (months). */
+export function ValidityForm({ cohortId, traineeId, months }: { cohortId: number; traineeId: number; months: number }) {
+  const [state, action, pending] = useActionState(recordValidityAction.bind(null, cohortId, traineeId), IDLE_FORM_STATE);
+  return (
+    <form action={action} onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-end gap-3 text-sm" noValidate>
+      <label className="block">
+        <span className="block font-medium">Records from this cohort are valid for (months)</span>
+        <input name="months" type="number" min={1} max={120} defaultValue={months} aria-describedby="months-error months-hint" className="mt-1 w-24 rounded-md border border-rule bg-paper px-2 py-1" />
+      </label>
+      <button type="submit" disabled={pending} className="rounded-md border border-rule px-3 py-1.5 hover:bg-rule/60 disabled:opacity-60">{pending ? 'Saving…' : 'Save'}</button>
+      <p id="months-hint" className="w-full text-xs text-muted">36 months: requalification every three years is common practice in the trade (training default: set your own).</p>
+      <FieldError id="months-error" messages={state.fieldErrors?.months} />
+      <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
+    </form>
+  );
+}
