@@ -79,6 +79,9 @@ export const MODELS = [
   RunAnalysisRow,
   CourseOutcome,
   TrainingRecord,
+  RunHold,
+  HardwareSet,
+  LubricantLot,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.

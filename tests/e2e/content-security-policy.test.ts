@@ -102,6 +102,8 @@ describe('no CSP violation on any page', () => {
         if (route.startsWith('/runs/')) charts[route] = await page.locator('svg').count();
         if (route === '/record' && role === 'instructor') {
           // The upload is parsed in a web worker; its preview appears only if the worker ran.
+          // Record opens on the way in this person chose last: choose the upload.
+          await page.getByRole('tab', { name: 'Upload a file' }).click();
           await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (4 studs)` });
           await page.locator('input[type=file]').setInputFiles(path.join(GOOD_DIR, 'wide-step-column.csv'));
           await page.getByText('What was detected').waitFor({ timeout: 20_000 });

@@ -46,6 +46,8 @@ afterAll(async () => {
 
 async function upload(file: string) {
   await page.goto(`${server.baseUrl}/record`);
+  // Record opens on the way in this person chose last: choose the upload.
+  await page.getByRole('tab', { name: 'Upload a file' }).click();
   await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (8 studs)` });
   // A method with a check pass, while these files hold none (the generator's plan): the page must not
   // take the short hold after the last pull for 8 check steps (it did: 32 steps for 24).

@@ -43,7 +43,11 @@ describe('Simulate on the record page', () => {
     expect(await page.getByRole('button', { name: 'Simulate and save' }).isEnabled()).toBe(true);
     await page.getByLabel('Seed').fill('31415');
     await page.screenshot({ path: screenshotPath('record-simulate'), fullPage: true });
-    // Issue 15 item 6: the same request again stores nothing and says which run holds it, with its link.
+    // Issue 15 item 6: the same request again (a fresh page, so the form does not know it was saved)
+    // stores nothing and says which run holds it, with its link.
+    await page.reload();
+    await page.getByRole('tab', { name: 'Simulate' }).click();
+    await page.getByLabel('Seed').fill('31415');
     await page.getByRole('button', { name: 'Simulate and save' }).click();
     await page.getByText(`This simulation (same header, gasket and seed) is already stored as run ${savedRun}; it was not stored again. Change the seed for another run.`).waitFor();
     const [stored] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM runs WHERE source = 'simulated' AND simulation_key = (SELECT simulation_key FROM runs WHERE id = ?)", { type: QueryTypes.SELECT, replacements: [savedRun] });

@@ -33,6 +33,8 @@ const people = await import('@/app/(lab)/people/actions');
 const lab = await import('@/app/(lab)/actions');
 const calibration = await import('@/app/(lab)/joints/[id]/calibration/actions');
 const equipment = await import('@/app/(lab)/equipment/actions');
+const saved = await import('@/app/(lab)/compare/saved/actions');
+const trainee = await import('@/app/(lab)/cohorts/[id]/trainees/[userId]/actions');
 
 type Caller = Role | 'anonymous';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'instructor', 'researcher', 'trainee'];
@@ -84,6 +86,14 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/joints/[id]/calibration/actions.ts', name: 'correctCalibrationAction', allowed: ['instructor', 'admin'], call: () => calibration.correctCalibrationAction(ids.joint, 0, idle, form()) },
   { file: 'app/(lab)/equipment/actions.ts', name: 'saveEquipmentAction', allowed: ['admin'], call: () => equipment.saveEquipmentAction(null, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setRunToolsAction', allowed: ['instructor', 'admin'], call: () => comments.setRunToolsAction(ids.run, idle, form()) },
+  // An empty form: allowed callers are told the title and query are missing; nothing is frozen.
+  { file: 'app/(lab)/compare/saved/actions.ts', name: 'freezeComparisonAction', allowed: ['instructor', 'researcher'], call: () => saved.freezeComparisonAction(idle, form()) },
+  // Empty forms, no pass decided and record id 0: allowed callers are refused on the facts, changing nothing.
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'decideOutcomeAction', allowed: ['instructor', 'admin'], call: () => trainee.decideOutcomeAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'recordValidityAction', allowed: ['instructor', 'admin'], call: () => trainee.recordValidityAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'issueRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.issueRecordAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'revokeRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.revokeRecordAction(ids.cohort, ids.trainee, 0, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'reissueRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.reissueRecordAction(ids.cohort, ids.trainee, 0, idle, form()) },
   { file: 'app/(lab)/actions.ts', name: 'signOutEverywhereAction', allowed: ['admin', 'instructor', 'researcher', 'trainee'], call: () => lab.signOutEverywhereAction(idle, form()) },
 ];
 
