@@ -1,4 +1,3 @@
-import 'server-only';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { AppError } from '@/lib/http/errors';
 import { sameJoint, type JointSnapshot } from '@/lib/joints/joint-snapshot';
