@@ -8,6 +8,11 @@ import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { launchBrowser, screenshotPath, signedInPage } from '../support/browser';
 import { DEMO_ACCOUNTS } from '../support/http-session';
+import { recordCalibration } from '@/lib/data/calibration';
+import { saveJoint } from '@/lib/data/joints';
+import { saveRunHolds } from '@/lib/data/run-holds';
+import type { SessionUser } from '@/lib/auth/session';
+import { calibrationSession, fourStudJoint } from '../integration/calibration-fixture';
 
 /**
  * Every chart of the product, drawn in Chromium at 1280 px and 390 px wide: no two <text> labels in
@@ -36,6 +41,8 @@ let browser: Browser;
 let demoRun: number;
 const lubricantIds: number[] = [];
 const copiedRuns: number[] = [];
+let calibratedJoint = 0;
+const CALIBRATED_JOINT = `Chart check calibrated joint ${Date.now()}`;
 
 beforeAll(async () => {
   server = sharedAppServer();
@@ -73,10 +80,23 @@ beforeAll(async () => {
       await sequelize.query('UPDATE runs SET recorded_at = recorded_at - INTERVAL 1 YEAR WHERE id = ?', { replacements: [Number(runId)] });
     }
   }
+  // The run report's relaxation chart: invented hold readings on the demo run (every stud at 50, 49.2,
+  // 48.8 and 48.5 kN after 0, 10 min, 1 h and 4 h).
+  const [admin] = await sequelize.query<{ id: number; name: string }>('SELECT id, name FROM users WHERE email = ?', { type: QueryTypes.SELECT, replacements: [DEMO_ACCOUNTS.admin] });
+  const adminUser: SessionUser = { id: admin!.id, name: admin!.name, email: DEMO_ACCOUNTS.admin, role: 'admin', units: 'si' };
+  const [studs] = await sequelize.query<{ n: number }>('SELECT stud_count AS n FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [demoRun] });
+  const holdRow = (time: string, kN: number) => `${time},${Array.from({ length: Number(studs!.n) }, () => kN).join(',')}`;
+  await saveRunHolds(adminUser, demoRun, [`elapsed,${Array.from({ length: Number(studs!.n) }, (_, i) => i + 1).join(',')}`, holdRow('0', 50), holdRow('10 min', 49.2), holdRow('1 h', 48.8), holdRow('4 h', 48.5)].join('\n'), 'si');
+  // The calibration history chart: a 4-stud joint (invented) calibrated twice, the second time with a drifted gauge.
+  calibratedJoint = (await saveJoint(adminUser, null, fourStudJoint(CALIBRATED_JOINT))).id;
+  await recordCalibration(adminUser, calibratedJoint, calibrationSession('2026-02-01', [1, 1.02, 0.98, 1]));
+  await recordCalibration(adminUser, calibratedJoint, calibrationSession('2026-08-01', [1, 1.02, 0.95, 1]));
   if (SHOTS) mkdirSync(SHOTS, { recursive: true });
 });
 
 afterAll(async () => {
+  await sequelize.query('DELETE FROM run_holds WHERE run_id = ?', { replacements: [demoRun] });
+  if (calibratedJoint) await sequelize.query('DELETE FROM joints WHERE id = ?', { replacements: [calibratedJoint] });
   if (copiedRuns.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [copiedRuns] });
   if (lubricantIds.length) await sequelize.query('DELETE FROM lubricants WHERE id IN (?)', { replacements: [lubricantIds] });
   await browser?.close();
@@ -144,10 +164,19 @@ const CASES: { name: string; role: keyof typeof DEMO_ACCOUNTS; charts: number; o
   {
     name: 'run-report',
     role: 'instructor',
-    charts: 4,
+    charts: 5, // four of the run, and the relaxation during the hold
     open: async (page) => {
       await page.goto(`${server.baseUrl}/runs/${demoRun}`);
       await page.getByRole('heading', { name: 'The figures' }).waitFor();
+    },
+  },
+  {
+    name: 'calibration-history',
+    role: 'instructor',
+    charts: 1,
+    open: async (page) => {
+      await page.goto(`${server.baseUrl}/joints/${calibratedJoint}/calibration`);
+      await page.getByRole('heading', { name: 'History' }).waitFor();
     },
   },
   {
