@@ -16,7 +16,8 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const row = (page: Page, label: string) => page.locator('dt', { hasText: label }).first().locator('xpath=following-sibling::dd[1]');
+// The term that starts with the label (the gasket section has terms such as "… at the target preload" too).
+const row = (page: Page, label: string) => page.locator('dt').filter({ hasText: new RegExp(`^\\s*${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first().locator('xpath=following-sibling::dd[1]');
 const numberIn = (text: string | null) => Number((text ?? '').replace(/[^0-9.]/g, ''));
 
 // The page opens on a 3/4-10 UNC ASTM A193 B7 stud at 50 % of yield with K = 0.20, the worked check
