@@ -6,6 +6,7 @@ const ACTION_LABELS: Record<string, string> = {
   restore: 'Restored',
   confirm_attempt: 'Confirmed as a witnessed attempt',
   confirm_review: 'Confirmed after review',
+  tool_check: 'Tools checked against their calibration',
   sign_off: 'Signed off',
   create: 'Created',
   update: 'Changed',

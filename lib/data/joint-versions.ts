@@ -1,6 +1,7 @@
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { AppError } from '@/lib/http/errors';
 import { sameJoint, type JointSnapshot } from '@/lib/joints/joint-snapshot';
+import { jointGasketOf } from '@/lib/joints/gasket-input';
 import { CalibrationSession, Joint, JointPosition, JointVersion } from '@/models';
 
 /**
@@ -27,7 +28,8 @@ async function snapshotOf(jointId: number, transaction: Transaction): Promise<Jo
     gasketType: joint.gasketType,
     targetLoadN: joint.targetLoadN,
     bandPercent: joint.bandPercent,
-    positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null })),
+    gasket: jointGasketOf(joint),
+    positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null, channel: p.channel ?? null })),
   };
 }
 

@@ -5,7 +5,7 @@ import { recordJointVersion } from './joint-versions';
 import { forgetMethodAnalyses } from './runs/stored-analysis';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
-import type { JointGasket } from '@/lib/joints/gasket-input';
+import { jointGasketOf, type JointGasket } from '@/lib/joints/gasket-input';
 import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-properties';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
@@ -200,20 +200,6 @@ const jointColumns = (input: JointInput) => ({
   flangeFacing: input.gasket.flangeFacing,
   clampLengthMm: input.gasket.clampLengthMm,
 });
-
-/** A joint row's gasket and flange data (null where not stored). */
-export function jointGasketOf(joint: Joint): JointGasket {
-  return {
-    innerMm: joint.gasketInnerMm ?? null,
-    outerMm: joint.gasketOuterMm ?? null,
-    areaMm2: joint.gasketAreaMm2 ?? null,
-    minSeatingMpa: joint.gasketMinSeatingMpa ?? null,
-    maxMpa: joint.gasketMaxMpa ?? null,
-    stressSource: joint.gasketStressSource ?? null,
-    flangeFacing: joint.flangeFacing ?? null,
-    clampLengthMm: joint.clampLengthMm ?? null,
-  };
-}
 
 /**
  * Creates (id null) or updates a joint and all its positions in one transaction: either both are

@@ -5,8 +5,7 @@ import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
 import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { RunCheckReason } from '../run-check/types';
-import { gasketAreaOf } from '../joints/gasket-input';
-import { jointGasketOf } from './joints';
+import { gasketAreaOf, jointGasketOf, type JointGasket } from '../joints/gasket-input';
 import { passPercentsOf } from '../analysis/pass-percents-of';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 import { jointAsRecorded } from './joint-versions';
@@ -46,9 +45,8 @@ export interface RunGasketDto {
   source: string | null;
 }
 
-/** The gasket data of a joint row, or null when its contact area is not known. */
-function runGasketOf(joint: Joint): RunGasketDto | null {
-  const g = jointGasketOf(joint);
+/** The gasket data (as recorded, else the joint row's), or null when its contact area is not known. */
+function runGasketOf(g: JointGasket): RunGasketDto | null {
   const areaMm2 = gasketAreaOf(g);
   return areaMm2 === null ? null : { areaMm2, minSeatingMpa: g.minSeatingMpa, maxMpa: g.maxMpa, source: g.stressSource };
 }
@@ -133,8 +131,8 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
         gasketType: asRecorded.gasketType,
         thread: threadLabel(asRecorded),
         versionNumber: recorded?.versionNumber ?? null,
-        // The gasket data are the joint's current ones (joint versions do not snapshot them yet).
-        gasket: runGasketOf(run.joint),
+        // Versions made before gaskets were snapshotted carry none: the joint's current data stand in.
+        gasket: runGasketOf(recorded?.snapshot.gasket ?? jointGasketOf(run.joint)),
       },
       method: {
         id: method.id,

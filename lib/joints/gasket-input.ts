@@ -24,6 +24,32 @@ export interface JointGasket {
   clampLengthMm: number | null;
 }
 
+/** The gasket and flange columns of a joint row, as stored (SI). */
+export interface JointGasketColumns {
+  gasketInnerMm?: number | null;
+  gasketOuterMm?: number | null;
+  gasketAreaMm2?: number | null;
+  gasketMinSeatingMpa?: number | null;
+  gasketMaxMpa?: number | null;
+  gasketStressSource?: string | null;
+  flangeFacing?: string | null;
+  clampLengthMm?: number | null;
+}
+
+/** A joint row's gasket and flange data (null where not stored). */
+export function jointGasketOf(joint: JointGasketColumns): JointGasket {
+  return {
+    innerMm: joint.gasketInnerMm ?? null,
+    outerMm: joint.gasketOuterMm ?? null,
+    areaMm2: joint.gasketAreaMm2 ?? null,
+    minSeatingMpa: joint.gasketMinSeatingMpa ?? null,
+    maxMpa: joint.gasketMaxMpa ?? null,
+    stressSource: joint.gasketStressSource ?? null,
+    flangeFacing: joint.flangeFacing ?? null,
+    clampLengthMm: joint.clampLengthMm ?? null,
+  };
+}
+
 export const NO_GASKET_DATA: JointGasket = { innerMm: null, outerMm: null, areaMm2: null, minSeatingMpa: null, maxMpa: null, stressSource: null, flangeFacing: null, clampLengthMm: null };
 
 /** Flange facings offered (common practice terms). */

@@ -1,4 +1,10 @@
-/** A joint and its positions as they stood when a version was made (joint_versions.snapshot). */
+import type { JointGasket } from './gasket-input';
+
+/**
+ * A joint and its positions as they stood when a version was made (joint_versions.snapshot).
+ * `gasket` and each position's `channel` were added later: versions made before carry neither, and
+ * a report falls back to the joint's current gasket data for them.
+ */
 export interface JointSnapshot {
   name: string;
   nominalSize: string;
@@ -13,7 +19,8 @@ export interface JointSnapshot {
   gasketType: string;
   targetLoadN: number;
   bandPercent: number;
-  positions: { position: number; calibrationFactor: number; note: string | null }[];
+  gasket?: JointGasket;
+  positions: { position: number; calibrationFactor: number; note: string | null; channel?: string | null }[];
 }
 
 /** The parts of a snapshot a change is made of: true when the two describe the same joint. */

@@ -7,7 +7,7 @@ import type { MethodPass } from '@/models/method';
  * live stream when it is finished, simulate).
  */
 
-export const RUN_CHECK_RULES = ['stud_count', 'passes', 'step_order', 'over_yield', 'off_band', 'flat_channel', 'time_gap'] as const;
+export const RUN_CHECK_RULES = ['stud_count', 'passes', 'step_order', 'over_yield', 'off_band', 'flat_channel', 'time_gap', 'tool_past_due'] as const;
 export type RunCheckRule = (typeof RUN_CHECK_RULES)[number];
 
 /** One reason a run is held for review: the rule it failed and a sentence for the screen. */
