@@ -7,6 +7,8 @@ const ACTION_LABELS: Record<string, string> = {
   confirm_attempt: 'Confirmed as a witnessed attempt',
   confirm_review: 'Confirmed after review',
   tool_check: 'Tools checked against their calibration',
+  recompute: 'Figures recomputed after a calibration correction',
+  correct: 'Calibration corrected',
   sign_off: 'Signed off',
   create: 'Created',
   update: 'Changed',

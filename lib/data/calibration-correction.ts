@@ -7,6 +7,7 @@ import { parseColumnMapping, parseLoggerText } from '@/lib/ingest/parse-text';
 import { jointForImport } from '@/lib/record/joint-import';
 import { storedRunFigures } from '@/lib/record/run-figures';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
+import { writeAudit } from './audit-log';
 import { CalibrationCorrection, CalibrationSession, Joint, JointPosition, Run, RunFigureHistory, Upload, sequelize } from '@/models';
 import { assertRole, type SessionUser } from '../auth/session';
 import { assessTable, getCalibrationLimits, previousIntervals, writeSessionResults } from './calibration';
@@ -24,6 +25,8 @@ export type CorrectionInput = z.infer<typeof correctionSchema>;
 
 const FIGURE_KEYS = ['finalMeanN', 'finalSdN', 'finalCv', 'finalMinN', 'finalMaxN', 'finalLoadsJson', 'driftJson'] as const;
 const figuresOf = (run: Run) => Object.fromEntries(FIGURE_KEYS.map((k) => [k, run[k] ?? null]));
+/** The figures an audit row keeps of a recomputed run (the full set stays in run_figure_history). */
+const headline = (figures: Record<string, unknown>) => ({ finalMeanN: figures.finalMeanN, finalSdN: figures.finalSdN, finalCv: figures.finalCv });
 
 /**
  * Corrects a calibration session's table and recomputes, in one transaction, every run pinned to it
@@ -45,6 +48,7 @@ export async function correctCalibration(user: SessionUser, sessionId: number, i
     const joint = await Joint.findByPk(session.jointId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!joint) throw new AppError('not_found', 'There is no joint with this id; it may have been removed.');
     const assessed = assessTable(input.table, joint.studCount, limits, await previousIntervals(joint.id, session.performedOn, session.id, transaction));
+    const [wasAccepted, oldTable] = [session.accepted, session.tableText];
     const correction = await CalibrationCorrection.create({ sessionId, correctedById: user.id, reason: input.reason, oldTableText: session.tableText, runsRecomputed: 0 }, { transaction });
     await session.update({ tableText: input.table, fullScaleKn: assessed.fullScaleKn, accepted: assessed.accepted, version }, { transaction });
     const inForce = await CalibrationSession.findOne({ where: { jointId: joint.id, accepted: true }, order: [['performedOn', 'DESC'], ['id', 'DESC']], attributes: ['id'], transaction });
@@ -71,9 +75,18 @@ export async function correctCalibration(user: SessionUser, sessionId: number, i
       await refreshRunFigures(run.id, parsed.run, transaction);
       await run.reload({ transaction });
       await RunFigureHistory.create({ runId: run.id, correctionId: correction.id, oldFigures: before, newFigures: figuresOf(run) }, { transaction });
+      await writeAudit(transaction, user, { objectType: 'run', objectId: run.id, action: 'recompute', reason: input.reason, before: headline(before), after: headline(figuresOf(run)) });
       changedRunIds.push(run.id);
     }
     await correction.update({ runsRecomputed: changedRunIds.length }, { transaction });
+    await writeAudit(transaction, user, {
+      objectType: 'calibration_session',
+      objectId: sessionId,
+      action: 'correct',
+      reason: input.reason,
+      before: { accepted: wasAccepted, table: oldTable },
+      after: { accepted: assessed.accepted, table: input.table, runsRecomputed: changedRunIds.length },
+    });
     return { accepted: assessed.accepted, changedRunIds };
   });
 }

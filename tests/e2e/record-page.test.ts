@@ -88,7 +88,6 @@ describe('Record page', () => {
         await outcome.getByText(shape.held).waitFor();
         await outcome.getByRole('link', { name: /^Open run \d+$/ }).waitFor();
         await outcome.screenshot({ path: screenshotPath(`record-upload-held-${shape.file.replace(/\.\w+$/, '')}`) });
-        if (shape.file === 'wide-step-column.csv') await page.screenshot({ path: '/work/notes/shots/upload-held.png', fullPage: true });
       } else {
         await expect(saved.textContent()).resolves.not.toMatch(/needs review/);
       }

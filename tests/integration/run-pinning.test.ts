@@ -44,16 +44,20 @@ describe('runs pinned to the joint version and calibration they were recorded wi
     const before = await sequelize.transaction((t) => storeRun({ ...{ jointId: id, methodId: 1, lubricantId: 1, operatorId: admin.id, cohortId: null }, targetLoadN: 50_000, bandPercent: 10, source: 'manual', status: 'complete', recordedAt: new Date() },
       { studCount: 4, targetLoadN: 50_000, steps: [{ order: 1, pass: 1, position: 1, loadsN: [50_000, 49_000, 51_000, 50_000] }] }, t));
     const joint = await getJoint(admin, id);
-    await saveJoint(admin, id, jointInput(`${TAG} edited, renamed`, 'ring-joint'), joint!.version);
+    // The edit also gives the joint a gasket ring (ID 120 mm, OD 150 mm: area π/4·(150² − 120²) = 6,361.7 mm², hand-worked).
+    const ring = { ...jointInput('x').gasket, innerMm: 120, outerMm: 150 };
+    await saveJoint(admin, id, { ...jointInput(`${TAG} edited, renamed`, 'ring-joint'), gasket: ring }, joint!.version);
     const old = await loadRun(admin, before);
     expect(old.header.joint.name).toBe(`${TAG} edited`);
     expect(old.header.joint.gasketType).toBe('spiral-wound');
     expect(old.header.joint.versionNumber).toBe(1);
+    expect(old.header.joint.gasket).toBeNull(); // recorded with no gasket data: the later ring is not the run's
     const after = await sequelize.transaction((t) => storeRun({ jointId: id, methodId: 1, lubricantId: 1, operatorId: admin.id, cohortId: null, targetLoadN: 50_000, bandPercent: 10, source: 'manual', status: 'complete', recordedAt: new Date() },
       { studCount: 4, targetLoadN: 50_000, steps: [{ order: 1, pass: 1, position: 1, loadsN: [50_000, 49_000, 51_000, 50_000] }] }, t));
     const current = await loadRun(admin, after);
     expect(current.header.joint.gasketType).toBe('ring-joint');
     expect(current.header.joint.versionNumber).toBe(2);
+    expect(current.header.joint.gasket?.areaMm2).toBeCloseTo((Math.PI / 4) * (150 ** 2 - 120 ** 2), 6);
   });
 
   it('correcting a calibration recomputes exactly the runs pinned to it that kept their file, old figures kept beside the new', async () => {
@@ -87,5 +91,12 @@ describe('runs pinned to the joint version and calibration they were recorded wi
     expect(kept[0]!.reason).toBe('Position 3 column typed from the wrong sheet');
     expect(await runFigureHistory(otherJoint)).toEqual([]);
     expect((await getJoint(admin, a))!.positions[2]!.calibrationFactor).toBeCloseTo(newFactor, 12);
+    // The audit log has the correction and one recompute row per changed run, in the same transaction.
+    const audit = await sequelize.query<{ object_type: string; object_id: number; action: string; reason: string }>(
+      "SELECT object_type, object_id, action, reason FROM audit_log WHERE (object_type = 'calibration_session' AND object_id = ?) OR (object_type = 'run' AND action = 'recompute' AND object_id IN (?)) ORDER BY id",
+      { type: QueryTypes.SELECT, replacements: [sessionA.id, [...affected, otherJoint, manual]] },
+    );
+    expect(audit.map((r) => [r.object_type, Number(r.object_id), r.action])).toEqual([...affected.map((id) => ['run', id, 'recompute']), ['calibration_session', sessionA.id, 'correct']]);
+    expect(new Set(audit.map((r) => r.reason))).toEqual(new Set(['Position 3 column typed from the wrong sheet']));
   });
 });
