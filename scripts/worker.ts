@@ -3,7 +3,7 @@
  * finishes the job in hand and exits. Stateless: run one beside each app instance, or several.
  *   npx tsx --conditions=react-server scripts/worker.ts
  * (The condition lets lib/data's `import 'server-only'` load outside Next, as it does in the app.)
- * Settings: EVENLOAD_JOB_POLL_MS, EVENLOAD_JOB_LOCK_MS, EVENLOAD_JOB_RETRY_BASE_MS, EVENLOAD_JOB_RETRY_CAP_MS,
+ * Settings: EVENLOAD_JOB_POLL_MS, EVENLOAD_JOB_LOCK_MS, EVENLOAD_JOB_BATCH, EVENLOAD_JOB_RETRY_BASE_MS, EVENLOAD_JOB_RETRY_CAP_MS,
  * EVENLOAD_WORKER_ID (default host:pid), and the DB_* and SMTP_* settings of the app.
  */
 import { hostname } from 'node:os';
@@ -17,6 +17,7 @@ const loop = startWorkLoop({
   workerId,
   pollMs: env.EVENLOAD_JOB_POLL_MS,
   lockMs: env.EVENLOAD_JOB_LOCK_MS,
+  batch: env.EVENLOAD_JOB_BATCH,
   retry: { baseMs: env.EVENLOAD_JOB_RETRY_BASE_MS, capMs: env.EVENLOAD_JOB_RETRY_CAP_MS },
 });
 console.log(`[worker ${workerId}] working the job table of ${env.DB_NAME} on port ${env.DB_PORT}`);
