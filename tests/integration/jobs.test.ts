@@ -7,6 +7,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import { claimJobs, LOCK_EXPIRED_NOTE } from '@/lib/data/jobs/claim';
 import { enqueueJob } from '@/lib/data/jobs/enqueue';
 import { markJobDone } from '@/lib/data/jobs/finish';
+import { purgeFinishedJobs } from '@/lib/data/jobs/purge';
 import { listJobs, retryFailedJob } from '@/lib/data/jobs/admin';
 import { DEFAULT_WORKER_OPTIONS, workOnce } from '@/lib/data/jobs/worker';
 import { scanRefresherReminders } from '@/lib/data/reminders/refresher-scan';
@@ -179,6 +180,23 @@ describe('refresher reminders through the job table', () => {
     expect(await mailTo(address('orphan'))).toHaveLength(1);
     // The dead worker coming back cannot mark it done: its lock is gone.
     expect(await sequelize.transaction((transaction) => markJobDone(id, `${tag}-dead`, transaction))).toBe(false);
+  });
+});
+
+describe('old finished jobs', () => {
+  it('are removed after 30 days; newer ones and failed ones stay', async () => {
+    const make = async (name: string, status: string, daysAgo: number) => {
+      const { id } = await enqueueJob('refresher_scan', { hour: '2026-01-01T00' }, { dedupeKey: `${tag}:${name}` });
+      await sequelize.query('UPDATE jobs SET status = ?, finished_at = UTC_TIMESTAMP(3) - INTERVAL ? DAY WHERE id = ?', { replacements: [status, daysAgo, id] });
+      return id;
+    };
+    const old = await make('old', 'done', 31);
+    const recent = await make('recent', 'done', 29);
+    const failed = await make('old-failed', 'failed', 60);
+    expect(await purgeFinishedJobs()).toBeGreaterThanOrEqual(1);
+    expect(await count('SELECT COUNT(*) AS n FROM jobs WHERE id = ?', [old])).toBe(0);
+    expect(await count('SELECT COUNT(*) AS n FROM jobs WHERE id IN (?)', [[recent, failed]])).toBe(2);
+    await sequelize.query('DELETE FROM jobs WHERE dedupe_key LIKE ?', { replacements: [`${tag}:%`] });
   });
 });
 

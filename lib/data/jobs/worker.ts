@@ -69,7 +69,7 @@ async function runClaimedJob(job: Job, options: WorkerOptions): Promise<void> {
 
 /** One look at the table: periodic jobs ensured, expired locks recovered, due jobs claimed and run. Answers how many ran. */
 export async function workOnce(options: WorkerOptions, now = new Date()): Promise<number> {
-  for (const job of periodicJobs(now)) await enqueueJob(job.kind, job.payload, { dedupeKey: job.dedupeKey, maxAttempts: 3 });
+  for (const job of periodicJobs(now)) await enqueueJob(job.kind, job.payload as never, { dedupeKey: job.dedupeKey, maxAttempts: 3 });
   const recovered = await recoverExpiredJobs(options.retry);
   if (recovered) options.log(`[worker ${options.workerId}] put back ${recovered} job(s) whose lock had expired`);
   const jobs = await claimJobs(options.workerId, { limit: options.batch, lockMs: options.lockMs });
