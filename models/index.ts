@@ -36,6 +36,8 @@ import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
 import { CourseOutcome } from './course-outcome';
 import { TrainingRecord } from './training-record';
+import { Job } from './job';
+import { RefresherReminder } from './refresher-reminder';
 import { User } from './user';
 import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
@@ -82,6 +84,8 @@ export const MODELS = [
   RunHold,
   HardwareSet,
   LubricantLot,
+  Job,
+  RefresherReminder,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -158,4 +162,6 @@ export {
   RunTool,
   CourseOutcome,
   TrainingRecord,
+  Job,
+  RefresherReminder,
 };

@@ -15,4 +15,9 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-http://127.0.0.1:${PORT:-3000}}"
 # The demo shows captured mail at /dev/outbox (the local SMTP fake started by setup.sh).
 export EVENLOAD_OUTBOX="${EVENLOAD_OUTBOX:-1}"
 evenload_log "serving on http://127.0.0.1:${PORT:-3000} (demo accounts in README.md; Ctrl-C to stop the app; 'npm run db:stop' stops MariaDB)"
-exec npx tsx scripts/serve.ts -H 127.0.0.1 -p "${PORT:-3000}"
+# The background worker (refresher reminders and other jobs in the database) runs beside the app and
+# stops with it: SIGTERM lets it finish the job in hand. More instances may each run one.
+node_modules/.bin/tsx --conditions=react-server scripts/worker.ts &
+worker_pid=$!
+trap 'kill -TERM "$worker_pid" 2>/dev/null; wait "$worker_pid" 2>/dev/null || true' EXIT
+npx tsx scripts/serve.ts -H 127.0.0.1 -p "${PORT:-3000}"

@@ -4,6 +4,7 @@ import { useActionState } from 'react';
 import { decideOutcomeAction, recordValidityAction } from '@/app/(lab)/cohorts/[id]/trainees/[userId]/actions';
 import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { DEFAULT_SCOPES } from '@/lib/qualification/training-record';
+import { DEFAULT_REFRESHER_LEAD_DAYS, MAX_REFRESHER_LEAD_DAYS } from '@/lib/qualification/refresher';
 import { keepValuesSubmit } from '../ui/keep-values-submit';
 import { FieldError } from '../ui/field-error';
 import { FormMessage } from '../ui/form-message';
@@ -42,8 +43,8 @@ export function OutcomeForm({ cohortId, traineeId, outcome }: OutcomeFormProps) 
   );
 }
 
-/** How long the cohort's records are valid (months). */
-export function ValidityForm({ cohortId, traineeId, months }: { cohortId: number; traineeId: number; months: number }) {
+/** How long the cohort's records are valid (months) and when their refresher reminder goes out (days before the end). */
+export function ValidityForm({ cohortId, traineeId, months, leadDays }: { cohortId: number; traineeId: number; months: number; leadDays: number }) {
   const [state, action, pending] = useActionState(recordValidityAction.bind(null, cohortId, traineeId), IDLE_FORM_STATE);
   return (
     <form action={action} onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-end gap-3 text-sm" noValidate>
@@ -51,9 +52,15 @@ export function ValidityForm({ cohortId, traineeId, months }: { cohortId: number
         <span className="block font-medium">Records from this cohort are valid for (months)</span>
         <input name="months" type="number" min={1} max={120} defaultValue={months} aria-describedby="months-error months-hint" className="mt-1 w-24 rounded-md border border-rule bg-paper px-2 py-1" />
       </label>
+      <label className="block">
+        <span className="block font-medium">Refresher reminder (days before the end)</span>
+        <input name="leadDays" type="number" min={0} max={MAX_REFRESHER_LEAD_DAYS} defaultValue={leadDays} aria-describedby="lead-days-error lead-days-hint" className="mt-1 w-24 rounded-md border border-rule bg-paper px-2 py-1" />
+      </label>
       <button type="submit" disabled={pending} className="rounded-md border border-rule px-3 py-1.5 hover:bg-rule/60 disabled:opacity-60">{pending ? 'Saving…' : 'Save'}</button>
       <p id="months-hint" className="w-full text-xs text-muted">36 months: requalification every three years is common practice in the trade (training default: set your own).</p>
+      <p id="lead-days-hint" className="w-full text-xs text-muted">The trainee is e-mailed {DEFAULT_REFRESHER_LEAD_DAYS} days before a record runs out unless you set otherwise (training default: set your own).</p>
       <FieldError id="months-error" messages={state.fieldErrors?.months} />
+      <FieldError id="lead-days-error" messages={state.fieldErrors?.leadDays} />
       <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
     </form>
   );

@@ -7,7 +7,7 @@ import { TrainingRecordList } from './training-record-list';
 
 /** The trainee sheet's course outcome and record of training: decision, validity, records, history. */
 export function RecordOfTrainingSection({ cohortId, traineeId, qualification }: { cohortId: number; traineeId: number; qualification: TraineeQualification }) {
-  const { outcome, records, validityMonths, history } = qualification;
+  const { outcome, records, validityMonths, refresherLeadDays, history } = qualification;
   const hasLiveRecord = records.some((r) => r.status === 'valid' || r.status === 'expired');
   return (
     <>
@@ -22,7 +22,7 @@ export function RecordOfTrainingSection({ cohortId, traineeId, qualification }: 
       </section>
       <section aria-labelledby="record-heading" className="break-inside-avoid space-y-3 rounded-card border border-rule p-3">
         <h2 id="record-heading" className="font-semibold">Record of training</h2>
-        <div className="no-print"><ValidityForm cohortId={cohortId} traineeId={traineeId} months={validityMonths} /></div>
+        <div className="no-print"><ValidityForm cohortId={cohortId} traineeId={traineeId} months={validityMonths} leadDays={refresherLeadDays} /></div>
         {records.length ? (
           <TrainingRecordList records={records} actions={(record) => <div className="no-print"><RecordActions cohortId={cohortId} traineeId={traineeId} recordId={record.id} /></div>} />
         ) : <p className="text-sm text-muted">No record of training issued.</p>}

@@ -19,6 +19,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/calculator', label: 'Calculator', roles: ['admin', 'instructor', 'researcher', 'trainee'] },
   { href: '/people', label: 'People', roles: ['admin'] },
   { href: '/equipment', label: 'Equipment', roles: ['admin'] },
+  { href: '/admin/jobs', label: 'Jobs', roles: ['admin'] },
 ];
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -9,7 +9,12 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** A fixed Message-ID (`<…@…>`), so a repeated message can be recognised as the same one by its receiver. */
+  messageId?: string;
 }
+
+/** What sends mail: `sendMail` below, or a stand-in a worker is given (tests point one at their own SMTP server). */
+export type MailSender = (mail: OutgoingMail) => Promise<void>;
 
 const globalForMail = globalThis as unknown as { evenloadMailer?: Transporter };
 

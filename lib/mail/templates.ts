@@ -76,3 +76,13 @@ export function resultsMail(args: {
   ];
   return { subject: `Your run result in ${args.cohortName}: ${args.allMet ? 'all criteria met' : 'criteria not all met'}`, text: paragraphs.join('\n\n'), html: htmlFrom(paragraphs, { href: args.reportLink, label: 'Open the run report' }) };
 }
+
+export function refresherMail(args: { traineeName: string; courseName: string; scope: string; validUntil: string; verifyLink: string; progressLink: string }): MailContent {
+  const paragraphs = [
+    `Hello ${args.traineeName},`,
+    `your record of training for "${args.courseName}" (${args.scope}) is valid until ${args.validUntil}. To keep it in force, book a refresher course before then.`,
+    `Your records and their dates: ${args.progressLink}`,
+    `Anyone can check this record at ${args.verifyLink}`,
+  ];
+  return { subject: `Your record of training for ${args.courseName} is valid until ${args.validUntil}`, text: paragraphs.join('\n\n'), html: htmlFrom(paragraphs, { href: args.progressLink, label: 'Open your records' }) };
+}

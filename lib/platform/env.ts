@@ -39,6 +39,14 @@ const schema = z.object({
   APP_BASE_URL: z.string().url().optional(),
   /** 1 shows the development outbox (/dev/outbox) in a production build, for the demo. */
   EVENLOAD_OUTBOX: z.enum(['0', '1']).default('0'),
+  /** The background worker (scripts/worker.ts, lib/data/jobs): idle poll interval (±50 %), how long a
+   *  claimed job is held, jobs taken per claim, the first retry delay and its cap (lib/jobs/backoff.ts), and its name in the job table. */
+  EVENLOAD_JOB_POLL_MS: z.coerce.number().int().min(50).default(5000),
+  EVENLOAD_JOB_LOCK_MS: z.coerce.number().int().min(1000).default(5 * 60_000),
+  EVENLOAD_JOB_BATCH: z.coerce.number().int().min(1).max(100).default(5),
+  EVENLOAD_JOB_RETRY_BASE_MS: z.coerce.number().int().min(10).default(30_000),
+  EVENLOAD_JOB_RETRY_CAP_MS: z.coerce.number().int().min(10).default(6 * 60 * 60_000),
+  EVENLOAD_WORKER_ID: z.string().min(1).max(80).optional(),
   /**
    * Load balancers / reverse proxies whose X-Forwarded-For is believed, as IPs or CIDR ranges
    * ("10.0.0.5, 10.1.0.0/16"). Empty: the socket's peer is the client (scripts/serve.ts).

@@ -47,6 +47,7 @@ beforeAll(async () => {
     '/joints/hardware',
     `/joints/${await firstId('SELECT id FROM joints ORDER BY id LIMIT 1')}/calibration`,
     '/equipment',
+    '/admin/jobs',
     '/joints/lubricants/new', `/joints/lubricants/${await firstId('SELECT id FROM lubricants ORDER BY id LIMIT 1')}`,
     '/joints/methods/new', `/joints/methods/${await firstId('SELECT id FROM methods ORDER BY id LIMIT 1')}`,
     `/compare/saved/${saved.slug}`,

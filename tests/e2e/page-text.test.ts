@@ -70,7 +70,7 @@ function pagesFor(role: Role): string[] {
   const compare = ['/compare?by=method', '/compare?by=lubricant', '/compare?by=cohort'];
   switch (role) {
     case 'admin':
-      return [...common, `/runs/${ids.anyRun}`, ...cohort, ...library, '/people', '/equipment'];
+      return [...common, `/runs/${ids.anyRun}`, ...cohort, ...library, '/people', '/equipment', '/admin/jobs'];
     case 'instructor':
       return [...common, `/runs/${ids.instructorRun}`, '/record', ...compare, '/classroom', ...cohort, ...library];
     case 'researcher':

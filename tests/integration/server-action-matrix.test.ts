@@ -35,6 +35,7 @@ const calibration = await import('@/app/(lab)/joints/[id]/calibration/actions');
 const equipment = await import('@/app/(lab)/equipment/actions');
 const saved = await import('@/app/(lab)/compare/saved/actions');
 const trainee = await import('@/app/(lab)/cohorts/[id]/trainees/[userId]/actions');
+const jobs = await import('@/app/(lab)/admin/jobs/actions');
 
 type Caller = Role | 'anonymous';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'instructor', 'researcher', 'trainee'];
@@ -94,6 +95,8 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'issueRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.issueRecordAction(ids.cohort, ids.trainee, idle, form()) },
   { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'revokeRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.revokeRecordAction(ids.cohort, ids.trainee, 0, idle, form()) },
   { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'reissueRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.reissueRecordAction(ids.cohort, ids.trainee, 0, idle, form()) },
+  // Job 0 does not exist: the admin is told so (404), changing nothing.
+  { file: 'app/(lab)/admin/jobs/actions.ts', name: 'retryJobAction', allowed: ['admin'], call: () => jobs.retryJobAction(0, idle, form()) },
   { file: 'app/(lab)/actions.ts', name: 'signOutEverywhereAction', allowed: ['admin', 'instructor', 'researcher', 'trainee'], call: () => lab.signOutEverywhereAction(idle, form()) },
 ];
 

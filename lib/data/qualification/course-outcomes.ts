@@ -9,6 +9,7 @@ import { writeAudit } from '../audit-log';
 import { nextVersion } from '../optimistic-lock';
 import { parseFields } from '../../http/server-action';
 import { DEFAULT_RECORD_VALIDITY_MONTHS, MAX_RECORD_VALIDITY_MONTHS } from '../../qualification/training-record';
+import { DEFAULT_REFRESHER_LEAD_DAYS, MAX_REFRESHER_LEAD_DAYS } from '../../qualification/refresher';
 
 export interface CourseOutcomeDto {
   id: number;
@@ -68,17 +69,26 @@ export async function decideCourseOutcome(user: SessionUser | null, cohortId: nu
   });
 }
 
-const validitySchema = z.object({ months: z.coerce.number({ error: 'Enter a whole number of months.' }).int('Enter a whole number of months.').min(1, 'At least 1 month.').max(MAX_RECORD_VALIDITY_MONTHS, `At most ${MAX_RECORD_VALIDITY_MONTHS} months.`) });
+const validitySchema = z.object({
+  months: z.coerce.number({ error: 'Enter a whole number of months.' }).int('Enter a whole number of months.').min(1, 'At least 1 month.').max(MAX_RECORD_VALIDITY_MONTHS, `At most ${MAX_RECORD_VALIDITY_MONTHS} months.`),
+  /** Left out: the cohort keeps its lead time. */
+  leadDays: z.coerce.number({ error: 'Enter a whole number of days.' }).int('Enter a whole number of days.').min(0, 'At least 0 days.').max(MAX_REFRESHER_LEAD_DAYS, `At most ${MAX_REFRESHER_LEAD_DAYS} days.`).optional(),
+});
 
-/** How long the cohort's records of training are valid; records already issued keep their dates. */
-export async function setRecordValidity(user: SessionUser | null, cohortId: number, input: unknown): Promise<number> {
+/**
+ * How long the cohort's records of training are valid and how many days before the end their
+ * refresher reminder goes out; records already issued keep their dates (a reminder not yet queued
+ * follows the new lead time).
+ */
+export async function setRecordValidity(user: SessionUser | null, cohortId: number, input: unknown): Promise<{ months: number; leadDays: number }> {
   const cohort = await manageableCohort(user, cohortId);
-  const { months } = parseFields(validitySchema, input, 'The validity could not be saved.');
-  await sequelize.transaction(async (transaction) => {
+  const { months, leadDays } = parseFields(validitySchema, input, 'The validity could not be saved.');
+  return sequelize.transaction(async (transaction) => {
     const row = await Cohort.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE });
-    const before = row?.recordValidityMonths ?? DEFAULT_RECORD_VALIDITY_MONTHS;
-    await Cohort.update({ recordValidityMonths: months }, { where: { id: cohort.id }, transaction });
-    await writeAudit(transaction, user, { objectType: 'criteria', objectId: cohort.id, action: 'record_validity', before: { recordValidityMonths: before }, after: { recordValidityMonths: months } });
+    const before = { recordValidityMonths: row?.recordValidityMonths ?? DEFAULT_RECORD_VALIDITY_MONTHS, refresherLeadDays: row?.refresherLeadDays ?? DEFAULT_REFRESHER_LEAD_DAYS };
+    const after = { recordValidityMonths: months, refresherLeadDays: leadDays ?? before.refresherLeadDays };
+    await Cohort.update(after, { where: { id: cohort.id }, transaction });
+    await writeAudit(transaction, user, { objectType: 'criteria', objectId: cohort.id, action: 'record_validity', before, after });
+    return { months, leadDays: after.refresherLeadDays };
   });
-  return months;
 }

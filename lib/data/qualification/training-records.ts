@@ -47,6 +47,7 @@ export interface TraineeQualification {
   outcome: CourseOutcomeDto | null;
   records: TrainingRecordDto[];
   validityMonths: number;
+  refresherLeadDays: number;
   history: AuditEntryDto[];
 }
 
@@ -60,7 +61,7 @@ export async function traineeQualification(user: SessionUser | null, cohortId: n
     ...(outcome ? [{ objectType: 'course_outcome' as const, objectId: outcome.id }] : []),
     ...rows.map((row) => ({ objectType: 'training_record' as const, objectId: Number(row.id) })),
   ];
-  return { outcome, records: rows.map((row) => recordDto(row)), validityMonths: cohort.recordValidityMonths, history: await auditHistory(user!, objects) };
+  return { outcome, records: rows.map((row) => recordDto(row)), validityMonths: cohort.recordValidityMonths, refresherLeadDays: cohort.refresherLeadDays, history: await auditHistory(user!, objects) };
 }
 
 /** The signed-in trainee's own records, newest first (Progress). */

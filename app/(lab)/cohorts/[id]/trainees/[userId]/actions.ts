@@ -17,9 +17,9 @@ export const decideOutcomeAction = withActionRole(COHORT_ROLES, async (user, for
 });
 
 export const recordValidityAction = withActionRole(COHORT_ROLES, async (user, form, cohortId: number, traineeId: number) => {
-  const months = await setRecordValidity(user, cohortId, { months: form.get('months') });
+  const { months, leadDays } = await setRecordValidity(user, cohortId, { months: form.get('months'), leadDays: form.get('leadDays') ?? undefined });
   revalidatePath(sheetPath(cohortId, traineeId));
-  return okState(`Records of training from this cohort are now valid for ${months} months.`);
+  return okState(`Records of training from this cohort are now valid for ${months} months; the refresher reminder goes out ${leadDays} days before the end.`);
 });
 
 export const issueRecordAction = withActionRole(COHORT_ROLES, async (user, _form, cohortId: number, traineeId: number) => {
