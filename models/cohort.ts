@@ -10,6 +10,8 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
   declare instructorId: ForeignKey<User['id']>;
   /** How long a record of training from this cohort is valid (36 months unless the centre sets its own). */
   declare recordValidityMonths: CreationOptional<number>;
+  /** Theory pass mark in percent; null = the training default (DEFAULT_THEORY_PASS_MARK). */
+  declare theoryPassMark: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -23,6 +25,7 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
         endsOn: { type: DataTypes.DATEONLY, allowNull: false },
         instructorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         recordValidityMonths: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 36 },
+        theoryPassMark: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
       },

@@ -36,6 +36,9 @@ import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
 import { CourseOutcome } from './course-outcome';
 import { TrainingRecord } from './training-record';
+import { TheoryResult } from './theory-result';
+import { ChecklistItem } from './checklist-item';
+import { ChecklistTick } from './checklist-tick';
 import { User } from './user';
 import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
@@ -82,6 +85,9 @@ export const MODELS = [
   RunHold,
   HardwareSet,
   LubricantLot,
+  TheoryResult,
+  ChecklistItem,
+  ChecklistTick,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -118,6 +124,9 @@ export const MODELS = [
 
 export {
   sequelize,
+  TheoryResult,
+  ChecklistItem,
+  ChecklistTick,
   RunHold,
   HardwareSet,
   LubricantLot,
