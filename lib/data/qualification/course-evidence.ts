@@ -78,12 +78,6 @@ export async function courseEvidenceOf(cohort: Cohort, traineeId: number, transa
   return { passMark, passMarkIsDefault: cohort.theoryPassMark === null || cohort.theoryPassMark === undefined, theory, checklist, attemptsMet, outstanding: outstandingItems({ attemptsMet, theoryScore: score, theoryPassMark: passMark, checklist: inForce }) };
 }
 
-/** The cohort's items in force, in order (the checklist editor). */
-export async function checklistOf(cohortId: number): Promise<{ id: number; label: string }[]> {
-  const rows = await ChecklistItem.findAll({ where: { cohortId, retiredAt: null }, order: [['position', 'ASC'], ['id', 'ASC']] });
-  return rows.map((row) => ({ id: Number(row.id), label: row.label }));
-}
-
 /** The cohort row, locked for a change of its course settings (one change at a time per cohort). */
 async function lockedCohort(user: SessionUser | null, cohortId: number, transaction: Transaction): Promise<Cohort> {
   const cohort = await manageableCohort(user, cohortId);
