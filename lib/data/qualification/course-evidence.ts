@@ -51,18 +51,17 @@ const passMarkOf = (cohort: Cohort) => cohort.theoryPassMark ?? DEFAULT_THEORY_P
 /** The evidence, read inside the caller's transaction when given (the decision reads it under the cohort's lock). */
 export async function courseEvidenceOf(cohort: Cohort, traineeId: number, transaction?: Transaction): Promise<CourseEvidenceDto> {
   const passMark = passMarkOf(cohort);
-  const [theoryRow, items, ticks, met] = await Promise.all([
-    TheoryResult.findOne({ where: { cohortId: cohort.id, userId: traineeId }, transaction }),
-    ChecklistItem.findAll({ where: { cohortId: cohort.id }, order: [['position', 'ASC'], ['id', 'ASC']], transaction }),
-    sequelize.query<{ id: number; item_id: number; observed: number; observed_by_name: string; observed_at: Date; note: string | null }>(
-      'SELECT t.id, t.item_id, t.observed, t.observed_by_name, t.observed_at, t.note FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ? AND t.user_id = ?',
-      { type: QueryTypes.SELECT, replacements: [cohort.id, traineeId], transaction },
-    ),
-    sequelize.query<{ n: number }>(
-      "SELECT COUNT(*) AS n FROM run_verdicts v JOIN runs r ON r.id = v.run_id WHERE r.cohort_id = ? AND r.operator_id = ? AND r.status = 'complete' AND v.all_met = 1",
-      { type: QueryTypes.SELECT, replacements: [cohort.id, traineeId], transaction },
-    ),
-  ]);
+  // One after another: inside the decision's transaction they share one connection.
+  const theoryRow = await TheoryResult.findOne({ where: { cohortId: cohort.id, userId: traineeId }, transaction });
+  const items = await ChecklistItem.findAll({ where: { cohortId: cohort.id }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+  const ticks = await sequelize.query<{ id: number; item_id: number; observed: number; observed_by_name: string; observed_at: Date; note: string | null }>(
+    'SELECT t.id, t.item_id, t.observed, t.observed_by_name, t.observed_at, t.note FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ? AND t.user_id = ?',
+    { type: QueryTypes.SELECT, replacements: [cohort.id, traineeId], transaction },
+  );
+  const met = await sequelize.query<{ n: number }>(
+    "SELECT COUNT(*) AS n FROM run_verdicts v JOIN runs r ON r.id = v.run_id WHERE r.cohort_id = ? AND r.operator_id = ? AND r.status = 'complete' AND v.all_met = 1",
+    { type: QueryTypes.SELECT, replacements: [cohort.id, traineeId], transaction },
+  );
   const tickOf = (itemId: number): ChecklistTickDto | null => {
     const row = ticks.find((t) => Number(t.item_id) === itemId);
     return row ? { id: Number(row.id), observed: Boolean(row.observed), byName: row.observed_by_name, at: new Date(row.observed_at).toISOString(), note: row.note } : null;
