@@ -12,6 +12,8 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
   declare recordValidityMonths: CreationOptional<number>;
   /** How many days before a record's valid-until date its refresher reminder goes out (90 unless the centre sets its own). */
   declare refresherLeadDays: CreationOptional<number>;
+  /** Theory pass mark in percent; null = the training default (DEFAULT_THEORY_PASS_MARK). */
+  declare theoryPassMark: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -26,6 +28,7 @@ export class Cohort extends Model<InferAttributes<Cohort>, InferCreationAttribut
         instructorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         recordValidityMonths: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 36 },
         refresherLeadDays: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 90 },
+        theoryPassMark: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
       },

@@ -11,6 +11,8 @@ export class CourseOutcome extends Model<InferAttributes<CourseOutcome>, InferCr
   declare decidedByName: string;
   declare decidedAt: Date;
   declare version: CreationOptional<number>;
+  /** Why a pass was recorded with something outstanding (null when nothing was). */
+  declare overrideReason: CreationOptional<string | null>;
 
   static initModel(sequelize: Sequelize) {
     CourseOutcome.init(
@@ -24,6 +26,7 @@ export class CourseOutcome extends Model<InferAttributes<CourseOutcome>, InferCr
         decidedByName: { type: DataTypes.STRING(160), allowNull: false },
         decidedAt: { type: DataTypes.DATE, allowNull: false },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
+        overrideReason: { type: DataTypes.STRING(400), allowNull: true },
       },
       { sequelize, tableName: 'course_outcomes', underscored: true, timestamps: false },
     );

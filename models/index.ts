@@ -38,6 +38,9 @@ import { CourseOutcome } from './course-outcome';
 import { TrainingRecord } from './training-record';
 import { Job } from './job';
 import { RefresherReminder } from './refresher-reminder';
+import { TheoryResult } from './theory-result';
+import { ChecklistItem } from './checklist-item';
+import { ChecklistTick } from './checklist-tick';
 import { User } from './user';
 import { UserPreference } from './user-preference';
 import { UserSession } from './user-session';
@@ -86,6 +89,9 @@ export const MODELS = [
   LubricantLot,
   Job,
   RefresherReminder,
+  TheoryResult,
+  ChecklistItem,
+  ChecklistTick,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -122,6 +128,9 @@ export const MODELS = [
 
 export {
   sequelize,
+  TheoryResult,
+  ChecklistItem,
+  ChecklistTick,
   RunHold,
   HardwareSet,
   LubricantLot,

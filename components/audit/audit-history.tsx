@@ -20,6 +20,14 @@ const ACTION_LABELS: Record<string, string> = {
   revoke: 'Record of training revoked',
   replace: 'Replaced by a reissued record',
   record_validity: 'Validity of records changed',
+  pass_override: 'Pass recorded with an override',
+  theory_pass_mark: 'Theory pass mark changed',
+  checklist: 'Observation checklist changed',
+  tick: 'Observed',
+  untick: 'Marked as not observed',
+  invite_create: 'Account created by invitation',
+  accept_invitation: 'Invitation accepted',
+  password_reset: 'Password reset',
 };
 
 /** What changed between before and after, as "field: old → new" lines (only fields that differ). */

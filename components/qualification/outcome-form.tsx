@@ -12,11 +12,13 @@ import { FormMessage } from '../ui/form-message';
 interface OutcomeFormProps {
   cohortId: number;
   traineeId: number;
-  outcome: { decision: 'pass' | 'not_yet'; scopes: string[]; version: number } | null;
+  outcome: { decision: 'pass' | 'not_yet'; scopes: string[]; version: number; overrideReason: string | null } | null;
+  /** What is outstanding for a pass; when anything is, a pass needs an override reason. */
+  outstanding: string[];
 }
 
-/** The decision (pass or not yet) and the scopes it covers. */
-export function OutcomeForm({ cohortId, traineeId, outcome }: OutcomeFormProps) {
+/** The decision (pass or not yet), the scopes it covers and, while anything is outstanding, the reason for a pass anyway. */
+export function OutcomeForm({ cohortId, traineeId, outcome, outstanding }: OutcomeFormProps) {
   const [state, action, pending] = useActionState(decideOutcomeAction.bind(null, cohortId, traineeId), IDLE_FORM_STATE);
   const scopes = [...new Set([...DEFAULT_SCOPES, ...(outcome?.scopes ?? [])])];
   return (
@@ -35,9 +37,17 @@ export function OutcomeForm({ cohortId, traineeId, outcome }: OutcomeFormProps) 
         ))}
       </fieldset>
       <FieldError id="scopes-error" messages={state.fieldErrors?.scopes} />
+      {outstanding.length ? (
+        <label className="block text-sm">
+          <span className="block font-medium">Reason for a pass with something outstanding</span>
+          <span id="override-hint" className="block text-xs text-muted">A pass is refused without it; the reason is kept with the decision and in its history.</span>
+          <textarea name="overrideReason" rows={2} maxLength={400} defaultValue={outcome?.overrideReason ?? ''} aria-describedby="override-hint override-error" className="mt-1 w-full rounded-md border border-rule bg-paper p-2" />
+        </label>
+      ) : null}
+      <FieldError id="override-error" messages={state.fieldErrors?.overrideReason} />
       <div className="flex flex-wrap items-center gap-4">
         <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-60">{pending ? 'Saving…' : 'Save the decision'}</button>
-        <FormMessage status={state.status} message={state.fieldErrors ? null : state.message} />
+        <FormMessage status={state.status} message={state.fieldErrors && !state.fieldErrors.overrideReason ? null : state.message} />
       </div>
     </form>
   );

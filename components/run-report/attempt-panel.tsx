@@ -1,10 +1,9 @@
 'use client';
 
 import { useActionState } from 'react';
-import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
+import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import { FormMessage } from '@/components/ui/form-message';
-
-type Action = (state: FormState, formData: FormData) => Promise<FormState>;
+import { ReasonForm, SetAsideForm, type RunStatusAction as Action } from './set-aside-form';
 
 export interface AttemptActions {
   confirm: Action | null;
@@ -19,8 +18,7 @@ export function AttemptPanel({ actions }: { actions: AttemptActions }) {
     <section aria-labelledby="attempt-heading" className="no-print space-y-4 rounded-card border border-rule bg-panel p-4">
       <h2 id="attempt-heading" className="text-lg font-semibold">Attempt and status</h2>
       {actions.confirm ? <ConfirmForm action={actions.confirm} /> : null}
-      {actions.setAside ? <ReasonForm action={actions.setAside} id="set-aside" label="Reason for setting this run aside" button="Set aside"
-        hint="A set-aside run stays on record but leaves comparisons, progress and assessments." /> : null}
+      {actions.setAside ? <SetAsideForm action={actions.setAside} /> : null}
       {actions.restore ? <ReasonForm action={actions.restore} id="restore" label="Reason for restoring this run" button="Restore" hint="The run counts again in comparisons and progress." /> : null}
     </section>
   );
@@ -35,20 +33,6 @@ function ConfirmForm({ action }: { action: Action }) {
       <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
         {pending ? 'Confirming…' : 'I witnessed this run: count it as an assessed attempt'}
       </button>
-    </form>
-  );
-}
-
-function ReasonForm({ action, id, label, button, hint }: { action: Action; id: string; label: string; button: string; hint: string }) {
-  const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
-  return (
-    <form action={formAction} className="space-y-2">
-      <label htmlFor={`${id}-reason`} className="block text-sm font-medium">{label}</label>
-      <p id={`${id}-hint`} className="text-xs text-muted">{hint}</p>
-      <input id={`${id}-reason`} name="reason" required minLength={3} maxLength={400} aria-describedby={`${id}-hint`} className="w-full rounded-md border border-rule bg-paper p-2" />
-      {state.fieldErrors?.reason?.map((e) => <p key={e} className="text-sm text-danger">{e}</p>)}
-      <FormMessage status={state.status} message={state.message} />
-      <button type="submit" disabled={pending} className="rounded-md border border-rule px-4 py-2 hover:bg-rule/60 disabled:opacity-60">{pending ? 'Saving…' : button}</button>
     </form>
   );
 }

@@ -5,15 +5,16 @@ import { IDLE_FORM_STATE, type FormState } from '@/lib/http/form-state';
 import type { RunReviewDto } from '@/lib/data/run-report';
 import { isOverYield } from '@/lib/run-check/check-run';
 import { formatDateTime } from '@/lib/format/format-date';
+import { SetAsideForm } from './set-aside-form';
 
 type ReviewAction = (state: FormState, formData: FormData) => Promise<FormState>;
 
 /**
  * The run check's findings on the report: the reasons a run was held, the decision taken on them
- * (who, when, note), the form to confirm or set aside while it awaits review, and a caution when
- * loads went above the stud's yield load.
+ * (who, when, note), the form to confirm it and the one set-aside form while it awaits review, and a
+ * caution when loads went above the stud's yield load.
  */
-export function ReviewPanel({ review, status, action }: { review: RunReviewDto; status: string; action: ReviewAction | null }) {
+export function ReviewPanel({ review, status, action, setAsideAction }: { review: RunReviewDto; status: string; action: ReviewAction | null; setAsideAction: ReviewAction | null }) {
   const waiting = status === 'needs_review';
   return (
     <section aria-labelledby="review-heading" className="rounded-card border border-caution/60 bg-panel p-4 text-sm">
@@ -40,6 +41,7 @@ export function ReviewPanel({ review, status, action }: { review: RunReviewDto; 
         </p>
       ) : null}
       {waiting && action ? <ReviewForm action={action} /> : null}
+      {waiting && setAsideAction ? <div className="no-print mt-4"><SetAsideForm action={setAsideAction} /></div> : null}
     </section>
   );
 }
@@ -48,18 +50,15 @@ function ReviewForm({ action }: { action: ReviewAction }) {
   const [state, formAction, pending] = useActionState(action, IDLE_FORM_STATE);
   return (
     <form action={formAction} className="no-print mt-4 space-y-2">
-      <label htmlFor="review-note" className="block font-medium">Note (what you checked, or why the run is set aside)</label>
+      <label htmlFor="review-note" className="block font-medium">Note (what you checked)</label>
       <textarea id="review-note" name="note" rows={3} maxLength={1000} required aria-describedby="review-feedback" className="w-full rounded-md border border-rule bg-paper p-2" />
       <div id="review-feedback" aria-live="polite">
         {state.fieldErrors?.note?.map((e) => <p key={e} className="text-danger">{e}</p>)}
         {state.message ? <p className={state.status === 'ok' ? 'text-good' : 'text-danger'}>{state.message}</p> : null}
       </div>
       <div className="flex flex-wrap gap-2">
-        <button type="submit" name="decision" value="confirm" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
+        <button type="submit" disabled={pending} className="rounded-md bg-accent px-4 py-2 text-accent-ink disabled:opacity-60">
           Confirm: the run counts
-        </button>
-        <button type="submit" name="decision" value="set_aside" disabled={pending} className="rounded-md border border-rule px-4 py-2 disabled:opacity-60">
-          Set aside
         </button>
       </div>
     </form>

@@ -34,13 +34,15 @@ interface Props {
   /** How the run came in and whether it counts as an assessed attempt. */
   attempt: { kind: AttemptKind; sourceLine: string };
   commentAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
-  /** Confirm or set aside a run held for review; null for those who may not decide. */
+  /** Confirm a run held for review; null for those who may not decide. */
   reviewAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  /** The one set-aside action, shown on the needs-review panel while the run is held; null otherwise. */
+  setAsideAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
   relaxation: RunRelaxation;
   holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, relaxation, holdAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, setAsideAction, relaxation, holdAction }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -87,7 +89,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
             <strong>Set aside:</strong> {header.setAsideReason ?? 'no reason given'}. This run is kept but left out of statistics.
           </p>
         ) : null}
-        {header.review ? <ReviewPanel review={header.review} status={header.status} action={reviewAction} /> : null}
+        {header.review ? <ReviewPanel review={header.review} status={header.status} action={reviewAction} setAsideAction={setAsideAction} /> : null}
         <dl className="grid gap-x-6 gap-y-2 rounded-card border border-rule bg-panel p-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
           <Item term="Joint" value={`${header.joint.name}`} detail={`${header.studCount} studs · ${header.joint.thread} · ${header.joint.studGrade} · ${header.joint.gasketType}${header.joint.versionNumber === null ? '' : ` · as recorded (version ${header.joint.versionNumber})`}`} />
           <Item term="Method" value={TOOL_LABELS[header.method.toolKind] ?? header.method.toolKind} detail={`Passes at ${header.method.passPercents.map((p) => `${p} %`).join(', ')}`} />

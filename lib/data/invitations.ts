@@ -15,6 +15,7 @@ import { nameSchema } from '../validation/display-name';
 import { assertRole, type SessionUser } from '../auth/session';
 import { COHORT_ROLES, manageableCohort } from './cohort-access';
 import { endAllSessions } from './session-store';
+import { writeAudit } from './audit-log';
 
 export const MAX_INVITES_AT_ONCE = 100;
 export const PASSWORD_MIN_LENGTH = 10;
@@ -61,7 +62,10 @@ export async function inviteToCohort(user: SessionUser | null, cohortId: number,
     for (const email of valid) {
       let account = await User.findOne({ where: { email }, transaction, lock: transaction.LOCK.UPDATE });
       const isNew = !account;
-      account ??= await User.create({ name: email.split('@')[0] ?? email, email, passwordHash: null, role: 'trainee' }, { transaction });
+      if (!account) {
+        account = await User.create({ name: email.split('@')[0] ?? email, email, passwordHash: null, role: 'trainee' }, { transaction });
+        await writeAudit(transaction, user, { objectType: 'account', objectId: account.id, action: 'invite_create', after: { email, role: 'trainee', cohortId: cohort.id, pending: true } });
+      }
       const member = await CohortMember.findOne({ where: { cohortId: cohort.id, userId: account.id }, transaction });
       if (member && !isNew && account.passwordHash !== null) {
         outcome.alreadyMembers.push(email);
@@ -185,8 +189,17 @@ export async function setPasswordWithToken(value: string, purpose: TokenPurpose,
     if (!row || state !== 'valid') throw new AppError(state === 'unknown' ? 'not_found' : 'conflict', TOKEN_STATE_MESSAGE[state === 'valid' ? 'unknown' : state]);
     const account = await User.findByPk(row.userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!account || !account.isActive) throw new AppError('forbidden', 'This account is deactivated; ask the centre’s admin.');
+    const before = { name: account.name, pending: account.passwordHash === null };
     await account.update({ passwordHash, ...(purpose === 'invite' && parsed.data.name ? { name: parsed.data.name } : {}) }, { transaction });
     await row.update({ usedAt: now }, { transaction });
+    // Never the hash or the link's token: only that a password is now set, and by which way.
+    await writeAudit(transaction, { id: account.id, name: account.name }, {
+      objectType: 'account',
+      objectId: account.id,
+      action: purpose === 'invite' ? 'accept_invitation' : 'password_reset',
+      before,
+      after: { name: account.name, pending: false, passwordSet: true, sessionsEnded: true },
+    });
     // A new password ends every session opened with the old one.
     await endAllSessions(account.id, transaction, now);
     // Any other open link of the same purpose for this account stops working too.

@@ -1,10 +1,17 @@
 /**
- * The course outcome's pieces besides the attempts: a theory result against a pass mark, the
- * observation checklist (what the gauges cannot see) and the scopes. Pure; stored per cohort and
- * trainee by lib/data/qualification/course-outcomes.ts.
+ * What stands behind a course outcome besides the decision: the witnessed practical attempts, the
+ * theory result against the cohort's pass mark and the observation checklist (what the gauges cannot
+ * see). Pure; stored per cohort and trainee by lib/data/qualification/course-evidence.ts.
+ *
+ * The rule for a pass (lib/data/qualification/course-outcomes.ts): when anything below is
+ * outstanding, a pass is recorded only with an explicit override reason, stored and audited;
+ * without one it is refused.
  */
 
-/** What an instructor watches for beside the loads (common practice in the trade; the cohort sets its own list). */
+/**
+ * The starting list the instructor edits (common practice in the trade: what an instructor watches
+ * for beside the loads; the cohort sets its own list).
+ */
 export const DEFAULT_CHECKLIST = [
   'Surface and thread preparation',
   'Lubrication',
@@ -13,28 +20,31 @@ export const DEFAULT_CHECKLIST = [
   "Keeping clear of the tool's line of action",
 ] as const;
 
-/** The theory pass mark in percent (training default: set your own). */
+/** The theory pass mark in percent when the cohort sets none (training default: set your own; from memory, not a standard's figure). */
 export const DEFAULT_THEORY_PASS_MARK = 70;
 
-export interface CourseSettings {
-  theoryPassMark: number;
-  checklist: string[];
-  scopes: string[];
-}
+/** The theory rule: a score exactly at the pass mark passes (score ≥ mark). */
+export const theoryPassed = (scorePercent: number, passMarkPercent: number): boolean => scorePercent >= passMarkPercent;
 
 export interface OutcomeEvidence {
+  /** Signed-off assessed attempts whose verdict met every criterion. */
+  attemptsMet: number;
   theoryScore: number | null;
-  observed: string[];
+  theoryPassMark: number;
+  /** The cohort's items in force (retired ones left out), each observed or not for this trainee. */
+  checklist: ReadonlyArray<{ label: string; observed: boolean }>;
 }
 
-/** Why a pass cannot be recorded yet (empty when it can): the theory result and every checklist item. */
-export function passBlockers(evidence: OutcomeEvidence, settings: CourseSettings): string[] {
-  const blockers: string[] = [];
-  if (evidence.theoryScore === null) blockers.push('Enter the theory result.');
-  else if (evidence.theoryScore < settings.theoryPassMark) blockers.push(`The theory result (${evidence.theoryScore} %) is below the pass mark (${settings.theoryPassMark} %).`);
-  const missing = settings.checklist.filter((item) => !evidence.observed.includes(item));
-  if (missing.length) blockers.push(`Not yet observed: ${missing.join(', ')}.`);
-  return blockers;
+/** What is outstanding for a pass (empty when nothing is), in words for the instructor. */
+export function outstandingItems(evidence: OutcomeEvidence): string[] {
+  const items: string[] = [];
+  if (evidence.attemptsMet === 0) items.push('No signed-off assessed attempt meets every criterion.');
+  if (evidence.theoryScore === null) items.push('No theory result entered.');
+  else if (!theoryPassed(evidence.theoryScore, evidence.theoryPassMark)) items.push(`The theory result (${evidence.theoryScore} %) is below the pass mark (${evidence.theoryPassMark} %).`);
+  if (evidence.checklist.length === 0) items.push('The cohort has no observation checklist yet.');
+  const missing = evidence.checklist.filter((item) => !item.observed).map((item) => item.label);
+  if (missing.length) items.push(`Not yet observed: ${missing.join(', ')}.`);
+  return items;
 }
 
 /** Lines of a textarea → a clean list (trimmed, blanks and repeats dropped, at most `max`). */

@@ -15,6 +15,7 @@ import { compareRuns, compareQuerySchema } from '@/lib/data/compare';
 import { signOffRun } from '@/lib/data/assessment';
 import { exportRunsCsv } from '@/lib/data/exports';
 import { reviewRun } from '@/lib/data/runs/run-review';
+import { setRunAside } from '@/lib/data/qualification/attempts';
 import type { SessionUser } from '@/lib/auth/session';
 import type { AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
@@ -148,10 +149,10 @@ describe('the run check on upload', () => {
     expect((await exportedRunIds()).has(contradicting.runId!)).toBe(false);
 
     // A note is required; a trainee may not decide.
-    await expect(reviewRun(trainee, contradicting.runId!, { decision: 'confirm', note: 'fine' })).rejects.toMatchObject({ code: 'forbidden' });
+    await expect(reviewRun(trainee, contradicting.runId!, { note: 'fine' })).rejects.toMatchObject({ code: 'forbidden' });
 
     // Confirmed with a note: counted from now on, who/when/note kept.
-    await reviewRun(instructor, contradicting.runId!, { decision: 'confirm', note: 'Four passes were run on purpose for the lesson; the method was chosen wrongly.' });
+    await reviewRun(instructor, contradicting.runId!, { note: 'Four passes were run on purpose for the lesson; the method was chosen wrongly.' });
     const [confirmed] = await sequelize.query<{ status: string; reviewed_by_id: number; reviewed_at: Date | null; review_note: string; review_reasons: string | null }>(
       'SELECT status, reviewed_by_id, reviewed_at, review_note, review_reasons FROM runs WHERE id = ?',
       { type: QueryTypes.SELECT, replacements: [contradicting.runId] },
@@ -164,8 +165,9 @@ describe('the run check on upload', () => {
     await expect(signOffRun(instructor, contradicting.runId!, 'Signed after review.')).resolves.toMatchObject({ verdictId: expect.any(Number) });
 
     // A second decision on the same run is refused; the over-yield run is set aside by a researcher and stays out.
-    await expect(reviewRun(instructor, contradicting.runId!, { decision: 'set_aside', note: 'again' })).rejects.toMatchObject({ code: 'conflict' });
-    await reviewRun(researcher, overYield.runId!, { decision: 'set_aside', note: 'Studs over yield: replaced before the next lesson.' });
+    await expect(reviewRun(instructor, contradicting.runId!, { note: 'again' })).rejects.toMatchObject({ code: 'conflict' });
+    // Set aside through the one set-aside path (the needs-review panel posts the same action as the attempt panel).
+    await setRunAside(researcher, overYield.runId!, 'Studs over yield: replaced before the next lesson.');
     const [setAside] = await sequelize.query<{ status: string; set_aside_reason: string }>('SELECT status, set_aside_reason FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [overYield.runId] });
     expect(setAside).toEqual({ status: 'set_aside', set_aside_reason: 'Studs over yield: replaced before the next lesson.' });
     expect(await compareTotal()).toBe(countedBefore + 1);

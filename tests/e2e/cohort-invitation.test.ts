@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
 import { sequelize } from '@/lib/platform/db';
 import { storeFixtureRun } from '../integration/run-fixture';
+import { DEFAULT_CHECKLIST } from '@/lib/qualification/course-outcome';
 import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { launchBrowser, screenshotPath, signedInPage, signInThroughForm } from '../support/browser';
@@ -195,9 +196,30 @@ describe('a cohort invitation from the instructor to a signed result e-mail, in 
     await page.goto(`${server.baseUrl}/cohorts/${cohortId}/trainees/${trainee!.id}`);
     await page.getByRole('heading', { name: 'Course outcome' }).waitFor();
     expect(await page.getByRole('button', { name: 'Issue the record of training' }).count(), 'no record before a pass').toBe(0);
+    // Before the decision: the cohort's checklist from the starting list, the theory result, every item ticked.
+    await page.getByRole('button', { name: 'Save the checklist' }).click();
+    for (const item of DEFAULT_CHECKLIST) await page.getByRole('form', { name: item, exact: true }).waitFor({ timeout: 15_000 });
+    await page.getByLabel('Theory score (%)').fill('85');
+    await page.getByRole('button', { name: 'Save the theory result' }).click();
+    // 85 % against the training default of 70 %: passed (lib/qualification/course-outcome.ts, score ≥ mark).
+    await page.getByTestId('theory-summary').filter({ hasText: 'Passed: 85 % against the pass mark of 70 %' }).waitFor({ timeout: 15_000 });
+    for (const item of DEFAULT_CHECKLIST) {
+      const tick = page.getByRole('form', { name: item, exact: true });
+      await tick.getByRole('button', { name: 'Observed', exact: true }).click();
+      await tick.getByRole('button', { name: 'Not observed', exact: true }).waitFor({ timeout: 15_000 });
+    }
+    await page.getByTestId('checklist-summary').filter({ hasText: '5 of 5 observed' }).waitFor({ timeout: 15_000 });
+    expect(await count("SELECT COUNT(*) AS n FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ? AND t.user_id = ? AND t.observed = 1", [cohortId, trainee!.id])).toBe(5);
+
+    // The signed-off attempt above did not meet every criterion, so a pass is refused without an override reason.
     await page.getByLabel('Pass', { exact: true }).check();
     await page.getByLabel('Hand torque').check();
     await page.getByRole('button', { name: 'Save the decision' }).click();
+    await page.getByText(/^Outstanding: No signed-off assessed attempt meets every criterion\./).waitFor({ timeout: 15_000 });
+    expect(await count('SELECT COUNT(*) AS n FROM course_outcomes WHERE cohort_id = ?', [cohortId]), 'the refusal saved nothing').toBe(0);
+    await page.getByLabel('Reason for a pass with something outstanding').fill('Stud 5 ran high once; corrected and watched on the joint afterwards.');
+    await page.getByRole('button', { name: 'Save the decision' }).click();
+    await page.getByText('Saved: pass, with the override reason on record.').waitFor({ timeout: 15_000 });
     await page.getByRole('button', { name: 'Issue the record of training' }).click({ timeout: 15_000 });
     // The issue button gives way to the record itself (code, dates, downloads) once it is issued.
     await expect.poll(() => count('SELECT COUNT(*) AS n FROM training_records WHERE cohort_id = ?', [cohortId]), { timeout: 15_000 }).toBe(1);

@@ -5,7 +5,7 @@ import { signOffRun } from '@/lib/data/assessment';
 import { createCohort } from '@/lib/data/cohorts';
 import { compareQuerySchema, compareRuns } from '@/lib/data/compare';
 import { auditLogCsv } from '@/lib/data/audit-log';
-import { changeRunStatus, confirmAttempt, runAttempt } from '@/lib/data/qualification/attempts';
+import { confirmAttempt, restoreRun, runAttempt, setRunAside } from '@/lib/data/qualification/attempts';
 import type { SessionUser } from '@/lib/auth/session';
 import { jointTarget, storeFixtureRun } from './run-fixture';
 import { count, demoPeople, tableCounts } from './support';
@@ -85,10 +85,10 @@ describe('setting a run aside', () => {
     const runsBefore = await inCohort();
     expect(runsBefore).toBeGreaterThan(0);
 
-    await expect(changeRunStatus(instructor, runId, 'set_aside', ' ')).rejects.toMatchObject({ code: 'invalid_input', details: { field: 'reason' } });
-    await expect(changeRunStatus(researcher, runId, 'set_aside', 'Research: a cohort run')).rejects.toMatchObject({ code: 'not_found' });
-    await expect(changeRunStatus(otherInstructor, runId, 'set_aside', 'Not my cohort')).rejects.toMatchObject({ code: 'not_found' });
-    await changeRunStatus(instructor, runId, 'set_aside', 'Load cell 3 out of calibration');
+    await expect(setRunAside(instructor, runId, ' ')).rejects.toMatchObject({ code: 'invalid_input', details: { field: 'reason' } });
+    await expect(setRunAside(researcher, runId, 'Research: a cohort run')).rejects.toMatchObject({ code: 'not_found' });
+    await expect(setRunAside(otherInstructor, runId, 'Not my cohort')).rejects.toMatchObject({ code: 'not_found' });
+    await setRunAside(instructor, runId, 'Load cell 3 out of calibration');
 
     const [entry] = await sequelize.query<{ actor_id: number; action: string; reason: string; before_json: string; after_json: string }>(
       "SELECT actor_id, action, reason, before_json, after_json FROM audit_log WHERE object_type = 'run' AND object_id = ? ORDER BY id DESC LIMIT 1",
@@ -101,7 +101,7 @@ describe('setting a run aside', () => {
     await expect(signOffRun(instructor, runId, 'no')).rejects.toMatchObject({ code: 'invalid_input' });
     expect((await runAttempt(instructor, runId)).history.map((h) => h.action)).toEqual(['set_aside']);
 
-    await changeRunStatus(admin, runId, 'complete', 'Calibration checked again: fine');
+    await restoreRun(admin, runId, 'Calibration checked again: fine');
     expect(await inCohort()).toBe(runsBefore);
     expect((await runAttempt(instructor, runId)).history.map((h) => h.action)).toEqual(['set_aside', 'restore']);
     expect(await auditLogCsv(admin)).toContain('Calibration checked again: fine');

@@ -131,6 +131,29 @@ describe('one-time links', () => {
     expect(linkIn(reset[reset.length - 1]!.text_body, 'reset')).toHaveLength(43);
   });
 
+  it('audits the account an invitation creates, its acceptance and a password reset, never with a hash or a token', async () => {
+    const email = newAddress('audited');
+    createdEmails.push(email);
+    await inviteToCohort(instructor, cohortId, email);
+    const [account] = await sequelize.query<{ id: number }>('SELECT id FROM users WHERE email = ?', { type: QueryTypes.SELECT, replacements: [email] });
+    const invite = linkIn((await mailTo(email))[0]!.text_body, 'welcome');
+    await setPasswordWithToken(invite, 'invite', { name: 'Audit Person', password: 'an audited password', confirm: 'an audited password' });
+    await requestPasswordReset(email);
+    const reset = linkIn((await mailTo(email)).filter((m) => m.subject.includes('Reset')).at(-1)!.text_body, 'reset');
+    await setPasswordWithToken(reset, 'reset', { password: 'a second password', confirm: 'a second password' });
+    const rows = await sequelize.query<{ actor_id: number; action: string; before_json: string | null; after_json: string }>(
+      "SELECT actor_id, action, before_json, after_json FROM audit_log WHERE object_type = 'account' AND object_id = ? ORDER BY id",
+      { type: QueryTypes.SELECT, replacements: [account!.id] },
+    );
+    expect(rows.map((r) => [Number(r.actor_id), r.action])).toEqual([[instructor.id, 'invite_create'], [Number(account!.id), 'accept_invitation'], [Number(account!.id), 'password_reset']]);
+    expect(JSON.parse(rows[0]!.after_json)).toMatchObject({ email, role: 'trainee', pending: true });
+    expect(JSON.parse(rows[1]!.before_json!)).toMatchObject({ pending: true });
+    expect(JSON.parse(rows[1]!.after_json)).toMatchObject({ name: 'Audit Person', pending: false, passwordSet: true });
+    const [{ password_hash: hash }] = (await sequelize.query<{ password_hash: string }>('SELECT password_hash FROM users WHERE id = ?', { type: QueryTypes.SELECT, replacements: [account!.id] })) as [{ password_hash: string }];
+    const written = rows.map((r) => `${r.before_json ?? ''}${r.after_json}`).join(' ');
+    for (const secret of [hash, invite, reset, hashToken(invite), hashToken(reset), 'an audited password', 'a second password']) expect(written).not.toContain(secret);
+  });
+
   it('sends at most 5 reset mails per address in 15 minutes, silently', async () => {
     await sequelize.query('DELETE FROM sign_in_attempts WHERE attempt_key = ?', { replacements: [`reset:${DEMO_ACCOUNTS.instructor}`] });
     const before = (await mailTo(DEMO_ACCOUNTS.instructor)).length;

@@ -52,7 +52,7 @@ describe('hardware sets and lubricant lots', () => {
     // One step is not the method's plan, so the check before a run counts holds both runs for review;
     // the instructor confirms them, as on the run report, and they count in comparisons.
     const held = await sequelize.query<{ id: number }>("SELECT id FROM runs WHERE id IN (?) AND status = 'needs_review'", { type: QueryTypes.SELECT, replacements: [runIds] });
-    for (const { id } of held) await reviewRun(instructor, Number(id), { decision: 'confirm', note: 'Test runs of one step, confirmed for the hardware check.' });
+    for (const { id } of held) await reviewRun(instructor, Number(id), { note: 'Test runs of one step, confirmed for the hardware check.' });
     const byUse = await compareRuns(instructor, compareQuerySchema.parse({ by: 'hardwareUse', operatorId: String(instructor.id), from: '2026-03-01', to: '2026-03-01' }));
     expect(byUse.groups.map((g) => g.label)).toEqual(['Use 1 of the set', 'Use 2 of the set']);
     const byLot = await compareRuns(instructor, compareQuerySchema.parse({ by: 'lubricantLot', ids: String(lotId) }));

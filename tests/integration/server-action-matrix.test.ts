@@ -73,6 +73,7 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addHoldsAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.addHoldsAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'addCommentAction', allowed: ['instructor', 'admin'], call: () => comments.addCommentAction(ids.run, idle, (() => { const f = form(); f.set('body', 'matrix comment'); return f; })()) },
   // Issue 17. Empty reasons and an already assessed run: callers who get past the role check change nothing.
+  // setAsideAction is the one set-aside of both the attempt panel and the needs-review panel.
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'confirmAttemptAction', allowed: ['instructor'], call: () => comments.confirmAttemptAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setAsideAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.setAsideAction(ids.run, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'restoreRunAction', allowed: ['instructor', 'researcher', 'admin'], call: () => comments.restoreRunAction(ids.run, idle, form()) },
@@ -97,6 +98,11 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'reissueRecordAction', allowed: ['instructor', 'admin'], call: () => trainee.reissueRecordAction(ids.cohort, ids.trainee, 0, idle, form()) },
   // Job 0 does not exist: the admin is told so (404), changing nothing.
   { file: 'app/(lab)/admin/jobs/actions.ts', name: 'retryJobAction', allowed: ['admin'], call: () => jobs.retryJobAction(0, idle, form()) },
+  // Issue 17 item 3: empty forms; allowed callers are told a field is wrong, changing nothing (zod at the boundary).
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'theoryPassMarkAction', allowed: ['instructor', 'admin'], call: () => trainee.theoryPassMarkAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'theoryResultAction', allowed: ['instructor', 'admin'], call: () => trainee.theoryResultAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'checklistAction', allowed: ['instructor', 'admin'], call: () => trainee.checklistAction(ids.cohort, ids.trainee, idle, form()) },
+  { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'checklistTickAction', allowed: ['instructor', 'admin'], call: () => trainee.checklistTickAction(ids.cohort, ids.trainee, idle, form()) },
   { file: 'app/(lab)/actions.ts', name: 'signOutEverywhereAction', allowed: ['admin', 'instructor', 'researcher', 'trainee'], call: () => lab.signOutEverywhereAction(idle, form()) },
 ];
 

@@ -53,7 +53,8 @@ describe('records of training', () => {
   });
 
   it('issues a PDF on A4 and Letter whose text names the trainee, course, scope, code and dates, with the fonts embedded', async () => {
-    await decideCourseOutcome(instructor, cohortId, trainee.id, { decision: 'pass', scopes: ['Hand torque', 'Tensioning'] }, 1);
+    // Nothing of the evidence is entered here, so the pass carries an override reason (tests/integration/course-evidence.test.ts covers the rule).
+    await decideCourseOutcome(instructor, cohortId, trainee.id, { decision: 'pass', scopes: ['Hand torque', 'Tensioning'], overrideReason: 'Assessed at the previous centre (test)' }, 1);
     await setRecordValidity(instructor, cohortId, { months: 24 });
     const issuedAt = new Date('2026-12-03T10:00:00Z');
     const record = await issueTrainingRecord(instructor, cohortId, trainee.id, issuedAt);

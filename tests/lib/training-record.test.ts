@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { addMonths, recordStatus } from '@/lib/qualification/training-record';
-import { DEFAULT_CHECKLIST, listFromLines, passBlockers } from '@/lib/qualification/course-outcome';
+import { DEFAULT_CHECKLIST, listFromLines, outstandingItems, theoryPassed } from '@/lib/qualification/course-outcome';
 import { formatVerificationCode, newVerificationCode, normaliseVerificationCode } from '@/lib/qualification/verification-code';
 
 describe('verification codes', () => {
@@ -37,13 +37,22 @@ describe('validity and status', () => {
   });
 });
 
-describe('what a pass needs beside the attempts', () => {
-  const settings = { theoryPassMark: 70, checklist: [...DEFAULT_CHECKLIST], scopes: ['Hand torque'] };
-  it('the theory result at or above the pass mark and every checklist item observed', () => {
-    expect(passBlockers({ theoryScore: 70, observed: [...DEFAULT_CHECKLIST] }, settings)).toEqual([]);
-    expect(passBlockers({ theoryScore: null, observed: [...DEFAULT_CHECKLIST] }, settings)).toEqual(['Enter the theory result.']);
-    expect(passBlockers({ theoryScore: 69, observed: [...DEFAULT_CHECKLIST] }, settings)[0]).toContain('below the pass mark');
-    expect(passBlockers({ theoryScore: 90, observed: ['Lubrication'] }, settings)).toEqual([`Not yet observed: Surface and thread preparation, Gasket placement, Tool check, Keeping clear of the tool's line of action.`]);
+describe('what a pass needs beside the decision', () => {
+  const observedAll = DEFAULT_CHECKLIST.map((label) => ({ label, observed: true }));
+  const evidence = { attemptsMet: 1, theoryScore: 70, theoryPassMark: 70, checklist: observedAll };
+  it('nothing is outstanding with a met attempt, the theory result exactly at the pass mark and every item observed', () => {
+    // The rule stated in lib/qualification/course-outcome.ts: score >= mark passes.
+    expect(theoryPassed(70, 70)).toBe(true);
+    expect(theoryPassed(69.9, 70)).toBe(false);
+    expect(outstandingItems(evidence)).toEqual([]);
+  });
+  it('names each thing that is outstanding', () => {
+    expect(outstandingItems({ ...evidence, theoryScore: null })).toEqual(['No theory result entered.']);
+    expect(outstandingItems({ ...evidence, theoryScore: 69.5 })[0]).toBe('The theory result (69.5 %) is below the pass mark (70 %).');
+    expect(outstandingItems({ ...evidence, attemptsMet: 0 })).toEqual(['No signed-off assessed attempt meets every criterion.']);
+    expect(outstandingItems({ ...evidence, checklist: [] })).toEqual(['The cohort has no observation checklist yet.']);
+    const someMissing = observedAll.map((item) => ({ ...item, observed: item.label === 'Lubrication' }));
+    expect(outstandingItems({ ...evidence, checklist: someMissing })).toEqual([`Not yet observed: Surface and thread preparation, Gasket placement, Tool check, Keeping clear of the tool's line of action.`]);
   });
 
   it('reads lists from lines', () => {

@@ -1,5 +1,5 @@
 import 'server-only';
-import { QueryTypes, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { z } from 'zod';
 import { Run, sequelize } from '@/models';
 import { AppError } from '../../http/errors';
@@ -7,7 +7,8 @@ import type { SessionUser } from '../../auth/session';
 import { attemptKind, notAssessedReason, runSourceLine, type AttemptFacts, type AttemptKind } from '../../qualification/attempt-kind';
 import type { RunSource } from '@/models/run';
 import { auditHistory, writeAudit, type AuditEntryDto } from '../audit-log';
-import { operatorLabel } from '../scope';
+import { operatorLabel, runScope } from '../scope';
+import { REVIEW_ROLES } from '../runs/run-review';
 
 interface FactsRow {
   id: number;
@@ -82,7 +83,7 @@ export async function runAttempt(user: SessionUser, runId: number): Promise<RunA
     status: row.status,
     setAsideReason: user.role === 'researcher' ? null : row.set_aside_reason,
     canConfirm: kind === 'practice' && facts.cohortInstructorId === user.id && row.status === 'complete',
-    canSetAside: row.status === 'complete' && mayChangeStatus(user, row),
+    canSetAside: (row.status === 'complete' || row.status === 'needs_review') && maySetAside(user, row),
     canRestore: row.status === 'set_aside' && mayChangeStatus(user, row),
     history: await auditHistory(user, [{ objectType: 'run', objectId: runId }]),
   };
@@ -121,32 +122,62 @@ export const statusReasonSchema = z
   .min(3, 'Give a reason (at least 3 characters), so others know why.')
   .max(400, 'Keep the reason under 400 characters.');
 
-/**
- * Sets a run aside (out of comparisons, progress and assessments) or restores it, with a reason.
- * Instructors: runs of the cohorts they teach and their own; researchers: their own runs outside
- * cohorts; admins: any. The change and its audit row commit together.
- */
-export async function changeRunStatus(user: SessionUser, runId: number, to: 'set_aside' | 'complete', rawReason: unknown): Promise<void> {
+const parseStatusReason = (rawReason: unknown): string => {
   const reason = statusReasonSchema.safeParse(rawReason);
-  if (!reason.success) {
-    const message = reason.error.issues[0]?.message ?? 'Give a reason.';
-    throw new AppError('invalid_input', message, { field: 'reason', fieldErrors: { reason: [message] } });
-  }
+  if (reason.success) return reason.data;
+  const message = reason.error.issues[0]?.message ?? 'Give a reason.';
+  throw new AppError('invalid_input', message, { field: 'reason', fieldErrors: { reason: [message] } });
+};
+
+/**
+ * Who may set a run aside. A complete run: instructors the runs of the cohorts they teach and their
+ * own, researchers their own runs outside cohorts, admins any (`mayChangeStatus`). A run held for
+ * review: whoever may review it (instructors, researchers and admins who may see it), as before.
+ */
+const maySetAside = (user: SessionUser, row: FactsRow): boolean => (row.status === 'needs_review' ? REVIEW_ROLES.includes(user.role) : mayChangeStatus(user, row));
+
+/**
+ * The one way a run is set aside (out of comparisons, progress and assessments), from the attempt
+ * panel and the needs-review panel alike: a complete run, or one held for review (then who decided,
+ * when and the reason are kept as its review too). The change and its audit row commit together; a
+ * refusal changes no row.
+ */
+export async function setRunAside(user: SessionUser, runId: number, rawReason: unknown): Promise<void> {
+  const reason = parseStatusReason(rawReason);
+  const visible = Number.isInteger(runId) ? await Run.count({ where: { [Op.and]: [await runScope(user), { id: runId }] } }) : 0;
+  if (!visible) throw new AppError('not_found', 'That run does not exist, or it is not yours to change.');
   await sequelize.transaction(async (transaction) => {
-    const row = await lockedRun(user, runId, transaction);
-    const from = to === 'set_aside' ? 'complete' : 'set_aside';
-    if (row.status !== from) {
-      throw new AppError('conflict', to === 'set_aside' ? `Only a complete run can be set aside; this run is ${row.status.replace('_', ' ')}.` : 'This run is not set aside; nothing was changed.');
-    }
-    const values = to === 'set_aside' ? { status: to, setAsideReason: reason.data, setAsideById: user.id } : { status: to, setAsideReason: null, setAsideById: null };
-    await Run.update(values, { where: { id: runId }, transaction });
+    await Run.findByPk(runId, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
+    const row = await attemptRow(runId, transaction);
+    if (!row || !maySetAside(user, row)) throw new AppError('not_found', 'That run does not exist, or it is not yours to change.');
+    if (row.status !== 'complete' && row.status !== 'needs_review') throw new AppError('conflict', `Only a complete run or one held for review can be set aside; this run is ${row.status.replace('_', ' ')}.`);
+    const review = row.status === 'needs_review' ? { reviewedById: user.id, reviewedAt: new Date(), reviewNote: reason } : {};
+    await Run.update({ status: 'set_aside', setAsideReason: reason, setAsideById: user.id, ...review }, { where: { id: runId }, transaction });
     await writeAudit(transaction, user, {
       objectType: 'run',
       objectId: runId,
-      action: to === 'set_aside' ? 'set_aside' : 'restore',
-      reason: reason.data,
+      action: 'set_aside',
+      reason,
       before: { status: row.status, setAsideReason: row.set_aside_reason },
-      after: { status: to, setAsideReason: values.setAsideReason },
+      after: { status: 'set_aside', setAsideReason: reason },
+    });
+  });
+}
+
+/** Restores a set-aside run with a reason (the same people as setting a complete run aside); it counts again. */
+export async function restoreRun(user: SessionUser, runId: number, rawReason: unknown): Promise<void> {
+  const reason = parseStatusReason(rawReason);
+  await sequelize.transaction(async (transaction) => {
+    const row = await lockedRun(user, runId, transaction);
+    if (row.status !== 'set_aside') throw new AppError('conflict', 'This run is not set aside; nothing was changed.');
+    await Run.update({ status: 'complete', setAsideReason: null, setAsideById: null }, { where: { id: runId }, transaction });
+    await writeAudit(transaction, user, {
+      objectType: 'run',
+      objectId: runId,
+      action: 'restore',
+      reason,
+      before: { status: row.status, setAsideReason: row.set_aside_reason },
+      after: { status: 'complete', setAsideReason: null },
     });
   });
 }

@@ -1,13 +1,15 @@
 import 'server-only';
 import { z } from 'zod';
-import type { Transaction } from 'sequelize';
-import { Cohort, CohortMember, CourseOutcome, User, sequelize } from '@/models';
+import { Cohort, CourseOutcome, sequelize } from '@/models';
 import { AppError } from '../../http/errors';
 import type { SessionUser } from '../../auth/session';
 import { manageableCohort } from '../cohort-access';
 import { writeAudit } from '../audit-log';
 import { nextVersion } from '../optimistic-lock';
 import { parseFields } from '../../http/server-action';
+import { cohortTrainee } from './cohort-trainee';
+import { courseEvidenceOf } from './course-evidence';
+import { overrideReasonSchema } from '../../qualification/course-evidence-input';
 import { DEFAULT_RECORD_VALIDITY_MONTHS, MAX_RECORD_VALIDITY_MONTHS } from '../../qualification/training-record';
 import { DEFAULT_REFRESHER_LEAD_DAYS, MAX_REFRESHER_LEAD_DAYS } from '../../qualification/refresher';
 
@@ -18,11 +20,14 @@ export interface CourseOutcomeDto {
   decidedByName: string;
   decidedAt: string;
   version: number;
+  /** Why a pass was recorded with something outstanding; null when nothing was. */
+  overrideReason: string | null;
 }
 
 const decisionSchema = z.object({
   decision: z.enum(['pass', 'not_yet'], { error: 'Choose pass or not yet.' }),
   scopes: z.array(z.string().trim().min(1).max(60)).max(10),
+  overrideReason: z.string().trim().max(400, 'At most 400 characters.').optional(),
 });
 
 export const outcomeDto = (row: CourseOutcome): CourseOutcomeDto => ({
@@ -32,15 +37,8 @@ export const outcomeDto = (row: CourseOutcome): CourseOutcomeDto => ({
   decidedByName: row.decidedByName,
   decidedAt: row.decidedAt.toISOString(),
   version: row.version,
+  overrideReason: row.overrideReason ?? null,
 });
-
-/** The trainee, when they are a member of the cohort; else 404 (nothing about who exists). */
-export async function cohortTrainee(cohortId: number, traineeId: number, transaction?: Transaction): Promise<User> {
-  const member = Number.isInteger(traineeId) ? await CohortMember.findOne({ where: { cohortId, userId: traineeId }, transaction }) : null;
-  const trainee = member ? await User.findByPk(traineeId, { transaction }) : null;
-  if (!trainee) throw new AppError('not_found', 'That person is not a member of this cohort.');
-  return trainee;
-}
 
 export async function courseOutcomeOf(cohortId: number, traineeId: number): Promise<CourseOutcomeDto | null> {
   const row = await CourseOutcome.findOne({ where: { cohortId, userId: traineeId } });
@@ -49,8 +47,12 @@ export async function courseOutcomeOf(cohortId: number, traineeId: number): Prom
 
 /**
  * The instructor's decision for one trainee (pass or not yet) with the scopes it covers; a pass needs
- * at least one scope. Edited through a form, so it carries a version (optimistic locking); every
- * change is written to the audit log in the same transaction.
+ * at least one scope. The rule for a pass with something outstanding (no met attempt, the theory
+ * result missing or below the pass mark, checklist items not observed): it is recorded only with an
+ * explicit override reason (3–400 characters), stored on the outcome and in the audit row; without
+ * one it is refused (422) and nothing changes. The evidence is read under the cohort's lock, the
+ * same lock every change of it takes. Edited through a form, so it carries a version (optimistic
+ * locking); every change is written to the audit log in the same transaction.
  */
 export async function decideCourseOutcome(user: SessionUser | null, cohortId: number, traineeId: number, input: unknown, sentVersion: unknown): Promise<CourseOutcomeDto> {
   const cohort = await manageableCohort(user, cohortId);
@@ -58,13 +60,30 @@ export async function decideCourseOutcome(user: SessionUser | null, cohortId: nu
   if (data.decision === 'pass' && data.scopes.length === 0) throw new AppError('invalid_input', 'A pass needs at least one scope.', { field: 'scopes' });
   await cohortTrainee(cohort.id, traineeId);
   return sequelize.transaction(async (transaction) => {
-    await Cohort.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
+    const locked = (await Cohort.findByPk(cohort.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const outstanding = data.decision === 'pass' ? (await courseEvidenceOf(locked, traineeId, transaction)).outstanding : [];
+    let overrideReason: string | null = null;
+    if (outstanding.length) {
+      const reason = overrideReasonSchema.safeParse(data.overrideReason ?? '');
+      if (!reason.success) {
+        const message = `Outstanding: ${outstanding.join(' ')} To record a pass anyway, give the reason for the override; otherwise record "not yet".`;
+        throw new AppError('invalid_input', message, { fieldErrors: { overrideReason: [reason.error.issues[0]!.message] } });
+      }
+      overrideReason = reason.data;
+    }
     const row = await CourseOutcome.findOne({ where: { cohortId: cohort.id, userId: traineeId }, transaction, lock: transaction.LOCK.UPDATE });
     const version = nextVersion(row?.version ?? 0, sentVersion);
-    const values = { decision: data.decision, scopes: JSON.stringify(data.scopes), decidedById: user!.id, decidedByName: user!.name, decidedAt: new Date(), version };
-    const before = row ? { decision: row.decision, scopes: JSON.parse(row.scopes) as unknown } : null;
+    const values = { decision: data.decision, scopes: JSON.stringify(data.scopes), decidedById: user!.id, decidedByName: user!.name, decidedAt: new Date(), version, overrideReason };
+    const before = row ? { decision: row.decision, scopes: JSON.parse(row.scopes) as unknown, overrideReason: row.overrideReason ?? null } : null;
     const saved = row ? await row.update(values, { transaction }) : await CourseOutcome.create({ cohortId: cohort.id, userId: traineeId, ...values }, { transaction });
-    await writeAudit(transaction, user, { objectType: 'course_outcome', objectId: Number(saved.id), action: row ? 'update' : 'create', before, after: { decision: data.decision, scopes: data.scopes } });
+    await writeAudit(transaction, user, {
+      objectType: 'course_outcome',
+      objectId: Number(saved.id),
+      action: overrideReason ? 'pass_override' : row ? 'update' : 'create',
+      reason: overrideReason,
+      before,
+      after: { decision: data.decision, scopes: data.scopes, overrideReason, outstanding },
+    });
     return outcomeDto(saved);
   });
 }

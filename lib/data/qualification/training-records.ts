@@ -7,7 +7,9 @@ import { assertRole, type SessionUser } from '../../auth/session';
 import { appBaseUrl } from '../../platform/env';
 import { manageableCohort } from '../cohort-access';
 import { auditHistory, writeAudit, type AuditEntryDto } from '../audit-log';
-import { cohortTrainee, courseOutcomeOf, type CourseOutcomeDto } from './course-outcomes';
+import { courseOutcomeOf, type CourseOutcomeDto } from './course-outcomes';
+import { cohortTrainee } from './cohort-trainee';
+import { courseEvidenceOf, type CourseEvidenceDto } from './course-evidence';
 import { addMonths, recordStatus, type RecordStatus } from '../../qualification/training-record';
 import { newVerificationCode } from '../../qualification/verification-code';
 import { recordOfTrainingPdf, type Paper, type RecordFonts } from '../../qualification/record-pdf';
@@ -48,6 +50,7 @@ export interface TraineeQualification {
   records: TrainingRecordDto[];
   validityMonths: number;
   refresherLeadDays: number;
+  evidence: CourseEvidenceDto;
   history: AuditEntryDto[];
 }
 
@@ -57,11 +60,14 @@ export async function traineeQualification(user: SessionUser | null, cohortId: n
   await cohortTrainee(cohort.id, traineeId);
   const outcome = await courseOutcomeOf(cohort.id, traineeId);
   const rows = await TrainingRecord.findAll({ where: { cohortId: cohort.id, userId: traineeId }, order: [['id', 'DESC']] });
+  const evidence = await courseEvidenceOf(cohort, traineeId);
   const objects = [
     ...(outcome ? [{ objectType: 'course_outcome' as const, objectId: outcome.id }] : []),
     ...rows.map((row) => ({ objectType: 'training_record' as const, objectId: Number(row.id) })),
+    ...(evidence.theory ? [{ objectType: 'theory_result' as const, objectId: evidence.theory.id }] : []),
+    ...evidence.checklist.flatMap((entry) => (entry.tick ? [{ objectType: 'checklist_tick' as const, objectId: entry.tick.id }] : [])),
   ];
-  return { outcome, records: rows.map((row) => recordDto(row)), validityMonths: cohort.recordValidityMonths, refresherLeadDays: cohort.refresherLeadDays, history: await auditHistory(user!, objects) };
+  return { outcome, records: rows.map((row) => recordDto(row)), validityMonths: cohort.recordValidityMonths, refresherLeadDays: cohort.refresherLeadDays, evidence, history: await auditHistory(user!, objects) };
 }
 
 /** The signed-in trainee's own records, newest first (Progress). */

@@ -6,7 +6,7 @@ import { okState, type FieldErrors } from '@/lib/http/form-state';
 import { parseFields, withActionRole } from '@/lib/http/server-action';
 import { REVIEW_ROLES, reviewRun, runReviewSchema } from '@/lib/data/runs/run-review';
 import { addRunComment, commentSchema } from '@/lib/data/run-comments';
-import { changeRunStatus, confirmAttempt } from '@/lib/data/qualification/attempts';
+import { confirmAttempt, restoreRun, setRunAside } from '@/lib/data/qualification/attempts';
 import { HOLD_ROLES, saveRunHolds } from '@/lib/data/run-holds';
 import { AppError } from '@/lib/http/errors';
 import { setRunTools } from '@/lib/data/equipment';
@@ -28,27 +28,31 @@ export const confirmAttemptAction = withActionRole(['instructor'], async (user, 
   return okState('Confirmed: this run now counts as an assessed attempt and can be signed off.');
 });
 
-/** Sets a run aside with a reason (instructor, researcher for their own research runs, admin). */
+/**
+ * Sets a run aside with a reason: the one action behind the attempt panel and the needs-review panel
+ * (instructor; researcher for research use; admin; the rule is `setRunAside`'s).
+ */
 export const setAsideAction = withActionRole(['instructor', 'researcher', 'admin'], async (user, form, runId: number) => {
-  await changeRunStatus(user, runId, 'set_aside', form.get('reason'));
+  await setRunAside(user, runId, form.get('reason'));
   revalidatePath(`/runs/${runId}`);
+  revalidatePath('/runs');
   return okState('Set aside. The run is kept on record but left out of comparisons, progress and assessments.');
 });
 
 /** Restores a set-aside run with a reason. */
 export const restoreRunAction = withActionRole(['instructor', 'researcher', 'admin'], async (user, form, runId: number) => {
-  await changeRunStatus(user, runId, 'complete', form.get('reason'));
+  await restoreRun(user, runId, form.get('reason'));
   revalidatePath(`/runs/${runId}`);
   return okState('Restored. The run counts again.');
 });
 
-/** Confirms a run held for review (it counts from now on) or sets it aside, with a note (bound to the run id on the page). */
+/** Confirms a run held for review, with a note: it counts from now on (bound to the run id on the page; setting it aside is `setAsideAction`). */
 export const reviewRunAction = withActionRole(REVIEW_ROLES, async (user, form, runId: number) => {
-  const input = parseFields(runReviewSchema, { decision: form.get('decision'), note: form.get('note') }, 'The decision needs a note.');
-  const { status } = await reviewRun(user, runId, input);
+  const input = parseFields(runReviewSchema, { note: form.get('note') }, 'The confirmation needs a note.');
+  await reviewRun(user, runId, input);
   revalidatePath(`/runs/${runId}`);
   revalidatePath('/runs');
-  return okState(status === 'complete' ? 'Run confirmed: it now counts in comparisons, assessments and exports.' : 'Run set aside: it is kept but left out of statistics.');
+  return okState('Run confirmed: it now counts in comparisons, assessments and exports.');
 });
 
 const MAX_HOLD_FILE_BYTES = 256 * 1024;

@@ -47,6 +47,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
         attempt={{ kind: attempt.kind, sourceLine: attempt.sourceLine }}
         commentAction={user.role === 'instructor' || user.role === 'admin' ? addCommentAction.bind(null, parsed.data) : null}
         reviewAction={REVIEW_ROLES.includes(user.role) ? reviewRunAction.bind(null, parsed.data) : null}
+        setAsideAction={attempt.canSetAside && attempt.status === 'needs_review' ? setAsideAction.bind(null, id) : null}
         relaxation={relaxation}
         holdAction={HOLD_ROLES.includes(user.role) ? addHoldsAction.bind(null, parsed.data) : null}
       />
@@ -54,7 +55,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
       <FigureHistory entries={history} />
       <AttemptPanel actions={{
         confirm: attempt.canConfirm ? confirmAttemptAction.bind(null, id) : null,
-        setAside: attempt.canSetAside ? setAsideAction.bind(null, id) : null,
+        setAside: attempt.canSetAside && attempt.status === 'complete' ? setAsideAction.bind(null, id) : null,
         restore: attempt.canRestore ? restoreRunAction.bind(null, id) : null,
       }} />
       {user.role === 'instructor' || user.role === 'admin' ? <AuditHistory entries={attempt.history} title="History of this run" /> : null}

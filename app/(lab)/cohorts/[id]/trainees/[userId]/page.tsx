@@ -59,7 +59,12 @@ export default async function TraineeSheetPage({ params }: { params: Promise<{ i
           </ul>
         </section>
       ) : null}
-      <RecordOfTrainingSection cohortId={cohort.id} traineeId={member.id} qualification={qualification} />
+      <RecordOfTrainingSection
+        cohortId={cohort.id}
+        traineeId={member.id}
+        qualification={qualification}
+        attempts={runs.map((r) => ({ runId: r.id, recordedAt: r.recordedAt, methodName: r.methodName, verdict: r.verdict ? { allMet: r.verdict.allMet, signedByName: r.verdict.signedByName, signedAt: r.verdict.signedAt } : null }))}
+      />
       <PrintSignature roles={['Trainee', 'Instructor']} />
       <p className="text-xs text-muted">Training results on an instrumented training joint; the approved procedure, local codes and qualified engineering judgement govern every real joint.</p>
     </article>
