@@ -8,6 +8,7 @@ import { env } from '../../lib/platform/env';
 import { checkCompareCache, checkReadYourWrites, checkSession, checkSignInThrottle } from './checks-reads';
 import { checkInvitation, checkStream } from './checks-flows';
 import { checkInstanceStopped, checkReplicaStopped } from './checks-faults';
+import { checkReplicaLagging } from './checks-lag';
 import { cluster, primaryRows } from './cluster';
 import { type CheckResult, createTestbed, type Testbed } from './fixtures';
 
@@ -30,6 +31,7 @@ async function main(): Promise<number> {
   const steps: Array<[string, () => Promise<CheckResult | CheckResult[]>]> = [
     ['session', () => checkSession(testbed)],
     ['read-your-writes', () => checkReadYourWrites(testbed, windowMs)],
+    ['replica lagging', () => checkReplicaLagging(testbed, windowMs)],
     ['compare cache', () => checkCompareCache(testbed)],
     ['sign-in throttle', () => checkSignInThrottle()],
     ['stream', () => checkStream(testbed)],
