@@ -158,7 +158,7 @@ function generateGood() {
   for (let p = 1; p <= N; p++) longRows.push(`0,${p},0.000`);
   truth.forEach((loads, i) => loads.forEach((v, k) => longRows.push(`${(i + 1) * 10},${k + 1},${fmt(v)}`)));
   write('good', 'long-snapshots-check-pass.csv', `# ${NOTE}: one snapshot per step.\n${longRows.join('\n')}\n`);
-  good.push({ file: 'long-snapshots-check-pass.csv', about: 'long, one snapshot of every stud per step, 8 check steps with no rise', steps: withCheck.length, finalLoadsN: kN(truth[truth.length - 1]!), toleranceN: 1 });
+  good.push({ file: 'long-snapshots-check-pass.csv', about: 'long, one snapshot of every stud per step, 8 check steps with no rise', steps: withCheck.length, finalLoadsN: kN(truth[truth.length - 1]!), toleranceN: 1, plannedSteps: withCheck.map(({ pass, position, check }) => ({ pass, position, check })) });
 
   const de = ['Zeit;Bolzen;Kraft [kN]'];
   for (let p = 1; p <= N; p++) de.push(`0;${p};0`);

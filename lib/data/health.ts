@@ -20,5 +20,5 @@ export async function databaseReachable(timeoutMs = 2000): Promise<boolean> {
   }
 }
 
-/** Where reads go now: 'none' without replicas, 'replica', or 'primary' while the replicas do not answer. */
-export { replicaReadState } from '@/lib/platform/replica-routing';
+/** Where reads go now: 'none' without replicas, 'replica', or 'primary' while the replicas do not answer or lag; and the lag the probe saw. */
+export { replicaLagMs, replicaReadState } from '@/lib/platform/replica-routing';

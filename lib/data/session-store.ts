@@ -19,7 +19,8 @@ import { env } from '../platform/env';
  *
  * Name, e-mail, role and units come from the users row, never from the token. Each instance keeps
  * its last answer per session for EVENLOAD_SESSION_CHECK_TTL_MS (at most 60 s), so a request costs
- * one map look-up and an ended session is refused on every instance within that time.
+ * one map look-up and an ended session is refused on every instance within that time; the answer is
+ * renewed in the background after half that time, so no request waits for the check under load.
  */
 
 /** What the session token carries about the sign-in (set once at sign-in, copied on renewal). */
@@ -51,6 +52,13 @@ interface Verdict {
 const CACHE_LIMIT = 10_000;
 const verdicts = new Map<string, Verdict>();
 const inFlight = new Map<string, Promise<Verdict>>();
+/** Sessions whose verdict was dropped (sign-out) while a check of them was running. */
+const dropped = new Set<string>();
+
+function forget(sid: string): void {
+  verdicts.delete(sid);
+  if (inFlight.has(sid)) dropped.add(sid);
+}
 
 /** The last-seen time is written at most this often per session (well inside the idle timeout). */
 const touchEveryMs = () => Math.min(60_000, (env.EVENLOAD_SESSION_IDLE_S * 1000) / 10);
@@ -84,18 +92,40 @@ function remember(sid: string, verdict: Verdict) {
   while (verdicts.size > CACHE_LIMIT) verdicts.delete(verdicts.keys().next().value as string);
 }
 
-/** The person behind a session token's claims, or null when the session has ended for any reason. */
+/** Loads a session's verdict once however many requests ask at the same time. */
+function refreshVerdict(sid: string, nowMs: number): Promise<Verdict> {
+  let pending = inFlight.get(sid);
+  if (!pending) {
+    pending = loadVerdict(sid, nowMs)
+      .then((verdict) => {
+        // A sign-out while the check ran wins: its verdict was dropped, so this older one is not kept.
+        if (!dropped.has(sid)) remember(sid, verdict);
+        return verdict;
+      })
+      .finally(() => {
+        inFlight.delete(sid);
+        dropped.delete(sid);
+      });
+    inFlight.set(sid, pending);
+  }
+  return pending;
+}
+
+/**
+ * The person behind a session token's claims, or null when the session has ended for any reason.
+ * A verdict is used for at most EVENLOAD_SESSION_CHECK_TTL_MS; once half of that has passed, the
+ * next request starts a fresh check in the background and is answered from the verdict it still
+ * holds, so under load no request waits for the database check (the bound on how long an ended
+ * session is still accepted stays the TTL).
+ */
 export async function checkSession(claims: SessionClaims, nowMs = Date.now()): Promise<SessionAccount | null> {
   if (nowMs >= (claims.sat + env.EVENLOAD_SESSION_MAX_AGE_S) * 1000) return null;
+  const ttl = env.EVENLOAD_SESSION_CHECK_TTL_MS;
   let verdict = verdicts.get(claims.sid);
-  if (!verdict || nowMs - verdict.checkedAt >= env.EVENLOAD_SESSION_CHECK_TTL_MS) {
-    let pending = inFlight.get(claims.sid);
-    if (!pending) {
-      pending = loadVerdict(claims.sid, nowMs).finally(() => inFlight.delete(claims.sid));
-      inFlight.set(claims.sid, pending);
-    }
-    verdict = await pending;
-    remember(claims.sid, verdict);
+  if (!verdict || nowMs - verdict.checkedAt >= ttl) {
+    verdict = await refreshVerdict(claims.sid, nowMs);
+  } else if (nowMs - verdict.checkedAt >= ttl / 2) {
+    refreshVerdict(claims.sid, nowMs).catch((error: unknown) => console.warn('evenload: a background session check failed', error));
   }
   const { account, version } = verdict;
   return account && account.id === claims.uid && version === claims.sv ? account : null;
@@ -104,7 +134,7 @@ export async function checkSession(claims: SessionClaims, nowMs = Date.now()): P
 /** Sign-out: the session's row is revoked, so the same cookie (or a copy of it) is refused. */
 export async function revokeSession(sid: string, now = new Date()): Promise<void> {
   await UserSession.update({ revokedAt: now }, { where: { id: sid, revokedAt: null } });
-  verdicts.delete(sid);
+  forget(sid);
 }
 
 /**
@@ -114,7 +144,7 @@ export async function revokeSession(sid: string, now = new Date()): Promise<void
 export async function endAllSessions(userId: number, transaction?: Transaction, now = new Date()): Promise<void> {
   await User.increment({ sessionVersion: 1 }, { where: { id: userId }, transaction });
   await UserSession.update({ revokedAt: now }, { where: { userId, revokedAt: null }, transaction });
-  for (const [sid, verdict] of verdicts) if (verdict.account?.id === userId) verdicts.delete(sid);
+  for (const [sid, verdict] of verdicts) if (verdict.account?.id === userId) forget(sid);
 }
 
 /** The account a sign-in names, with what the password check and the token need; null when unknown. */

@@ -20,7 +20,10 @@
  *   every position exactly once (no carrying forward: a step table is a record, not a scan).
  * - **No step column**: steps are derived from the loads (see `derive-steps.ts`).
  * - The tightened stud is the tightened-position column when mapped, else the stud whose load
- *   rose most from the previous reading (a warning says when no load rose).
+ *   rose most from the previous reading when one rose by more than the derivation threshold; in a
+ *   step where none did (a check pass), the method's stud for that step when the steps so far follow
+ *   the method's order and the snapshot shows that stud at load (`planStud`); else the stud that rose
+ *   most, with a warning that it is a guess.
  * - Pass numbers come from the pass column; without one, a new pass starts when a stud already
  *   tightened in the current pass is tightened again.
  */
@@ -110,7 +113,8 @@ export function createRowNormaliser(
   const columns = resolveColumns(names, mapping, headerLine);
   const studIdx = mapping.shape === 'wide' ? studColumnIndexes(names, mapping.studColumns, N, headerLine) : null;
 
-  const collector = createStepCollector(N);
+  const riseN = joint.targetLoadN * (options.derive?.thresholdFraction ?? 0.02);
+  const collector = createStepCollector(N, { steps: joint.plannedSteps, riseN });
   const extras = createRowExtrasReader(cells, columns, mapping, options.decimalComma);
   const perStamp = mapping.shape === 'long' && columns.step < 0 && options.longStepPerTimeStamp === true;
   const deriver: StepDeriver | null = columns.step < 0 && mapping.shape !== 'step_table' && !perStamp ? createStepDeriver(N, { ...options.derive, targetLoadN: joint.targetLoadN }) : null;
@@ -119,7 +123,7 @@ export function createRowNormaliser(
   const reader: ShapeReader = studIdx
     ? createWideReader(cells, extras, studIdx, sink, zero)
     : mapping.shape === 'long'
-      ? createLongReader(cells, columns, extras, N, sink, zero, perStamp ? joint.targetLoadN * (options.derive?.thresholdFraction ?? 0.02) : null)
+      ? createLongReader(cells, columns, extras, N, sink, zero, perStamp ? riseN : null)
       : createStepTableReader(cells, columns, extras, N, collector, zero);
   let rowCount = 0;
 

@@ -108,6 +108,7 @@ interface TableRow {
  */
 export function streamTableRows(detection: DetectionReport, onRow: (cells: string[], line: number) => void, limit = Number.POSITIVE_INFINITY): void {
   const table = detection.text.slice(detection.headerOffset);
+  if (table.indexOf('"') < 0 && table.indexOf('\r') < 0) return streamPlainRows(detection, table, onRow, limit);
   let index = -1;
   let taken = 0;
   let failure: unknown = null;
@@ -135,6 +136,32 @@ export function streamTableRows(detection: DetectionReport, onRow: (cells: strin
     },
   });
   if (failure !== null) throw failure;
+}
+
+/**
+ * {@link streamTableRows} for a table with no quote and no CR (what most loggers write): with no
+ * quoting, papaparse's rows are exactly the LF-separated lines split at the delimiter, so they are
+ * cut that way directly (the native `indexOf` and `split`), with the same line numbers and skips.
+ */
+function streamPlainRows(detection: DetectionReport, table: string, onRow: (cells: string[], line: number) => void, limit: number): void {
+  const n = table.length;
+  let start = 0;
+  let index = -1;
+  let taken = 0;
+  while (start < n) {
+    let end = table.indexOf('\n', start);
+    if (end < 0) end = n;
+    index++;
+    const line = detection.headerLine + index;
+    if (index !== 0 && line !== detection.unitsRowLine) {
+      const cells = table.slice(start, end).split(detection.delimiter);
+      if (!cells.every((c) => c.trim() === '') && !isCommentRow(cells)) {
+        onRow(cells, line);
+        if (++taken >= limit) return;
+      }
+    }
+    start = end + 1;
+  }
 }
 
 /**

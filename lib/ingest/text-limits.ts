@@ -39,12 +39,54 @@ export function clipInput(text: string, max = QUOTE_CHARS): string {
 
 const formatCount = (n: number) => formatDecimals(n, 0);
 
+function lineTooLong(text: string, line: number, start: number): AppError {
+  return new AppError(
+    'invalid_input',
+    `Line ${line}: the line is longer than ${formatCount(MAX_LINE_CHARS)} characters (it starts ${quoteInput(text.slice(start, start + QUOTE_CHARS + 1))}). A logger row is far shorter; check that this is the logger's CSV or text export.`,
+    { row: line },
+  );
+}
+
+function tooManyBlankLines(line: number, blankFrom: number): AppError {
+  return new AppError(
+    'invalid_input',
+    `Line ${line}: more than ${formatCount(MAX_BLANK_LINES_IN_A_ROW)} blank lines in a row (from line ${blankFrom}). Remove them, or export the run from the logger again.`,
+    { row: line },
+  );
+}
+
+/** {@link assertLinesWithinLimits} for text whose lines all end in LF (no CR): the line ends are found with the native `indexOf`. */
+function assertLfLinesWithinLimits(text: string): void {
+  const n = text.length;
+  let line = 1;
+  let start = 0;
+  let blankRun = 0;
+  let blankFrom = 0;
+  while (start < n) {
+    let end = text.indexOf('\n', start);
+    if (end < 0) end = n;
+    if (end - start > MAX_LINE_CHARS) throw lineTooLong(text, line, start);
+    let blank = true;
+    for (let i = start; i < end && blank; i++) {
+      const c = text.charCodeAt(i);
+      blank = c === 32 || c === 9;
+    }
+    if (blank) {
+      if (blankRun++ === 0) blankFrom = line;
+      if (blankRun > MAX_BLANK_LINES_IN_A_ROW) throw tooManyBlankLines(line, blankFrom);
+    } else blankRun = 0;
+    line++;
+    start = end + 1;
+  }
+}
+
 /**
  * Checks line lengths and runs of blank lines in one pass (no allocation).
  * @throws AppError('invalid_input') naming the line: a line over {@link MAX_LINE_CHARS}
  *   characters, or more than {@link MAX_BLANK_LINES_IN_A_ROW} blank lines in a row.
  */
 export function assertLinesWithinLimits(text: string): void {
+  if (text.indexOf('\r') < 0) return assertLfLinesWithinLimits(text);
   let line = 1;
   let start = 0;
   let blankRun = 0;
@@ -55,25 +97,13 @@ export function assertLinesWithinLimits(text: string): void {
     const c = i < n ? text.charCodeAt(i) : LF;
     if (c !== LF && c !== CR) {
       if (blank && c !== 32 && c !== 9) blank = false;
-      if (i - start >= MAX_LINE_CHARS) {
-        throw new AppError(
-          'invalid_input',
-          `Line ${line}: the line is longer than ${formatCount(MAX_LINE_CHARS)} characters (it starts ${quoteInput(text.slice(start, start + QUOTE_CHARS + 1))}). A logger row is far shorter; check that this is the logger's CSV or text export.`,
-          { row: line },
-        );
-      }
+      if (i - start >= MAX_LINE_CHARS) throw lineTooLong(text, line, start);
       continue;
     }
     if (i === n && i === start) break;
     if (blank) {
       if (blankRun++ === 0) blankFrom = line;
-      if (blankRun > MAX_BLANK_LINES_IN_A_ROW) {
-        throw new AppError(
-          'invalid_input',
-          `Line ${line}: more than ${formatCount(MAX_BLANK_LINES_IN_A_ROW)} blank lines in a row (from line ${blankFrom}). Remove them, or export the run from the logger again.`,
-          { row: line },
-        );
-      }
+      if (blankRun > MAX_BLANK_LINES_IN_A_ROW) throw tooManyBlankLines(line, blankFrom);
     } else blankRun = 0;
     if (c === CR && text.charCodeAt(i + 1) === LF) i++;
     line++;
@@ -93,6 +123,7 @@ const TAB = 9;
  * @throws AppError('invalid_input') naming the line where the cell opens.
  */
 export function assertQuotedCellsWithinLimits(text: string): void {
+  if (text.indexOf('"') < 0) return; // no quoted cell at all (most logger files)
   let line = 1;
   let cellStart = true;
   const n = text.length;

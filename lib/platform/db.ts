@@ -36,7 +36,15 @@ export function createSequelize(database: string = env.DB_NAME, overrides: { por
     define: { underscored: true },
   });
   if (readHosts.length) {
-    installReplicaRouting(instance, { readPrimaryAfterWriteMs: env.DB_READ_PRIMARY_AFTER_WRITE_MS, replicaRetryMs: env.DB_REPLICA_RETRY_MS });
+    const probeUser = { user: env.DB_USER, password: env.DB_PASSWORD };
+    installReplicaRouting(instance, {
+      readPrimaryAfterWriteMs: env.DB_READ_PRIMARY_AFTER_WRITE_MS,
+      replicaRetryMs: env.DB_REPLICA_RETRY_MS,
+      maxLagMs: env.DB_REPLICA_MAX_LAG_MS,
+      lagProbeMs: env.DB_REPLICA_LAG_PROBE_MS,
+      primary: { host: env.DB_HOST, port: overrides.port ?? env.DB_PORT, ...probeUser },
+      replicas: readHosts.map((h) => ({ host: h.host, port: h.port, ...probeUser })),
+    });
   }
   return instance;
 }

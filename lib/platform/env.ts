@@ -18,6 +18,11 @@ const schema = z.object({
    *  how long replicas are left alone after one did not answer (reads go to the primary meanwhile). */
   DB_READ_PRIMARY_AFTER_WRITE_MS: z.coerce.number().int().min(0).max(600_000).default(5000),
   DB_REPLICA_RETRY_MS: z.coerce.number().int().min(100).default(10_000),
+  /** With replicas: reads go to the primary while a replica has not applied, for longer than this, a
+   *  position the primary had reached (keep it below DB_READ_PRIMARY_AFTER_WRITE_MS, so a browser's
+   *  window after its write outlasts the lag allowed); the probe runs every DB_REPLICA_LAG_PROBE_MS. */
+  DB_REPLICA_MAX_LAG_MS: z.coerce.number().int().min(0).default(3000),
+  DB_REPLICA_LAG_PROBE_MS: z.coerce.number().int().min(100).max(60_000).default(1000),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(500).default(20),
   DB_POOL_ACQUIRE_MS: z.coerce.number().int().min(100).default(4000),
   NEXTAUTH_SECRET: z.string().min(16).optional(),

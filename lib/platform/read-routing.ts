@@ -7,6 +7,10 @@
  *   it (a cookie holds the window's end), read from the primary, so a page opened right after a save
  *   finds its row even when the replica lags.
  * - A replica that refused a connection is left alone for a while; reads go to the primary meanwhile.
+ * - A replica that answers but lags (it has not applied, for longer than the allowed lag, a GTID
+ *   position the primary had reached) is passed over too: a periodic probe compares the primary's
+ *   `@@gtid_binlog_pos` with each replica's `@@gtid_slave_pos` ({@link nextLagState}), and reads go to
+ *   the primary while any replica lags.
  */
 
 export type ReadTarget = 'primary' | 'replica';
@@ -24,6 +28,8 @@ export interface ReadRouteInput {
   primaryUntilMs: number | null;
   /** Until when the replicas are taken as down (0 when they answer). */
   replicaDownUntilMs: number;
+  /** A replica answers but lags by more than the allowed lag (from the lag probe). */
+  replicaLagging?: boolean;
 }
 
 /** Which server a query's connection comes from. */
@@ -31,7 +37,68 @@ export function chooseReadTarget(input: ReadRouteInput): ReadTarget {
   if (input.queryType !== 'SELECT' || input.useMaster) return 'primary';
   if (input.primaryUntilMs !== null && input.nowMs < input.primaryUntilMs) return 'primary';
   if (input.nowMs < input.replicaDownUntilMs) return 'primary';
+  if (input.replicaLagging === true) return 'primary';
   return 'replica';
+}
+
+/** A GTID position (`@@gtid_binlog_pos`, `@@gtid_slave_pos`): the last sequence number per replication domain. */
+export type GtidPosition = ReadonlyMap<number, number>;
+
+/**
+ * Reads MariaDB's GTID list text, `domain-server-sequence` entries separated by commas
+ * (`0-1-1042,1-2-7`); an empty text is the empty position. Null for text that is not such a list.
+ */
+export function parseGtidPosition(text: string | null | undefined): GtidPosition | null {
+  const position = new Map<number, number>();
+  const trimmed = (text ?? '').trim();
+  if (trimmed === '') return position;
+  for (const entry of trimmed.split(',')) {
+    const match = /^(\d+)-(\d+)-(\d+)$/.exec(entry.trim());
+    if (!match) return null;
+    const domain = Number(match[1]);
+    position.set(domain, Math.max(position.get(domain) ?? 0, Number(match[3])));
+  }
+  return position;
+}
+
+/** Whether `replica` has applied everything up to `target`: in every domain of the target, a sequence number at least as high. */
+export function gtidReached(replica: GtidPosition, target: GtidPosition): boolean {
+  for (const [domain, sequence] of target) if ((replica.get(domain) ?? 0) < sequence) return false;
+  return true;
+}
+
+/** What the lag probe remembers about one replica: the primary positions it has not applied yet, each with when the primary was first seen at it. */
+export interface LagState {
+  pending: ReadonlyArray<{ position: GtidPosition; sinceMs: number }>;
+  /** How long the oldest position the replica has not applied has been on the primary (0 when caught up). */
+  lagMs: number;
+}
+
+export const CAUGHT_UP: LagState = { pending: [], lagMs: 0 };
+
+/** At most this many unapplied primary positions are remembered per replica (the oldest is kept). */
+const PENDING_LIMIT = 64;
+
+/**
+ * One probe of one replica: the primary's and the replica's positions read at `nowMs`. The replica's
+ * lag is the time since the primary was first seen at the oldest position the replica has still not
+ * applied: within one probe interval of the true lag, never more, and 0 once it has caught up (a
+ * replica that is idle because nothing was written does not lag). Pure.
+ */
+export function nextLagState(state: LagState, probe: { nowMs: number; primary: GtidPosition; replica: GtidPosition }): LagState {
+  const pending = state.pending.filter((p) => !gtidReached(probe.replica, p.position));
+  if (!gtidReached(probe.replica, probe.primary)) {
+    const newest = pending[pending.length - 1];
+    const samePosition = newest && gtidReached(newest.position, probe.primary) && gtidReached(probe.primary, newest.position);
+    if (!samePosition) pending.push({ position: probe.primary, sinceMs: probe.nowMs });
+    if (pending.length > PENDING_LIMIT) pending.splice(1, pending.length - PENDING_LIMIT);
+  }
+  return { pending, lagMs: pending.length ? probe.nowMs - pending[0]!.sinceMs : 0 };
+}
+
+/** Whether a replica lags by more than allowed. */
+export function isLagging(state: LagState, maxLagMs: number): boolean {
+  return state.lagMs > maxLagMs;
 }
 
 /**

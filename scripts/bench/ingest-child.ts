@@ -1,5 +1,5 @@
 /**
- * Bench child: parses a wide logger CSV with lib/ingest and stores it with lib/data/runs/store-run in one
+ * Bench child: parses a wide logger CSV (channel names, no step column) with lib/ingest and stores it with lib/data/runs/store-run in one
  * transaction, the same path the upload route takes, then prints one JSON line with its timings
  * and peak memory (maxRSS of this process). Run by scripts/bench/run-all.ts.
  *   tsx scripts/bench/ingest-child.ts FILE JOINT_ID METHOD_ID LUBRICANT_ID OPERATOR_ID
@@ -24,8 +24,10 @@ async function main() {
     ),
   );
   const storedAt = performance.now();
-  const readings = parsed.run.steps.length * parsed.run.studCount;
-  console.log(JSON.stringify({ runId, readings, steps: parsed.run.steps.length, parseSeconds: (parsedAt - started) / 1000, storeSeconds: (storedAt - parsedAt) / 1000, totalSeconds: (storedAt - started) / 1000, maxRssMb: process.resourceUsage().maxRSS / 1024 }));
+  // The file's readings (every channel of every row), what LOAD DATA is given; the run stores its derived steps.
+  const readings = parsed.rowCount * parsed.run.studCount;
+  if (!parsed.derivedSteps || parsed.zeroNotes.length === 0) throw new Error('the bench file was expected to need step derivation and tare');
+  console.log(JSON.stringify({ runId, readings, steps: parsed.run.steps.length, tareNotes: parsed.zeroNotes.length, parseSeconds: (parsedAt - started) / 1000, storeSeconds: (storedAt - parsedAt) / 1000, totalSeconds: (storedAt - started) / 1000, maxRssMb: process.resourceUsage().maxRSS / 1024 }));
   await sequelize.close();
 }
 

@@ -1,7 +1,8 @@
 /**
  * The benchmarks of `npm run bench`, side by side in one run:
- *  1. ingest: parse + store of a 1,000,000-reading wide CSV (8 studs) vs MariaDB's LOAD DATA LOCAL
- *     INFILE of the equivalent readings into a scratch table (target >= 0.7x).
+ *  1. ingest: parse + store of a 1,000,000-reading wide CSV (8 channels named CH1 … CH8, zero offsets,
+ *     no step column: tare and step derivation run) vs MariaDB's LOAD DATA LOCAL INFILE of the same
+ *     readings into a scratch table (target >= 0.7x).
  *  2. compare: GET /api/compare over 10,000 runs in 6 groups (mixed model included) vs one bare SQL
  *     aggregate returning the same group counts and means (targets: first, uncached <= 5x; repeat
  *     <= 1.5x). The route is warmed by another comparison first, so "first" is the first
@@ -25,6 +26,7 @@ import { sequelize } from '../../lib/platform/db';
 import { env } from '../../lib/platform/env';
 import { startAppServer } from '../../tests/support/app-server';
 import { DEMO_ACCOUNTS, signInAs } from '../../tests/support/http-session';
+import { ingestInput } from './ingest-input';
 import { benchUploadPressure } from './upload-pressure';
 
 const root = path.resolve(__dirname, '../..');
@@ -32,6 +34,10 @@ const results: Record<string, unknown> = { machine: { cpus: os.cpus().length, me
 const rows: [string, string, string, string][] = [];
 const only = process.argv.slice(2);
 const want = (name: string) => only.length === 0 || only.includes(name);
+
+/** BENCH_CPU_PROF_DIR=dir: the ingest child and the app servers write V8 CPU profiles there (node --cpu-prof, passed through tsx). */
+const profileFlags = process.env.BENCH_CPU_PROF_DIR ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(process.env.BENCH_CPU_PROF_DIR)}`] : [];
+const profileEnv: Record<string, string> = profileFlags.length ? { EVENLOAD_SERVER_NODE_FLAGS: profileFlags.join(' ') } : {};
 
 const q = <T extends object>(sql: string, replacements: unknown[] = []) => sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] ?? NaN;
@@ -47,24 +53,14 @@ async function demoIds() {
 async function benchIngest() {
   const dir = path.join(root, '.data', 'bench');
   mkdirSync(dir, { recursive: true });
-  const csvPath = path.join(dir, 'wide-1m.csv');
+  const csvPath = path.join(dir, 'channels-1m.csv');
   const tsvPath = path.join(dir, 'readings-1m.tsv');
-  const studs = 8;
-  const steps = 125_000;
-  const lines = ['time_s,step,pass,' + Array.from({ length: studs }, (_, i) => `Stud ${i + 1} [kN]`).join(',')];
-  const tsv: string[] = [];
-  for (let s = 0; s < steps; s += 1) {
-    const loads = Array.from({ length: studs }, (_, i) => (40 + ((s * 7 + i * 13) % 200) / 10).toFixed(3));
-    lines.push(`${(s * 0.5).toFixed(1)},${s + 1},${Math.floor(s / 8) + 1},${loads.join(',')}`);
-    loads.forEach((load, i) => tsv.push(`${s + 1}\t${i + 1}\t1\t${Number(load) * 1000}`));
-  }
-  writeFileSync(csvPath, `${lines.join('\n')}\n`);
-  writeFileSync(tsvPath, `${tsv.join('\n')}\n`);
+  ingestInput(csvPath, tsvPath);
   const ids = await demoIds();
 
-  const child = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['scripts/bench/ingest-child.ts', csvPath, String(ids.jointId), String(ids.methodId), String(ids.lubricantId), String(ids.operatorId)], { cwd: root, env: process.env, encoding: 'utf8', maxBuffer: 10 * 2 ** 20 });
+  const child = spawnSync(path.join(root, 'node_modules/.bin/tsx'), [...profileFlags, 'scripts/bench/ingest-child.ts', csvPath, String(ids.jointId), String(ids.methodId), String(ids.lubricantId), String(ids.operatorId)], { cwd: root, env: process.env, encoding: 'utf8', maxBuffer: 10 * 2 ** 20 });
   if (child.status !== 0) throw new Error(`ingest child failed: ${child.stderr}`);
-  const ingest = JSON.parse(child.stdout.trim().split('\n').pop() as string) as { runId: number; readings: number; totalSeconds: number; parseSeconds: number; storeSeconds: number; maxRssMb: number };
+  const ingest = JSON.parse(child.stdout.trim().split('\n').pop() as string) as { runId: number; readings: number; steps: number; tareNotes: number; totalSeconds: number; parseSeconds: number; storeSeconds: number; maxRssMb: number };
   await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [ingest.runId] });
 
   const connection = await mariadb.createConnection({ host: env.DB_HOST, port: env.DB_PORT, user: env.DB_USER, password: env.DB_PASSWORD, database: env.DB_NAME, permitLocalInfile: true });
@@ -81,7 +77,7 @@ async function benchIngest() {
   const ingestRate = ingest.readings / ingest.totalSeconds;
   const loadRate = Number(n) / loadSeconds;
   results.ingest = { ...ingest, loadDataRows: Number(n), loadDataSeconds: loadSeconds, ingestReadingsPerSecond: ingestRate, loadDataRowsPerSecond: loadRate, ratio: ingestRate / loadRate, target: '>= 0.7' };
-  rows.push(['ingest 1M readings (parse + store)', `${Math.round(ingestRate).toLocaleString('en-US')} readings/s (${ingest.totalSeconds.toFixed(1)} s; parse ${ingest.parseSeconds.toFixed(1)} s, store ${ingest.storeSeconds.toFixed(1)} s)`, `LOAD DATA ${Math.round(loadRate).toLocaleString('en-US')} rows/s (${loadSeconds.toFixed(1)} s)`, `${(ingestRate / loadRate).toFixed(2)}x (>= 0.7x)`]);
+  rows.push(['ingest 1M readings (CH1…CH8, tare, derived steps)', `${Math.round(ingestRate).toLocaleString('en-US')} readings/s (${ingest.totalSeconds.toFixed(1)} s; parse ${ingest.parseSeconds.toFixed(1)} s, store ${ingest.storeSeconds.toFixed(1)} s; ${ingest.steps} steps derived)`, `LOAD DATA ${Math.round(loadRate).toLocaleString('en-US')} rows/s (${loadSeconds.toFixed(1)} s)`, `${(ingestRate / loadRate).toFixed(2)}x (>= 0.7x)`]);
   rows.push(['ingest peak memory', `${ingest.maxRssMb.toFixed(0)} MB max RSS`, '', ingest.maxRssMb < 500 ? 'under 500 MB' : 'OVER 500 MB']);
 }
 
@@ -182,7 +178,7 @@ async function benchBurst(baseUrl: string) {
 
 async function benchUploads() {
   // A server of its own (before the shared one starts), so its peak memory (VmHWM) is this scenario's alone.
-  const server = await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200));
+  const server = await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200), profileEnv);
   try {
     const researcher = await signInAs(server.baseUrl, DEMO_ACCOUNTS.researcher);
     const ids = await demoIds();
@@ -202,7 +198,7 @@ async function main() {
   if (want('ingest')) await benchIngest();
   if (want('uploads')) await benchUploads();
   const needsServer = ['compare', 'load', 'burst'].some(want);
-  const server = needsServer ? await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200)) : null;
+  const server = needsServer ? await startAppServer(Number(process.env.EVENLOAD_BENCH_PORT ?? 3200), profileEnv) : null;
   try {
     if (server && want('compare')) await benchCompare(server.baseUrl);
     if (server && want('load')) await benchLoad(server.baseUrl);

@@ -8,6 +8,7 @@ import { env } from '../../lib/platform/env';
 import { checkCompareCache, checkReadYourWrites, checkSession, checkSignInThrottle } from './checks-reads';
 import { checkInvitation, checkStream } from './checks-flows';
 import { checkInstanceStopped, checkReplicaStopped } from './checks-faults';
+import { checkReplicaLagging } from './checks-lag';
 import { cluster, primaryRows } from './cluster';
 import { type CheckResult, createTestbed, type Testbed } from './fixtures';
 
@@ -36,7 +37,8 @@ async function main(): Promise<number> {
     ['invitation', () => checkInvitation(testbed)],
   ];
   if (!cluster.skipFaults) {
-    steps.push(['instance stopped', () => checkInstanceStopped(testbed)], ['replica stopped', async () => checkReplicaStopped(testbed, await latestRun(testbed), windowMs)]);
+    // The lagging replica first: it needs both instances (its SQL thread is started again afterwards).
+    steps.push(['replica lagging', () => checkReplicaLagging(testbed, windowMs)], ['instance stopped', () => checkInstanceStopped(testbed)], ['replica stopped', async () => checkReplicaStopped(testbed, await latestRun(testbed), windowMs)]);
   }
   for (const [name, step] of steps) {
     process.stderr.write(`[scale-check] ${name}…\n`);

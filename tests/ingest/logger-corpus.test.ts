@@ -81,6 +81,17 @@ describe('logger corpus: good files give the generator\'s steps and final loads'
     expect(r.run.steps.slice(24).every((s) => s.pass === 4)).toBe(true);
   });
 
+  it('the long check pass takes each stud from the method\'s order (1…8 after the cross passes), not a guess', async () => {
+    const g = manifest.good.find((c) => c.file === 'long-snapshots-check-pass.csv')!;
+    const guessed = await parse('good', g.file);
+    expect(guessed.warnings.filter((w) => w.includes('is a guess'))).toHaveLength(8);
+    const r = await parse('good', g.file, { plannedSteps: g.plannedSteps });
+    // The generator's plan: three cross passes (24 steps), then a circular check pass 1…8 (scripts/generate-logger-corpus.ts).
+    expect(r.run.steps.map((s) => s.position)).toEqual(g.plannedSteps!.map((p) => p.position));
+    expect(r.run.steps.slice(24).map((s) => s.position)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
+    expect(r.warnings.join(' ')).not.toContain('is a guess');
+  });
+
   it.each(manifest.good.filter((g) => !g.plannedSteps && !/^long-/.test(g.file)))('$file with a method that has a check pass keeps the generator\'s steps: the short hold after the last pull is no check pass', async (g) => {
     // The generator holds 10 rows after each pull; its check steps are 30 held rows each (scripts/generate-logger-corpus.ts).
     const plannedSteps = manifest.good.find((c) => c.file === 'check-pass-wide.csv')!.plannedSteps;

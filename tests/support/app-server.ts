@@ -52,7 +52,9 @@ async function freePort(): Promise<number> {
  */
 export async function launchAppServer(port: number, extraEnv: Record<string, string> = {}): Promise<AppServer> {
   const baseUrl = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), ['scripts/serve.ts', '-H', '127.0.0.1', '-p', String(port)], {
+  // EVENLOAD_SERVER_NODE_FLAGS: node flags for the server (tsx passes them on), e.g. the bench's --cpu-prof.
+  const nodeFlags = (extraEnv.EVENLOAD_SERVER_NODE_FLAGS ?? '').split(' ').filter(Boolean);
+  const child: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), [...nodeFlags, 'scripts/serve.ts', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: baseUrl, NEXT_TELEMETRY_DISABLED: '1', ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -1,5 +1,5 @@
 import { NextResponse } from 'next/server';
-import { databaseReachable, replicaReadState } from '@/lib/data/health';
+import { databaseReachable, replicaLagMs, replicaReadState } from '@/lib/data/health';
 
 export const dynamic = 'force-dynamic';
 
@@ -7,8 +7,10 @@ export const dynamic = 'force-dynamic';
 export async function GET() {
   const ok = await databaseReachable();
   const reads = replicaReadState();
+  const lag = replicaLagMs();
+  const replica = lag === null ? {} : { replicaLagMs: lag };
   return NextResponse.json(
-    ok ? { status: 'ok', database: 'reachable', reads } : { status: 'unavailable', database: 'unreachable', reads, message: 'The database is not answering.' },
+    ok ? { status: 'ok', database: 'reachable', reads, ...replica } : { status: 'unavailable', database: 'unreachable', reads, ...replica, message: 'The database is not answering.' },
     { status: ok ? 200 : 503 },
   );
 }

@@ -93,7 +93,9 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
 }
 
 async function visibleRun(user: SessionUser, runId: number): Promise<Run> {
-  const run = await Run.findOne({ where: { [Op.and]: [await runScope(user), { id: runId }] } });
+  // From the primary: the bridge that writes the samples and finishes the run sends no cookie, so the
+  // page polling this run would otherwise read a lagging replica's older status.
+  const run = await Run.findOne({ where: { [Op.and]: [await runScope(user), { id: runId }] }, useMaster: true });
   if (!run) throw new AppError('not_found', `Run ${runId} does not exist or is not yours to see.`);
   return run;
 }
@@ -116,16 +118,17 @@ export interface StreamStatus {
 export async function streamStatus(user: SessionUser, runId: number): Promise<StreamStatus> {
   const run = await visibleRun(user, runId);
   const [count, latest, recent] = await Promise.all([
-    sequelize.query<{ n: number; last: number | null }>('SELECT COUNT(*) AS n, MAX(time_s) AS last FROM stream_samples WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId] }),
+    sequelize.query<{ n: number; last: number | null }>('SELECT COUNT(*) AS n, MAX(time_s) AS last FROM stream_samples WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId], useMaster: true }),
     sequelize.query<{ position: number; load_n: number; time_s: number }>(
       `SELECT s.position, s.load_n, s.time_s FROM stream_samples s
        JOIN (SELECT position, MAX(time_s) AS t FROM stream_samples WHERE run_id = ? GROUP BY position) m ON m.position = s.position AND m.t = s.time_s
        WHERE s.run_id = ? ORDER BY s.position`,
-      { type: QueryTypes.SELECT, replacements: [runId, runId] },
+      { type: QueryTypes.SELECT, replacements: [runId, runId], useMaster: true },
     ),
     sequelize.query<{ position: number; load_n: number; time_s: number }>('SELECT position, load_n, time_s FROM stream_samples WHERE run_id = ? ORDER BY time_s DESC, position DESC LIMIT 12', {
       type: QueryTypes.SELECT,
       replacements: [runId],
+      useMaster: true,
     }),
   ]);
   return {

@@ -32,6 +32,25 @@ export function missingPositions<T>(values: ArrayLike<T>, isMissing: (value: T) 
   return missing;
 }
 
+/**
+ * Whether a cell is a plain decimal with a decimal point: an optional `-`, digits, and optionally a
+ * point and digits (`12`, `-0.077`, `1500.25`). Such a cell reads the same through `Number` as through
+ * {@link readNumberCell}; anything else (spaces, signs, exponents, commas, text) goes to the full
+ * parser. Checked character by character, as this runs for every load cell of a file.
+ */
+export function isPlainDecimal(cell: string): boolean {
+  const n = cell.length;
+  let i = n > 0 && cell.charCodeAt(0) === 45 ? 1 : 0;
+  const digitsFrom = i;
+  while (i < n && cell.charCodeAt(i) >= 48 && cell.charCodeAt(i) <= 57) i++;
+  if (i === digitsFrom) return false;
+  if (i === n) return true;
+  if (cell.charCodeAt(i) !== 46) return false;
+  const fractionFrom = ++i;
+  while (i < n && cell.charCodeAt(i) >= 48 && cell.charCodeAt(i) <= 57) i++;
+  return i === n && i > fractionFrom;
+}
+
 /** Typed reads of one cell; each throws a {@link cellError} for a value that does not fit. */
 export interface CellReader {
   /** Trimmed header names; `names[i]` is the column of cell `i`. */
@@ -68,6 +87,7 @@ export function createCellReader(headers: readonly string[], loadUnit: LoadUnit,
 
   const number = (row: readonly string[], idx: number, line: number, required: boolean): number | null => {
     const raw = row[idx] ?? '';
+    if (!decimalComma && isPlainDecimal(raw)) return Number(raw);
     const r = readNumberCell(raw, decimalComma);
     if (r.kind === 'number') return r.value;
     if (r.kind === 'empty') {

@@ -19,12 +19,37 @@ export interface StepCollector {
   readonly warnings: string[];
   /** Sets the reading before the first step (the baseline the first rise is measured from). */
   startFrom(loads: ArrayLike<number>): void;
-  /** Adds a step. Without a tightened position, the stud whose load rose most is taken (with a warning when none rose). */
+  /**
+   * Adds a step. Without a tightened position: the stud whose load rose most, when one rose by more
+   * than `riseN`; else the method's stud for this step ({@link planStud}); else the stud that rose
+   * most, with a warning that it is a guess.
+   */
   close(step: PendingStep): void;
 }
 
+/** What the collector knows of the method, to name the stud of a step in which no load rose. */
+export interface CollectorPlan {
+  /** The method's steps for this stud count, in order. */
+  steps?: ReadonlyArray<{ pass: number; position: number; check: boolean }>;
+  /** A rise above this (N) is a tightening; at or below it nothing moved (the derivation threshold). */
+  riseN: number;
+}
+
+/**
+ * The stud of a step in which no load rose, from the method's order and the stud snapshot: when every
+ * step so far tightened the method's studs in the method's order, and the method's next step is a check
+ * pass, it is that step's stud, provided the snapshot shows it already at load (above `riseN`: a check
+ * finds a tightened nut). Null when any of this does not hold. Our rule.
+ */
+export function planStud(plan: CollectorPlan, stepsSoFar: ReadonlyArray<{ position: number }>, loads: ArrayLike<number>): number | null {
+  const next = plan.steps?.[stepsSoFar.length];
+  if (!next || !next.check) return null;
+  if (!stepsSoFar.every((s, i) => s.position === plan.steps![i]!.position)) return null;
+  return (loads[next.position - 1] ?? 0) > plan.riseN ? next.position : null;
+}
+
 /** Creates an empty collector for a joint of `studCount` studs. */
-export function createStepCollector(studCount: number): StepCollector {
+export function createStepCollector(studCount: number, plan: CollectorPlan = { riseN: 0 }): StepCollector {
   const steps: NormalisedStep[] = [];
   const stepLines: StepLines[] = [];
   const passesGiven: (number | null)[] = [];
@@ -41,7 +66,10 @@ export function createStepCollector(studCount: number): StepCollector {
         best = k;
       }
     }
-    if (!(rise > 0)) warnings.push(`Lines ${p.firstLine}–${p.lastLine}: no stud load rose in step ${clipInput(p.label)}; tightened position ${best + 1} is a guess.`);
+    if (rise > plan.riseN) return best + 1;
+    const planned = planStud(plan, steps, p.loads);
+    if (planned !== null) return planned;
+    warnings.push(`Lines ${p.firstLine}–${p.lastLine}: no stud load rose in step ${clipInput(p.label)}; tightened position ${best + 1} is a guess.`);
     return best + 1;
   };
 
