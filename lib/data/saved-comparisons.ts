@@ -7,11 +7,11 @@ import { citationLine } from '../saved-comparisons/citation';
 import { dataPackageDescriptor, DATA_PACKAGE_PATH, MANIFEST_PATH, RESULTS_PATH } from '../saved-comparisons/data-package';
 import { headlineOf, type Headline } from '../saved-comparisons/headline';
 import { pythonScript, PYTHON_SCRIPT_PATH } from '../saved-comparisons/python-script';
+import { softwareVersion } from '../saved-comparisons/software-version';
 import { AppError } from '../http/errors';
 import { appBaseUrl } from '../platform/env';
 import type { SessionUser } from '../auth/session';
 import { SavedComparison, sequelize, User } from '@/models';
-import packageJson from '@/package.json';
 import { comparisonRunKeys, compareQuerySchema, compareRunsJson, type CompareQuery, type CompareResponse } from './compare';
 import { dataTables, sha256Hex, type FrozenRun } from './saved-comparison-tables';
 import { runScopeSql } from './scope';
@@ -30,12 +30,6 @@ export const freezeInputSchema = z.object({
     return parsed.data;
   }),
 });
-
-/** The software that froze a comparison: the package version and, when the build knew it, the git commit. */
-export function softwareVersion(): string {
-  const commit = process.env.EVENLOAD_BUILD_COMMIT ?? '';
-  return commit ? `evenload ${packageJson.version} (${commit.slice(0, 12)})` : `evenload ${packageJson.version}`;
-}
 
 /** The comparison's choice as the address of the live Compare page. */
 export function compareSearch(query: CompareQuery): string {
