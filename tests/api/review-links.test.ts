@@ -22,11 +22,14 @@ let visitor: HttpSession;
 const slugs: string[] = [];
 const removals: (() => Promise<void>)[] = [];
 
-/** Every operator of the saved comparison's runs: the names and addresses that must never reach a reviewer. */
+/**
+ * Every trainee among the operators of the saved comparison's runs: the names and addresses that must
+ * never reach a reviewer (the author, an instructor who may have run some of them too, is named as author).
+ */
 async function operatorsOf(slug: string): Promise<{ names: string[]; emails: string[] }> {
   const [row] = await sequelize.query<{ run_ids_json: string }>('SELECT run_ids_json FROM saved_comparisons WHERE slug = ?', { type: QueryTypes.SELECT, replacements: [slug] });
   const ids = (JSON.parse(row!.run_ids_json) as [number, string][]).map(([id]) => id);
-  const people = await sequelize.query<{ name: string; email: string }>('SELECT DISTINCT u.name, u.email FROM runs r JOIN users u ON u.id = r.operator_id WHERE r.id IN (?)', { type: QueryTypes.SELECT, replacements: [ids] });
+  const people = await sequelize.query<{ name: string; email: string }>("SELECT DISTINCT u.name, u.email FROM runs r JOIN users u ON u.id = r.operator_id WHERE r.id IN (?) AND u.role = 'trainee'", { type: QueryTypes.SELECT, replacements: [ids] });
   return { names: people.map((p) => p.name), emails: people.map((p) => p.email) };
 }
 
