@@ -7,7 +7,7 @@ import { authSecret, env } from './lib/platform/env';
 export const SERVER_ACTION_BODY_LIMIT_BYTES = 1024 * 1024;
 
 // Pages anyone may open: sign-in, the invitation and reset links, the forgot-password form, the check of a record of training and the dev outbox.
-const PUBLIC_PAGES = /^\/(sign-in|welcome|reset|forgot-password|verify|dev\/outbox)(\/|$)/;
+const PUBLIC_PAGES = /^\/(sign-in|welcome|reset|forgot-password|verify|review|dev\/outbox)(\/|$)/;
 
 /**
  * For every page request: a Content-Security-Policy with a fresh nonce (Next reads it from the

@@ -24,6 +24,7 @@ import { OneTimeToken } from './one-time-token';
 import { Reading } from './reading';
 import { Run } from './run';
 import { SavedComparison } from './saved-comparison';
+import { ReviewLink } from './review-link';
 import { RunAnalysisRow } from './run-analysis';
 import { RunComment } from './run-comment';
 import { RunHold } from './run-hold';
@@ -72,6 +73,7 @@ export const MODELS = [
   StreamSample,
   AuditEntry,
   SavedComparison,
+  ReviewLink,
   UserPreference,
   CalibrationLimit,
   CalibrationSession,
@@ -123,6 +125,7 @@ export const MODELS = [
   UserSession.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Upload.hasMany(UploadChunk, { as: 'chunks', foreignKey: 'uploadId' });
   SavedComparison.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  ReviewLink.belongsTo(SavedComparison, { as: 'savedComparison', foreignKey: 'savedComparisonId' });
   CalibrationSession.hasMany(CalibrationResult, { as: 'results', foreignKey: 'sessionId' });
 }
 
@@ -136,6 +139,7 @@ export {
   LubricantLot,
   AuditEntry,
   SavedComparison,
+  ReviewLink,
   CapturedMail,
   Cohort,
   CohortCriteria,

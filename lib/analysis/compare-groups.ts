@@ -1,7 +1,8 @@
 import { holmAdjust } from '../stats/holm-adjust';
 import { mean } from '../stats/mean';
 import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
-import { varianceComponents } from '../stats/variance-components';
+import { sampleVariance } from '../stats/sample-variance';
+import { varianceComponentsFromSummaries, type VarianceRunSummary } from '../stats/variance-components-from-summaries';
 import { boxStats } from '../charts/box-stats';
 import { pooledSdLogCv, runCvPairs, runLevelTests, type RawTest, type RunLevelGroup } from './compare-run-tests';
 import { traineeBlocks } from './compare-trainee-blocks';
@@ -15,13 +16,13 @@ export type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, G
 export const MAX_DOTS_PER_GROUP = 400;
 
 /** An even, deterministic sample (every k-th value) of at most `max` values. */
-export function evenSample(values: readonly number[], max: number): number[] {
-  if (values.length <= max) return values.slice();
+export function evenSample(values: ArrayLike<number>, max: number): number[] {
+  if (values.length <= max) return Array.from(values);
   const step = values.length / max;
   return Array.from({ length: max }, (_, i) => values[Math.floor(i * step)]!);
 }
 
-function boxOf(values: readonly number[]): BoxSummary | undefined {
+function boxOf(values: readonly number[] | Float64Array): BoxSummary | undefined {
   const box = boxStats(values);
   if (!box) return undefined;
   return { ...box, outliers: evenSample(box.outliers, MAX_DOTS_PER_GROUP) };
@@ -45,12 +46,20 @@ function runProfile(run: ComparedRun): { meanPercent: number; sdPercent: number;
   return m > 0 ? { meanPercent: (m / run.targetLoadN) * 100, sdPercent: (sd / run.targetLoadN) * 100, cv: sd / m } : null;
 }
 
+/** A run's size, mean and sample variance in % of target (from its stored figures when it has them), for the variance components. */
+function varianceSummary(run: ComparedRun): VarianceRunSummary {
+  const percent = (load: number) => (load / run.targetLoadN) * 100;
+  if (run.stored) return { n: run.finalLoadsN.length, mean: percent(run.stored.meanN), variance: percent(run.stored.sdN) ** 2 };
+  const loads = run.finalLoadsN.map(percent);
+  return { n: loads.length, mean: mean(loads), variance: sampleVariance(loads) };
+}
+
 /** Within-run and between-run SDs (% of target) with their 95 % intervals, or null when they cannot be computed. */
-function componentsOf(loadsPercentByRun: number[][]): GroupSummary['components'] {
-  const runs = loadsPercentByRun.filter((r) => r.length >= 2);
+function componentsOf(runsOfGroup: readonly ComparedRun[]): GroupSummary['components'] {
+  const runs = runsOfGroup.filter((r) => r.finalLoadsN.length >= 2);
   if (runs.length < 2) return null;
   try {
-    const vc = varianceComponents(runs, { confidence: 0.95 });
+    const vc = varianceComponentsFromSummaries(runs.map(varianceSummary), { confidence: 0.95 }, 'varianceComponents');
     const sd = (v: { variance: number; lower: number; upper: number }) => ({ value: Math.sqrt(v.variance), lower: Math.sqrt(v.lower), upper: Math.sqrt(v.upper) });
     return {
       withinRunSd: sd(vc.withinRun),
@@ -97,8 +106,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
   const chartGroups: ComparisonGroupData[] = [];
   const runLevel: (RunLevelGroup & { key: string; blocked: { lnCv: number; operator: string | number; attempt: number | null }[] })[] = [];
   inputs.forEach((input, index) => {
-    const loadsByRun = input.runs.map((run) => run.finalLoadsN.map((load) => (load / run.targetLoadN) * 100));
-    const loadsPercent = loadsByRun.flat();
+    const loadsPercent = loadsPercentOf(input.runs);
     const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [] };
     const cvs: number[] = [];
     input.runs.forEach((run) => {
@@ -123,7 +131,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       geometricMeanRunCv: level.lnCv.length ? Math.exp(mean(level.lnCv)) : null,
       meanRunCv: safeMean(cvs),
       meanWithinSdPercent: safeMean(level.withinSdPercent),
-      components: componentsOf(loadsByRun),
+      components: componentsOf(input.runs),
     });
     const drift = studCounts.length === 1 ? meanDriftByPosition(input.runs, studCounts[0]!) : [];
     const large = loadsPercent.length > MAX_DOTS_PER_GROUP || cvs.length > MAX_DOTS_PER_GROUP;
@@ -133,7 +141,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       colourIndex: index % 8,
       finalLoadsPercent: evenSample(loadsPercent, MAX_DOTS_PER_GROUP),
       runCvs: evenSample(cvs, MAX_DOTS_PER_GROUP),
-      ...(large ? { finalLoadsBox: boxOf(loadsPercent), runCvBox: boxOf(cvs.map((cv) => cv * 100)) } : {}),
+      ...(large ? { finalLoadsBox: boxOf(loadsPercent.slice()), runCvBox: boxOf(cvs.map((cv) => cv * 100)) } : {}),
       meanDriftByPosition: drift,
     });
     if (input.runs.length < SMALL_GROUP_RUNS) {
@@ -176,10 +184,26 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
   return { groups, chartGroups, tests, pairs, traineeBlocks: blocks, planner: pooled, planned, studCounts, warnings };
 }
 
+/** Every final load of the group's runs, % of the run's target, in run order. */
+function loadsPercentOf(runs: readonly ComparedRun[]): Float64Array {
+  let size = 0;
+  for (const run of runs) size += run.finalLoadsN.length;
+  const out = new Float64Array(size);
+  let at = 0;
+  for (const run of runs) {
+    for (const load of run.finalLoadsN) out[at++] = (load / run.targetLoadN) * 100;
+  }
+  return out;
+}
+
 /** Mean drift (%) by position over the runs of one stud count. */
 function meanDriftByPosition(runs: readonly ComparedRun[], studCount: number): number[] {
-  return Array.from({ length: studCount }, (_, p) => {
-    const values = runs.map((r) => r.driftPercent[p]).filter((v): v is number => typeof v === 'number');
-    return values.length ? mean(values) : 0;
-  });
+  const byPosition = Array.from({ length: studCount }, () => [] as number[]);
+  for (const run of runs) {
+    for (let p = 0; p < studCount; p++) {
+      const v = run.driftPercent[p];
+      if (typeof v === 'number') byPosition[p]!.push(v);
+    }
+  }
+  return byPosition.map((values) => (values.length ? mean(values) : 0));
 }

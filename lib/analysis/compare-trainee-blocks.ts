@@ -1,5 +1,6 @@
 import { likelihoodRatioTest } from '../stats/likelihood-ratio-test';
-import { randomInterceptModel } from '../stats/random-intercept-model';
+import type { RandomInterceptModelResult } from '../stats/random-intercept-model';
+import { randomInterceptModels } from '../stats/random-intercept-models';
 import type { TraineeBlocks } from './compare-types';
 import type { RawTest } from './compare-run-tests';
 import { TEST_QUESTIONS } from './compare-types';
@@ -21,18 +22,34 @@ const Z_975 = 1.959963984540054;
  * (each group's run CV relative to the first, Wald 95 % interval) come from the REML fit.
  */
 export function traineeBlocks(groups: readonly BlockedGroup[]): { blocks: TraineeBlocks; test: RawTest } {
-  const runs = groups.flatMap((g, gi) => g.runs.map((r) => ({ ...r, gi })));
-  const y = runs.map((r) => r.lnCv);
-  const clusters = runs.map((r) => r.operator);
-  const groupColumns = groups.slice(1).map((_, j) => runs.map((r) => (r.gi === j + 1 ? 1 : 0)));
-  const attempts = runs.map((r) => r.attempt);
+  let total = 0;
+  for (const g of groups) total += g.runs.length;
+  const y = new Array<number>(total);
+  const clusters = new Array<string | number>(total);
+  const attempts = new Array<number | null>(total);
+  // One 0/1 column per group after the first.
+  const groupColumns = groups.slice(1).map(() => new Array<number>(total).fill(0));
+  let at = 0;
+  groups.forEach((g, gi) => {
+    for (const r of g.runs) {
+      y[at] = r.lnCv;
+      clusters[at] = r.operator;
+      attempts[at] = r.attempt;
+      if (gi > 0) groupColumns[gi - 1]![at] = 1;
+      at += 1;
+    }
+  });
   const attemptKnown = attempts.every((a): a is number => typeof a === 'number') && new Set(attempts).size > 1;
   const attemptColumns = attemptKnown ? [attempts as number[]] : [];
   const full = [...groupColumns, ...attemptColumns];
-  const fullMl = randomInterceptModel(full, y, clusters, { method: 'ML' });
-  const reducedMl = randomInterceptModel(attemptColumns, y, clusters, { method: 'ML' });
+  const all = full.map((_, j) => j);
+  // One prepared design for the three fits (the same numbers as three separate randomInterceptModel calls).
+  const [fullMl, reducedMl, reml] = randomInterceptModels(full, y, clusters, [
+    { predictors: all, method: 'ML' },
+    { predictors: attemptKnown ? [groupColumns.length] : [], method: 'ML' },
+    { predictors: all, method: 'REML' },
+  ]) as [RandomInterceptModelResult, RandomInterceptModelResult, RandomInterceptModelResult];
   const lrt = likelihoodRatioTest(fullMl.logLikelihood, reducedMl.logLikelihood, groupColumns.length);
-  const reml = randomInterceptModel(full, y, clusters, { method: 'REML' });
   const wald = (index: number) => {
     const b = reml.coefficients[index]!;
     const se = reml.standardErrors[index]!;
@@ -48,7 +65,7 @@ export function traineeBlocks(groups: readonly BlockedGroup[]): { blocks: Traine
     estimates,
     perAttempt: attemptKnown ? wald(groups.length) : null,
     operators: fullMl.numberOfClusters,
-    runs: runs.length,
+    runs: total,
     operatorSd: Math.sqrt(reml.clusterVariance),
     residualSd: Math.sqrt(reml.residualVariance),
   };

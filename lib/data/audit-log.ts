@@ -6,7 +6,7 @@ import { assertRole, type SessionUser } from '../auth/session';
 import { csvRows, type CsvValue } from '../export/write-csv';
 
 /** What the audit log keeps changes of. */
-export const AUDIT_OBJECT_TYPES = ['run', 'verdict', 'criteria', 'course_outcome', 'training_record', 'account', 'calibration_session', 'theory_result', 'checklist_tick'] as const;
+export const AUDIT_OBJECT_TYPES = ['run', 'verdict', 'criteria', 'course_outcome', 'training_record', 'account', 'calibration_session', 'theory_result', 'checklist_tick', 'saved_comparison'] as const;
 export type AuditObjectType = (typeof AUDIT_OBJECT_TYPES)[number];
 
 export interface AuditChange {

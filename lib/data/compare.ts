@@ -8,6 +8,9 @@ import { nutFactor } from '../stats/nut-factor';
 import { studDiameterM } from '../joints/joint-properties';
 import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
+import { AppError } from '../http/errors';
+import { etagMatches } from '../http/etag';
+import { softwareVersion } from '../saved-comparisons/software-version';
 import { sequelize } from '@/models';
 import { operatorKey, operatorLabel, refuseOperatorIdsForResearcher, runScopeSql } from './scope';
 
@@ -77,14 +80,19 @@ const MEASURED_SQL = "r.source IN ('upload', 'manual', 'live')";
 const SOURCE_SQL = { measured: MEASURED_SQL, simulated: "r.source = 'simulated'", both: '1 = 1' } as const;
 const STATUS_SQL = { complete: "r.status = 'complete'", set_aside: "r.status = 'set_aside'", both: "r.status IN ('complete', 'set_aside')" } as const;
 
+/** The run-level columns of a comparison (narrow, so the attempt window sorts small rows). */
 interface RunRowSql {
   group_id: number;
   operator_id: number;
-  attempt: number;
+  attempt: number | null;
   target_load_n: number;
-  final_loads_json: string;
   final_mean_n: number | null;
   final_sd_n: number | null;
+}
+
+/** The stud-level columns, read by a second query in the same order (by run id). */
+interface RunLoadsSql {
+  final_loads_json: string;
   drift_json?: string | null;
 }
 
@@ -101,6 +109,9 @@ export async function compareRuns(user: SessionUser, query: CompareQuery): Promi
 /** Cached comparisons older than this are removed when a new one is stored. */
 const CACHE_DAYS = 2;
 
+/** Part of the ETag, so a new build never answers 304 for an answer an older one computed. */
+const SOFTWARE = softwareVersion();
+
 /**
  * The comparison as JSON text, from the shared cache when the runs it depends on are unchanged.
  * One aggregate over the filter (without the source condition) gives the fingerprint (count, last
@@ -109,6 +120,15 @@ const CACHE_DAYS = 2;
  * aggregate plus a primary-key read.
  */
 export async function compareRunsJson(user: SessionUser, query: CompareQuery): Promise<string> {
+  return (await compareRunsCached(user, query, null)).body as string;
+}
+
+/**
+ * The comparison with its ETag (the cache key, the fingerprint of its runs and the software, so it
+ * changes whenever the answer could): when `ifNoneMatch` names it, `body` is null (answer 304) and
+ * neither the cache row nor the runs are read.
+ */
+export async function compareRunsCached(user: SessionUser, query: CompareQuery, ifNoneMatch: string | null): Promise<{ etag: string; body: string | null }> {
   refuseOperatorIdsForResearcher(user, 'ids', query.by === 'trainee' && Boolean(query.ids?.length));
   const { where, params } = await filterSql(user, query);
   const match = SOURCE_SQL[query.source];
@@ -124,16 +144,18 @@ export async function compareRunsJson(user: SessionUser, query: CompareQuery): P
   const fingerprint = `${Number(fp?.n ?? 0)}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${Number(fp?.left_out ?? 0)}:${String(fp?.names ?? '-')}`;
   const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
   const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
+  const etag = `"${createHash('sha256').update(`${key}|${fingerprint}|${SOFTWARE}`).digest('base64url').slice(0, 32)}"`;
+  if (etagMatches(ifNoneMatch, etag)) return { etag, body: null };
   const [cached] = await sequelize.query<{ body: string }>('SELECT body FROM comparison_cache WHERE cache_key = ? AND fingerprint = ?', {
     type: QueryTypes.SELECT,
     replacements: [key, fingerprint],
   });
-  if (cached) return cached.body;
+  if (cached) return { etag, body: cached.body };
   const shape: SelectionShape = { studCounts: { min: fp?.min_studs ?? null, max: fp?.max_studs ?? null }, simulatedLeftOut: Number(fp?.left_out ?? 0) };
   const body = JSON.stringify(await computeComparison(user, query, [...where, match], params, shape));
   await sequelize.query('REPLACE INTO comparison_cache (cache_key, fingerprint, body, created_at) VALUES (?, ?, ?, NOW())', { replacements: [key, fingerprint, body] });
   await sequelize.query('DELETE FROM comparison_cache WHERE created_at < NOW() - INTERVAL ? DAY', { replacements: [CACHE_DAYS] });
-  return body;
+  return { etag, body };
 }
 
 /** Every filter except the source, as SQL on the alias `r`, scoped to this person. */
@@ -161,20 +183,30 @@ async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ wher
 async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[], shape: SelectionShape): Promise<CompareResponse> {
   const column = GROUP_COLUMN[query.by];
   const oneStudCount = shape.studCounts.min !== null && shape.studCounts.min === shape.studCounts.max;
-  const rows = await sequelize.query<RunRowSql>(
-    `SELECT ${column} AS group_id, r.operator_id, a.attempt, r.target_load_n, r.final_loads_json, r.final_mean_n, r.final_sd_n${oneStudCount ? ', r.drift_json' : ''}
-     FROM runs r
-     JOIN (SELECT id, ROW_NUMBER() OVER (PARTITION BY operator_id ORDER BY recorded_at, id) AS attempt
-           FROM runs WHERE status = 'complete' AND operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${where.join(' AND ')})) a ON a.id = r.id
-     WHERE ${where.join(' AND ')}`,
-    { type: QueryTypes.SELECT, replacements: [...params, ...params] },
-  );
-  const byGroup = new Map<number, RunRowSql[]>();
-  for (const row of rows) {
-    const list = byGroup.get(row.group_id) ?? [];
-    list.push(row);
-    byGroup.set(row.group_id, list);
-  }
+  // Two queries side by side, both in run id order: the run-level figures with the attempt number
+  // (a window over each operator's complete runs, on narrow rows: wide JSON text in the window's
+  // sort made it several times slower), and the final loads (and drift) as stored JSON.
+  const chosen = where.join(' AND ');
+  const [rows, loads] = await Promise.all([
+    sequelize.query<RunRowSql>(
+      `SELECT x.group_id, x.operator_id, x.attempt, x.target_load_n, x.final_mean_n, x.final_sd_n FROM (
+         SELECT ${column} AS group_id, r.id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, (${chosen}) AS chosen,
+                IF(r.status = 'complete', ROW_NUMBER() OVER (PARTITION BY r.operator_id, r.status = 'complete' ORDER BY r.recorded_at, r.id), NULL) AS attempt
+         FROM runs r
+         WHERE (r.status = 'complete' AND r.operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${chosen})) OR (${chosen})
+       ) x WHERE x.chosen ORDER BY x.id`,
+      { type: QueryTypes.SELECT, replacements: [...params, ...params, ...params] },
+    ),
+    sequelize.query<RunLoadsSql>(`SELECT r.final_loads_json${oneStudCount ? ', r.drift_json' : ''} FROM runs r WHERE ${chosen} ORDER BY r.id`, { type: QueryTypes.SELECT, replacements: params }),
+  ]);
+  if (rows.length !== loads.length) throw new AppError('conflict', 'Runs changed while the comparison was being computed. Try again.');
+  const byGroup = new Map<number, (RunRowSql & RunLoadsSql)[]>();
+  rows.forEach((row, i) => {
+    const joined = Object.assign(row, loads[i]!);
+    const list = byGroup.get(row.group_id);
+    if (list) list.push(joined);
+    else byGroup.set(row.group_id, [joined]);
+  });
   // Keep the named groups in the order given; otherwise the 8 largest groups, ordered by label.
   let groupIds = query.ids?.filter((g) => byGroup.has(g)) ?? [...byGroup.keys()].sort((a, b) => (byGroup.get(b)?.length ?? 0) - (byGroup.get(a)?.length ?? 0)).slice(0, 8);
   const labels = await groupLabels(user, query.by, groupIds);

@@ -7,13 +7,15 @@ import { citationLine } from '../saved-comparisons/citation';
 import { dataPackageDescriptor, DATA_PACKAGE_PATH, MANIFEST_PATH, RESULTS_PATH } from '../saved-comparisons/data-package';
 import { headlineOf, type Headline } from '../saved-comparisons/headline';
 import { pythonScript, PYTHON_SCRIPT_PATH } from '../saved-comparisons/python-script';
+import { softwareVersion } from '../saved-comparisons/software-version';
 import { AppError } from '../http/errors';
 import { appBaseUrl } from '../platform/env';
 import type { SessionUser } from '../auth/session';
 import { SavedComparison, sequelize, User } from '@/models';
-import packageJson from '@/package.json';
+import { pseudonymiseJson, type Replacement } from '../saved-comparisons/pseudonymise';
+import { pseudonymFor } from './pseudonym';
 import { comparisonRunKeys, compareQuerySchema, compareRunsJson, type CompareQuery, type CompareResponse } from './compare';
-import { dataTables, sha256Hex, type FrozenRun } from './saved-comparison-tables';
+import { dataTables, sha256Hex, type DataTables, type FrozenRun } from './saved-comparison-tables';
 import { runScopeSql } from './scope';
 
 /** A frozen comparison carries every reading of its runs in its package; above this many runs, narrow the filters. */
@@ -30,12 +32,6 @@ export const freezeInputSchema = z.object({
     return parsed.data;
   }),
 });
-
-/** The software that froze a comparison: the package version and, when the build knew it, the git commit. */
-export function softwareVersion(): string {
-  const commit = process.env.EVENLOAD_BUILD_COMMIT ?? '';
-  return commit ? `evenload ${packageJson.version} (${commit.slice(0, 12)})` : `evenload ${packageJson.version}`;
-}
 
 /** The comparison's choice as the address of the live Compare page. */
 export function compareSearch(query: CompareQuery): string {
@@ -85,25 +81,87 @@ export interface SavedComparisonView {
   runCount: number;
   softwareVersion: string;
   dataSha256: string;
+  /** True when the runs' data tables no longer hash to the frozen sha256 (a run, step or reading changed since). */
+  dataChanged: boolean;
   results: CompareResponse;
   headline: Headline;
 }
+
+/** The view with what its package needs: the runs and the data tables as they are now. */
+type SavedComparisonFull = SavedComparisonView & { runs: FrozenRun[]; tables: DataTables | null };
+
+const NOT_FOUND = 'This saved comparison does not exist, or it holds runs you may not see.';
+const frozenRuns = (row: SavedComparison): FrozenRun[] => (JSON.parse(row.runIdsJson) as [number, string][]).map(([id, group]) => ({ id, group }));
+
+/** The view of a saved comparison row (results as frozen; the data tables recomputed to tell whether they changed). */
+async function viewOf(row: SavedComparison, results: CompareResponse, query: CompareQuery, runs: FrozenRun[], original: FrozenRun[], originalLabels: Map<string, string>): Promise<SavedComparisonFull> {
+  const facts = { title: row.title, author: row.createdBy?.name ?? 'Unknown', createdAt: row.createdAt.toISOString(), link: `${appBaseUrl()}/compare/saved/${row.slug}`, dataSha256: row.dataSha256 };
+  const tables = await dataTables(row.slug, original, originalLabels);
+  const dataChanged = tables.dataSha256 !== row.dataSha256;
+  return {
+    ...facts,
+    slug: row.slug,
+    citation: citationLine(facts),
+    query,
+    liveSearch: compareSearch(query),
+    runCount: runs.length,
+    softwareVersion: row.softwareVersion,
+    dataChanged,
+    results,
+    headline: headlineOf(results),
+    runs,
+    // The tables serve the package as they are only when the runs were not relabelled for a reviewer.
+    tables: runs === original ? tables : null,
+  };
+}
+
+const parsedQuery = (row: SavedComparison) => compareQuerySchema.parse(Object.fromEntries(new URLSearchParams(compareSearch(JSON.parse(row.queryJson) as CompareQuery))));
 
 /**
  * One saved comparison, for a signed-in instructor or researcher who may see every one of its runs
  * (the rule of Compare); anyone else gets "not found", so its existence is not revealed.
  */
-export async function savedComparison(user: SessionUser, slug: string): Promise<SavedComparisonView & { runs: FrozenRun[] }> {
+export async function savedComparison(user: SessionUser, slug: string): Promise<SavedComparisonFull> {
   const row = /^[a-z0-9]{12}$/.test(slug) ? await SavedComparison.findOne({ where: { slug }, include: [{ model: User, as: 'createdBy', attributes: ['name'] }] }) : null;
-  if (!row) throw new AppError('not_found', 'This saved comparison does not exist, or it holds runs you may not see.');
-  const runs = (JSON.parse(row.runIdsJson) as [number, string][]).map(([id, group]) => ({ id, group }));
+  if (!row) throw new AppError('not_found', NOT_FOUND);
+  const runs = frozenRuns(row);
   const scope = await runScopeSql(user);
   const [visible] = await sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM runs r WHERE r.id IN (?) AND ${scope.sql}`, { type: QueryTypes.SELECT, replacements: [runs.map((r) => r.id), ...scope.params] });
-  if (Number(visible?.n ?? 0) !== runs.length) throw new AppError('not_found', 'This saved comparison does not exist, or it holds runs you may not see.');
+  if (Number(visible?.n ?? 0) !== runs.length) throw new AppError('not_found', NOT_FOUND);
   const results = JSON.parse(row.resultsJson) as CompareResponse;
-  const query = compareQuerySchema.parse(Object.fromEntries(new URLSearchParams(compareSearch(JSON.parse(row.queryJson) as CompareQuery))));
-  const facts = { title: row.title, author: row.createdBy?.name ?? 'Unknown', createdAt: row.createdAt.toISOString(), link: `${appBaseUrl()}/compare/saved/${row.slug}`, dataSha256: row.dataSha256 };
-  return { ...facts, slug: row.slug, citation: citationLine(facts), query, liveSearch: compareSearch(query), runCount: runs.length, softwareVersion: row.softwareVersion, results, headline: headlineOf(results), runs };
+  return viewOf(row, results, parsedQuery(row), runs, runs, labelsOf(results));
+}
+
+/**
+ * A saved comparison as a review link shows it, trainees pseudonymised: every operator of its runs
+ * is "Operator XXXXXX" keyed by the saved comparison (the pseudonym of its package's runs table),
+ * in place of their name, email, the pseudonym a researcher saw or the user id that keyed their
+ * group; filters that name a person by id are left out.
+ */
+export async function savedComparisonForReview(id: number): Promise<SavedComparisonFull> {
+  const row = await SavedComparison.findByPk(id, { include: [{ model: User, as: 'createdBy', attributes: ['name'] }] });
+  if (!row) throw new AppError('not_found', NOT_FOUND);
+  const original = frozenRuns(row);
+  const operators = await sequelize.query<{ id: number; name: string; email: string }>(
+    'SELECT DISTINCT u.id, u.name, u.email FROM runs r JOIN users u ON u.id = r.operator_id WHERE r.id IN (?)',
+    { type: QueryTypes.SELECT, replacements: [original.length ? original.map((r) => r.id) : [0]] },
+  );
+  const key = `saved-comparison:${row.slug}`;
+  const pseudonymOf = new Map(operators.map((o) => [o.id, pseudonymFor(o.id, key)]));
+  const replacements: Replacement[] = operators.flatMap((o) => {
+    const to = pseudonymOf.get(o.id)!;
+    const seenAs = pseudonymFor(o.id);
+    return [{ from: o.name, to }, { from: o.email, to }, { from: seenAs, to }, { from: seenAs.replace(/^Operator /, 'op-'), to: to.replace(/^Operator /, 'op-') }];
+  });
+  const query = parsedQuery(row);
+  const byTrainee = query.by === 'trainee';
+  // Groups keyed by a user id (an instructor compared by trainee) get the pseudonym's code instead.
+  const groupKey = (k: string) => (byTrainee && /^\d+$/.test(k) && pseudonymOf.has(Number(k)) ? pseudonymOf.get(Number(k))!.replace(/^Operator /, 'op-') : k);
+  const results = JSON.parse(pseudonymiseJson(row.resultsJson, replacements)) as CompareResponse;
+  for (const g of [...results.groups, ...results.chartGroups]) g.key = groupKey(g.key);
+  const shownQuery: CompareQuery = { ...query, operatorId: undefined, ...(byTrainee ? { ids: undefined } : {}) };
+  const runs = original.map((r) => ({ id: r.id, group: groupKey(r.group) }));
+  return viewOf(row, results, shownQuery, byTrainee ? runs : original, original, labelsOf(JSON.parse(row.resultsJson) as CompareResponse));
 }
 
 /** This person's saved comparisons, newest first. */
@@ -118,8 +176,12 @@ export async function listSavedComparisons(user: SessionUser): Promise<{ slug: s
  * Python script that recomputes the headline numbers, and a SHA-256 manifest of every other file.
  */
 export async function savedComparisonPackage(user: SessionUser, slug: string): Promise<{ fileName: string; bytes: Uint8Array }> {
-  const saved = await savedComparison(user, slug);
-  const tables = await dataTables(saved.slug, saved.runs, labelsOf(saved.results));
+  return buildPackage(await savedComparison(user, slug));
+}
+
+/** The zip of one saved comparison as `savedComparison` or `savedComparisonForReview` gave it. */
+export async function buildPackage(saved: SavedComparisonFull): Promise<{ fileName: string; bytes: Uint8Array }> {
+  const tables = saved.tables ?? (await dataTables(saved.slug, saved.runs, labelsOf(saved.results)));
   const files: Record<string, string> = { ...tables.files };
   files[RESULTS_PATH] = `${JSON.stringify({ headline: saved.headline, results: saved.results }, null, 2)}\n`;
   files[PYTHON_SCRIPT_PATH] = pythonScript({ title: saved.title, groupKeys: saved.results.groups.map((g) => g.key), headline: saved.headline, dataSha256: saved.dataSha256 });
@@ -128,7 +190,7 @@ export async function savedComparisonPackage(user: SessionUser, slug: string): P
     { slug: saved.slug, title: saved.title, author: saved.author, createdAt: saved.createdAt, link: saved.link, citation: saved.citation, query: saved.query, runCount: saved.runCount, softwareVersion: saved.softwareVersion, dataSha256: saved.dataSha256 },
     fileSha256,
   );
-  files[DATA_PACKAGE_PATH] = `${JSON.stringify({ ...descriptor, evenload: { ...descriptor.evenload, dataUnchangedSinceFrozen: tables.dataSha256 === saved.dataSha256 } }, null, 2)}\n`;
+  files[DATA_PACKAGE_PATH] = `${JSON.stringify({ ...descriptor, evenload: { ...descriptor.evenload, dataUnchangedSinceFrozen: !saved.dataChanged } }, null, 2)}\n`;
   fileSha256[DATA_PACKAGE_PATH] = sha256Hex(files[DATA_PACKAGE_PATH]);
   files[MANIFEST_PATH] = Object.keys(files).sort().map((path) => `${fileSha256[path]}  ${path}\n`).join('');
   const root = `evenload-comparison-${saved.slug}`;

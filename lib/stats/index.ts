@@ -17,6 +17,7 @@ export { largestDeviationFromMean } from './largest-deviation-from-mean';
 export { largestDeviationFromTarget } from './largest-deviation-from-target';
 export { shareWithinBand } from './share-within-band';
 export { quantile } from './quantile';
+export { quantileSorted } from './quantile-sorted';
 export { lagOneAutocorrelation } from './lag-one-autocorrelation';
 export { tighteningFactor } from './tightening-factor';
 export { threeSigmaOverMean } from './three-sigma-over-mean';
@@ -50,11 +51,13 @@ export { gamesHowell, type GamesHowellComparison, type GamesHowellResult } from 
 export { holmAdjust } from './holm-adjust';
 export { cvRatioFromLogCv, type CvRatioResult } from './cv-ratio-from-log-cv';
 export { varianceComponents, type VarianceComponentsResult } from './variance-components';
+export { varianceComponentsFromSummaries, type VarianceRunSummary } from './variance-components-from-summaries';
 export { runsPerGroupForCvRatio, type RunsPerGroupResult } from './runs-per-group-for-cv-ratio';
 export { readStatisticalResult, type ReadableResult, type ReadingOptions } from './read-statistical-result';
 
 // Mixed model (trainees as blocks)
 export { randomInterceptModel, type RandomInterceptModelResult } from './random-intercept-model';
+export { randomInterceptModels } from './random-intercept-models';
 export { likelihoodRatioTest, type LikelihoodRatioTestResult } from './likelihood-ratio-test';
 
 // Regression and nut factor

@@ -5,8 +5,10 @@
  *     readings into a scratch table (target >= 0.7x).
  *  2. compare: GET /api/compare over 10,000 runs in 6 groups (mixed model included) vs one bare SQL
  *     aggregate returning the same group counts and means (targets: first, uncached <= 5x; repeat
- *     <= 1.5x). The route is warmed by another comparison first, so "first" is the first
- *     computation of this selection, not the server's first request.
+ *     <= 1.5x). The server is warmed by a comparison of other groups; "first" is then a query it
+ *     has never seen, with the comparison cache emptied (three such, the first and the median
+ *     reported); "repeat" is the full body from the shared cache, and a revalidation with
+ *     If-None-Match (304) is reported beside it. The load average is printed with the figures.
  *  3. load: runs-list and run-analysis APIs under 50 connections vs a constant-JSON handler
  *     (targets: runs list and analysis >= 0.8x throughput, runs list p99 < 100 ms); the analysis
  *     also as a repeat with If-None-Match (answered 304 from the stored ETag).
@@ -117,30 +119,60 @@ async function benchCompare(baseUrl: string) {
   const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
   // The bench runs are stored as simulated, so the comparison asks for simulated runs explicitly.
   const url = `/api/compare?by=method&source=simulated&ids=${methods.join(',')}`;
-  const api: number[] = [];
+  const sqlOnce = async () => {
+    const t = performance.now();
+    await q("SELECT method_id, COUNT(*) AS n, AVG(final_mean_n / target_load_n) AS mean_ratio, AVG(final_cv) AS mean_cv FROM runs WHERE status = 'complete' AND source = 'simulated' AND method_id IN (?) GROUP BY method_id", [methods]);
+    return performance.now() - t;
+  };
   const sql: number[] = [];
-  let totalRuns = 0;
-  // Warm the route (its modules loaded, the statistics code compiled) with another comparison.
+  // Warm the server (modules loaded, the statistics code compiled) with a comparison of other
+  // groups (by lubricant, measured and simulated runs): never the query measured below.
   await (await researcher.get(`/api/compare?by=lubricant&source=both`)).json();
-  // Cold: nothing cached, so the comparison is computed (statistics on every stored run profile).
-  await sequelize.query('DELETE FROM comparison_cache');
-  const coldStarted = performance.now();
-  await (await researcher.get(url)).json();
-  const coldMs = performance.now() - coldStarted;
+  // First (uncached): three queries the server has never seen, each selecting the same 10,000 runs
+  // (a "from" date before every run makes a new query and cache key), with the comparison cache
+  // emptied before each, so every one reads the runs and computes every statistic.
+  const cold: number[] = [];
+  for (const day of ['01', '02', '03']) {
+    await sequelize.query('DELETE FROM comparison_cache');
+    sql.push(await sqlOnce());
+    const t = performance.now();
+    await (await researcher.get(`${url}&from=2000-01-${day}`)).json();
+    cold.push(performance.now() - t);
+  }
+  // Repeat: the measured URL once (computed and cached), then 12 repeats with the full body from the
+  // shared cache, and 12 revalidations with If-None-Match (answered 304 without the body).
+  let totalRuns = 0;
+  const first = await researcher.get(url);
+  const etag = first.headers.get('etag') ?? '';
+  totalRuns = ((await first.json()) as { totalRuns: number }).totalRuns;
+  const api: number[] = [];
+  const revalidate: number[] = [];
+  let notModified = 0;
   for (let i = 0; i < 12; i += 1) {
     let t = performance.now();
-    const response = await researcher.get(url);
-    const body = (await response.json()) as { totalRuns: number };
+    await (await researcher.get(url)).json();
     api.push(performance.now() - t);
-    totalRuns = body.totalRuns;
+    sql.push(await sqlOnce());
     t = performance.now();
-    await q("SELECT method_id, COUNT(*) AS n, AVG(final_mean_n / target_load_n) AS mean_ratio, AVG(final_cv) AS mean_cv FROM runs WHERE status = 'complete' AND source = 'simulated' AND method_id IN (?) GROUP BY method_id", [methods]);
-    sql.push(performance.now() - t);
+    const response = await researcher.send('GET', url, undefined, { 'if-none-match': etag });
+    await response.arrayBuffer();
+    revalidate.push(performance.now() - t);
+    if (response.status === 304) notModified += 1;
   }
   const apiMs = median(api.slice(2));
-  const sqlMs = median(sql.slice(2));
-  results.compare = { runs: totalRuns, groups: methods.length, coldMs, apiMedianMs: apiMs, sqlMedianMs: sqlMs, ratio: apiMs / sqlMs, coldRatio: coldMs / sqlMs, target: '<= 1.5 (repeat, from the shared cache); first <= 5' };
-  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups`, `GET /api/compare ${apiMs.toFixed(1)} ms (median, repeat); first ${coldMs.toFixed(0)} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(apiMs / sqlMs).toFixed(2)}x (<= 1.5x); first ${(coldMs / sqlMs).toFixed(1)}x (<= 5x)`]);
+  const revalidateMs = median(revalidate.slice(2));
+  const sqlMs = median(sql);
+  const coldMs = cold[0]!;
+  const coldMedianMs = median(cold);
+  const [load1] = os.loadavg();
+  results.compare = {
+    runs: totalRuns, groups: methods.length, measured: 'first: a new query after a warm-up on another comparison, cache emptied; repeat: full body from the shared cache; revalidate: If-None-Match, 304',
+    coldMs, coldMedianMs, coldAllMs: cold, apiMedianMs: apiMs, revalidateMedianMs: revalidateMs, notModified, sqlMedianMs: sqlMs,
+    ratio: apiMs / sqlMs, revalidateRatio: revalidateMs / sqlMs, coldRatio: coldMs / sqlMs, coldMedianRatio: coldMedianMs / sqlMs, loadAverage1m: load1,
+    target: '<= 1.5 (repeat, from the shared cache); first <= 5',
+  };
+  rows.push([`compare ${totalRuns.toLocaleString('en-US')} runs, 6 groups (first)`, `first ${coldMs.toFixed(0)} ms; 3 new queries ${cold.map((c) => c.toFixed(0)).join(', ')} ms`, `bare SQL aggregate ${sqlMs.toFixed(1)} ms`, `${(coldMs / sqlMs).toFixed(1)}x, median ${(coldMedianMs / sqlMs).toFixed(1)}x (<= 5x)`]);
+  rows.push(['compare repeat', `GET ${apiMs.toFixed(1)} ms (median, full body); If-None-Match ${revalidateMs.toFixed(1)} ms (${notModified}/12 answered 304)`, `load average ${load1!.toFixed(1)}`, `${(apiMs / sqlMs).toFixed(2)}x; revalidated ${(revalidateMs / sqlMs).toFixed(2)}x (<= 1.5x)`]);
 }
 
 async function cannon(url: string, cookie: string, connections: number, seconds: number, extraHeaders: Record<string, string> = {}) {

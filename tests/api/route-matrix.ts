@@ -29,6 +29,8 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/admin/audit-log', method: 'GET', path: '/api/admin/audit-log', expect: { anonymous: 401, admin: 200, instructor: 403, researcher: 403, trainee: 403 } },
   { route: '/api/compare', method: 'GET', path: '/api/compare?by=method', expect: { anonymous: 401, admin: 403, instructor: 200, researcher: 200, trainee: 403 } },
   // A saved comparison no one has: 404 for the roles of Compare (we do not reveal whether it exists).
+  // A review link no one made: a plain 404 for everyone (the link, not a session, is the credential).
+  { route: '/api/review/[token]/package', method: 'GET', path: '/api/review/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA/package', expect: { anonymous: 404, admin: 404, instructor: 404, researcher: 404, trainee: 404 } },
   { route: '/api/compare/saved/[slug]/package', method: 'GET', path: '/api/compare/saved/zzzzzzzzzzzz/package', expect: { anonymous: 401, admin: 403, instructor: 404, researcher: 404, trainee: 403 } },
   // Record (issue 4). Bodies are deliberately empty or invalid: the matrix checks who gets past the door.
   { route: '/api/uploads', method: 'POST', path: '/api/uploads', expect: { anonymous: 401, admin: 403, instructor: 422, researcher: 422, trainee: 422 } },

@@ -22,7 +22,7 @@ let jointId: number;
 let jointName: string;
 let saved: Awaited<ReturnType<typeof freezeDemoComparison>> | undefined;
 
-const PUBLIC_PAGES = ['/sign-in', '/forgot-password', '/reset/not-a-token', '/welcome/not-a-token', '/dev/outbox', '/verify/ZZZZZZZZZZZZZZZZ'];
+const PUBLIC_PAGES = ['/sign-in', '/forgot-password', '/reset/not-a-token', '/welcome/not-a-token', '/dev/outbox', '/verify/ZZZZZZZZZZZZZZZZ', '/review/not-a-token'];
 
 async function firstId(sql: string): Promise<number> {
   const [row] = await sequelize.query<{ id: number }>(sql, { type: QueryTypes.SELECT });

@@ -89,6 +89,9 @@ const ACTIONS: ActionEntry[] = [
   { file: 'app/(lab)/equipment/actions.ts', name: 'saveEquipmentAction', allowed: ['admin'], call: () => equipment.saveEquipmentAction(null, idle, form()) },
   { file: 'app/(lab)/runs/[id]/actions.ts', name: 'setRunToolsAction', allowed: ['instructor', 'admin'], call: () => comments.setRunToolsAction(ids.run, idle, form()) },
   // An empty form: allowed callers are told the title and query are missing; nothing is frozen.
+  // A saved comparison no one has: allowed callers are told it does not exist; no link is made or withdrawn.
+  { file: 'app/(lab)/compare/saved/actions.ts', name: 'createReviewLinkAction', allowed: ['instructor', 'researcher'], call: () => saved.createReviewLinkAction('zzzzzzzzzzzz', idle, form()) },
+  { file: 'app/(lab)/compare/saved/actions.ts', name: 'revokeReviewLinkAction', allowed: ['instructor', 'researcher'], call: () => saved.revokeReviewLinkAction('zzzzzzzzzzzz', 0, idle, form()) },
   { file: 'app/(lab)/compare/saved/actions.ts', name: 'freezeComparisonAction', allowed: ['instructor', 'researcher'], call: () => saved.freezeComparisonAction(idle, form()) },
   // Empty forms, no pass decided and record id 0: allowed callers are refused on the facts, changing nothing.
   { file: 'app/(lab)/cohorts/[id]/trainees/[userId]/actions.ts', name: 'decideOutcomeAction', allowed: ['instructor', 'admin'], call: () => trainee.decideOutcomeAction(ids.cohort, ids.trainee, idle, form()) },

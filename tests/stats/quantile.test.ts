@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { quantile } from '@/lib/stats';
+import { quantile, quantileSorted } from '@/lib/stats';
 import { relativeError } from './support/lre';
 import { scipyFixture } from './support/scipy-fixtures';
 
@@ -11,6 +11,16 @@ describe('quantile', () => {
       // Reference: tests/fixtures/scipy/quantiles.json, numpy.quantile(..., method='linear').
       expect(relativeError(quantile(fx.values, p), fx.quantiles[i]!)).toBeLessThan(1e-12);
     });
+  });
+
+  it('quantileSorted on the sorted fixture matches numpy.quantile(method="linear") too, and equals quantile exactly', () => {
+    const sorted = Float64Array.from(fx.values).sort();
+    fx.probabilities.forEach((p, i) => {
+      expect(relativeError(quantileSorted(sorted, p), fx.quantiles[i]!)).toBeLessThan(1e-12);
+      expect(quantileSorted(sorted, p)).toBe(quantile(fx.values, p));
+    });
+    expect(() => quantileSorted(Float64Array.from([1, Number.NaN]).sort(), 0.5)).toThrow('quantileSorted requires finite values');
+    expect(() => quantileSorted([], 0.5)).toThrow('quantileSorted requires at least one value');
   });
 
   it('quantile of 1, 2, 3, 4 at 0.25 is 1.75 (hand: h = 0.75)', () => {

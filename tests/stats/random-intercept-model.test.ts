@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { likelihoodRatioTest, randomInterceptModel, StatsError } from '@/lib/stats';
+import { likelihoodRatioTest, randomInterceptModel, randomInterceptModels, StatsError } from '@/lib/stats';
 import { lme4Fixture } from './support/lme4-fixtures';
 import { relativeError } from './support/lre';
 
@@ -36,6 +36,24 @@ describe('randomInterceptModel against lme4', () => {
       });
     }
   }
+
+  it('randomInterceptModels (one prepared design, fits on subsets of its columns) matches lme4 on the group + attempt case, full and attempt-only, number for number with randomInterceptModel', () => {
+    const c = fx.cases.find((k) => k.name === 'groupAndAttempt')!;
+    const last = c.predictors.length - 1;
+    const [fullMl, reducedMl, reml] = randomInterceptModels(c.predictors, c.y, c.clusters, [
+      { predictors: c.predictors.map((_, j) => j), method: 'ML' },
+      { predictors: [last], method: 'ML' },
+      { predictors: c.predictors.map((_, j) => j), method: 'REML' },
+    ]);
+    expect(relativeError(fullMl!.logLikelihood, c.ML.logLikelihood)).toBeLessThan(TOLERANCE);
+    expect(relativeError(reml!.logLikelihood, c.REML.logLikelihood)).toBeLessThan(TOLERANCE);
+    reml!.standardErrors.forEach((v, i) => expect(relativeError(v, c.REML.standardErrors[i]!)).toBeLessThan(TOLERANCE));
+    // The same numbers as separate fits (same centring, same sums): exact equality, not a tolerance.
+    expect(fullMl).toEqual(randomInterceptModel(c.predictors, c.y, c.clusters, { method: 'ML' }));
+    expect(reducedMl).toEqual(randomInterceptModel([c.predictors[last]!], c.y, c.clusters, { method: 'ML' }));
+    expect(reml).toEqual(randomInterceptModel(c.predictors, c.y, c.clusters, { method: 'REML' }));
+    expect(() => randomInterceptModels(c.predictors, c.y, c.clusters, [{ predictors: [c.predictors.length], method: 'ML' }])).toThrow(StatsError);
+  });
 
   it('with no cluster effect found, the fixed effects are those of ordinary least squares (lme4 singular fit = OLS)', () => {
     const c = fx.cases.find((k) => k.name === 'zeroClusterVariance')!;

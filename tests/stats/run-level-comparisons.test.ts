@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cvRatioFromLogCv, gamesHowell, holmAdjust, runsPerGroupForCvRatio, varianceComponents, welchTTest } from '@/lib/stats';
+import { cvRatioFromLogCv, gamesHowell, holmAdjust, mean, runsPerGroupForCvRatio, sampleVariance, varianceComponents, varianceComponentsFromSummaries, welchTTest } from '@/lib/stats';
 import { fQuantile } from '@/lib/stats/internal/f-quantile';
 import { relativeError } from './support/lre';
 import { expectPairsToMatch } from './support/pairwise-comparisons';
@@ -113,6 +113,17 @@ describe('varianceComponents', () => {
     // Spreading the run means a little moves L above 0, so the truncation at 0 cannot hide a wrong L.
     const slightlyWider = varianceComponents(runs.map((run, i) => run.map((v) => v + (i - 1) * 1e-3)));
     expect(slightlyWider.betweenRun.lower).toBeGreaterThan(0);
+  });
+  it('from run summaries (size, mean, sample variance) matches the same scipy fixtures to 1e-9, as stored run figures are used', () => {
+    for (const e of fx.varianceComponents) {
+      const r = varianceComponentsFromSummaries(e.runs.map((run) => ({ n: run.length, mean: mean(run), variance: sampleVariance(run) })), { confidence: e.confidence });
+      expect(relativeError(r.meanSquares.between, e.msBetween)).toBeLessThan(1e-9);
+      expect(relativeError(r.withinRun.variance, e.msWithin)).toBeLessThan(1e-9);
+      expect(relativeError(r.withinRun.lower, e.withinLower)).toBeLessThan(1e-9);
+      expect(relativeError(r.betweenRun.anovaEstimate, e.betweenEstimate)).toBeLessThan(1e-9);
+      expect(relativeError(r.betweenRun.upper, Math.max(0, e.betweenUpperUntruncated))).toBeLessThan(1e-9);
+    }
+    expect(() => varianceComponentsFromSummaries([{ n: 2, mean: 1, variance: 1 }, { n: 1, mean: 3, variance: 0 }])).toThrow('varianceComponentsFromSummaries requires at least two values of run 2 (got 1)');
   });
   it('rejects one run, a run of one stud and runs without within-run variation', () => {
     expect(() => varianceComponents([[1, 2, 3]])).toThrow('varianceComponents requires at least two runs');
