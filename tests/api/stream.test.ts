@@ -78,11 +78,11 @@ describe('POST /api/runs/:id/stream', () => {
     const { csv, readings } = wideFixtureAsStream();
     const file = path.join(mkdtempSync(path.join(os.tmpdir(), 'evenload-bridge-')), 'stream.csv');
     writeFileSync(file, csv);
-    const bridge = await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '37', '--rate', '0']);
+    const bridge = await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '37', '--rate', '0', '--long']);
     expect(bridge.code, bridge.output).toBe(0);
     expect(bridge.output).toContain(`sent ${readings} readings`);
     // A retried batch changes nothing: readings are keyed by (run, time, stud).
-    await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--rate', '0']);
+    await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--rate', '0', '--long']);
     const status = (await (await instructorHttp.get(`/api/runs/${runId}/stream`)).json()) as { sampleCount: number; status: string; latest: Array<{ position: number; loadN: number }> };
     expect(status).toMatchObject({ sampleCount: readings, status: 'recording' });
     expect(status.latest.map((l) => l.loadN)).toEqual(kN(57, 59, 58, 60));
