@@ -67,7 +67,8 @@ export function useSerialLogger(runId: number, joint: RecordJoint) {
   const current = useRef<Connection | null>(null);
 
   useEffect(() => {
-    setSupport(!serialOf() ? 'unsupported' : window.isSecureContext ? 'supported' : 'insecure');
+    // Browsers hide navigator.serial outside secure contexts, so that is asked first.
+    setSupport(!window.isSecureContext ? 'insecure' : serialOf() ? 'supported' : 'unsupported');
     return () => {
       const c = current.current;
       if (c) {

@@ -8,7 +8,7 @@ import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
 import { gradeIdOf } from './joint-properties';
 import { parseGasketFields, type JointGasket } from './gasket-input';
-import { parseLoggerLineFields } from './logger-line-input';
+import { LOGGER_LINE_FIELDS, parseLoggerLineFields } from './logger-line-input';
 import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import { parseNumberText } from '@/lib/format/parse-number';
 import { channelKey } from '@/lib/ingest/channel-map';
@@ -261,8 +261,9 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
   for (const [key, messages] of Object.entries(target.errors)) errors[key] ??= messages;
   const gasket = parseGasketFields(values, units);
   Object.assign(errors, gasket.errors);
-  const loggerLine = parseLoggerLineFields(values, scalars.success ? scalars.data.studCount : null);
-  Object.assign(errors, loggerLine.errors);
+  // A form without the logger line section (older clients, scripts) leaves the stored format as it is.
+  const loggerLine = LOGGER_LINE_FIELDS.some((f) => values[f] !== undefined) ? parseLoggerLineFields(values, scalars.success ? scalars.data.studCount : null) : null;
+  Object.assign(errors, loggerLine?.errors ?? {});
   if (!errors.studGrade && !errors.threadDiameter && !errors.threadPitch && !target.target && !Object.keys(target.errors).length) {
     errors.targetLoad = ['The target could not be worked out from these values.'];
   }
@@ -306,7 +307,7 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
       notes: s.notes,
       positions,
       gasket: gasket.value,
-      loggerLine: loggerLine.value,
+      ...(loggerLine ? { loggerLine: loggerLine.value } : {}),
     },
   };
 }

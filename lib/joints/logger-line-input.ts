@@ -11,6 +11,9 @@ import { BAUD_RATES, LINE_DELIMITERS, LOGGER_LINE_TRAINING_DEFAULTS, loggerLineF
 
 type FieldErrors = Record<string, string[] | undefined>;
 
+/** The section's form fields. */
+export const LOGGER_LINE_FIELDS = ['serialBaudRate', 'lineDelimiter', 'lineDecimal', 'lineTimeField', 'lineChannelFields', 'lineLoadUnit'] as const;
+
 /** The delimiters as the form names them. */
 export const DELIMITER_LABELS: Record<keyof typeof LINE_DELIMITERS, string> = { comma: 'Comma ,', semicolon: 'Semicolon ;', tab: 'Tab', space: 'Space' };
 
