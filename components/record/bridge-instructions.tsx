@@ -2,7 +2,7 @@
 
 import { useEffect, useState } from 'react';
 import type { RecordJoint } from '@/lib/data/record';
-import { channelFieldsText, DELIMITER_LABELS } from '@/lib/joints/logger-line-input';
+import { channelFieldsText, DELIMITER_WORDS } from '@/lib/joints/logger-line-input';
 import { CopyButton } from '../ui/copy-button';
 
 /**
@@ -20,7 +20,7 @@ export function BridgeInstructions({ runId, joint }: { runId: number; joint: Rec
       <li>Get a bridge token for {joint.name}: an instructor creates one under Bridge tokens on this page and copies it with its Copy button.</li>
       <li>On the computer the logger is plugged into, install Node.js 20 or later and open a terminal in a copy of Evenload.</li>
       <li>
-        Let the logger write its lines as set on the joint: fields separated by {DELIMITER_LABELS[f.delimiter].toLowerCase()}, decimal {f.decimalComma ? 'comma' : 'point'}, time in
+        Let the logger write its lines as set on the joint: fields separated by {DELIMITER_WORDS[f.delimiter]}, decimal {f.decimalComma ? 'comma' : 'point'}, time in
         seconds in field {f.timeField}, channels 1 to {f.channelFields?.length ?? joint.studCount} in {f.channelFields ? `fields ${channelFieldsText(f.channelFields)}` : 'the fields after it'}, loads
         in {f.loadUnit}. Save them to a file, or give the serial device (for example /dev/ttyUSB0) as the file.
       </li>

@@ -2,12 +2,15 @@
 
 import type { RecordJoint } from '@/lib/data/record';
 import { LINE_DELIMITERS } from '@/lib/ingest/logger-line';
-import { channelFieldsText, DELIMITER_LABELS } from '@/lib/joints/logger-line-input';
+import { channelFieldsText, DELIMITER_WORDS } from '@/lib/joints/logger-line-input';
 import { BridgeInstructions } from './bridge-instructions';
 import { useSerialLogger, type SerialState } from './use-serial-logger';
 
 const BUTTON = 'rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50';
 const QUIET = 'rounded-md border border-rule bg-paper px-3 py-1.5 text-sm disabled:opacity-50';
+
+/** The browser's reason in brackets, without its closing full stop. */
+const because = (detail: string | null) => (detail ? ` (${detail.replace(/\.$/, '')})` : '');
 
 /** The sentence for where a connection stands; `kept` names what stays on the server. */
 function phaseSentence(state: SerialState, runId: number): { text: string; tone: 'good' | 'danger' | 'muted' } {
@@ -26,9 +29,9 @@ function phaseSentence(state: SerialState, runId: number): { text: string; tone:
     case 'closed':
       return { text: `The port closed. The ${kept}; connect again to go on, or finish the run.`, tone: 'muted' };
     case 'lost':
-      return { text: `The logger was disconnected mid-run${state.detail ? ` (${state.detail})` : ''}. The ${kept}; plug it in and connect again to go on, or finish the run.`, tone: 'danger' };
+      return { text: `The logger was disconnected mid-run${because(state.detail)}. The ${kept}; plug it in and connect again to go on, or finish the run.`, tone: 'danger' };
     case 'busy':
-      return { text: `The port could not be opened${state.detail ? ` (${state.detail})` : ''}. Another program or browser tab may be using it, or it was unplugged: close it there, then connect again.`, tone: 'danger' };
+      return { text: `The port could not be opened${because(state.detail)}. Another program or browser tab may be using it, or it was unplugged: close it there, then connect again.`, tone: 'danger' };
     case 'no-port':
       return { text: state.detail ?? 'No port was chosen.', tone: 'muted' };
     case 'refused':
@@ -65,7 +68,7 @@ export function SerialLogger({ runId, joint }: { runId: number; joint: RecordJoi
   return (
     <div className="space-y-2" data-testid="serial-logger">
       <p className="text-sm text-muted">
-        {joint.name}: {f.baudRate} baud; fields separated by {DELIMITER_LABELS[f.delimiter].toLowerCase()}, decimal {f.decimalComma ? 'comma' : 'point'}; time in field {f.timeField}, channels in{' '}
+        {joint.name}: {f.baudRate} baud; fields separated by {DELIMITER_WORDS[f.delimiter]}, decimal {f.decimalComma ? 'comma' : 'point'}; time in field {f.timeField}, channels in{' '}
         {f.channelFields ? `fields ${channelFieldsText(f.channelFields)}` : `the ${joint.studCount} fields after it`}; loads in {f.loadUnit}. Change these on the joint.
       </p>
       <div className="flex flex-wrap items-center gap-3">

@@ -16,6 +16,8 @@ export const LOGGER_LINE_FIELDS = ['serialBaudRate', 'lineDelimiter', 'lineDecim
 
 /** The delimiters as the form names them. */
 export const DELIMITER_LABELS: Record<keyof typeof LINE_DELIMITERS, string> = { comma: 'Comma ,', semicolon: 'Semicolon ;', tab: 'Tab', space: 'Space' };
+/** The delimiters in a sentence ("fields separated by semicolons"). */
+export const DELIMITER_WORDS: Record<keyof typeof LINE_DELIMITERS, string> = { comma: 'commas', semicolon: 'semicolons', tab: 'tabs', space: 'spaces' };
 
 /** `2-4, 7` → [2, 3, 4, 7]; empty → null; anything else → a message. */
 export function parseChannelFieldsText(text: string): number[] | null | string {

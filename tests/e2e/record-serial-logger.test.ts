@@ -110,7 +110,7 @@ describe('Connect logger (Web Serial) on Stream live', () => {
 
     const runId = await startRecording(page);
     await page.getByRole('button', { name: 'Connect logger' }).click();
-    await page.getByText(/^The logger was disconnected mid-run \(The device has been lost\.\)\. The \d+ readings sent before are kept in run \d+/).waitFor({ timeout: 30_000 });
+    await page.getByText(/^The logger was disconnected mid-run \(The device has been lost\)\. The \d+ readings sent before are kept in run \d+/).waitFor({ timeout: 30_000 });
 
     // Every good line gives one reading per stud; the header is skipped and the malformed line counted.
     const readings = LINES.length * 4;
@@ -154,7 +154,7 @@ describe('Connect logger (Web Serial) on Stream live', () => {
     expect(await page.getByRole('button', { name: 'Connect logger' }).count()).toBe(0);
     expect(await page.getByTestId('serial-unavailable').textContent()).toContain('This browser cannot connect to a logger itself');
     expect(await page.getByTestId('bridge-command').textContent()).toBe(`npx tsx scripts/stream-bridge.ts --url ${server.baseUrl} --run ${runId} --token <token> --file lines.txt`);
-    expect(await page.getByTestId('bridge-steps').textContent()).toMatch(/fields separated by semicolon ;, decimal comma, time in seconds in field 1, channels 1 to 4 in the fields after it, loads in kN/);
+    expect(await page.getByTestId('bridge-steps').textContent()).toMatch(/fields separated by semicolons, decimal comma, time in seconds in field 1, channels 1 to 4 in the fields after it, loads in kN/);
     await page.context().close();
   });
 });
