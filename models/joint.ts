@@ -28,6 +28,14 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
   declare gasketStressSource: CreationOptional<string | null>;
   declare flangeFacing: CreationOptional<string | null>;
   declare clampLengthMm: CreationOptional<number | null>;
+  /** Live capture's logger line (lib/ingest/logger-line.ts): serial speed and line format. */
+  declare serialBaudRate: CreationOptional<number>;
+  declare lineDelimiter: CreationOptional<string>;
+  declare lineDecimalComma: CreationOptional<boolean>;
+  declare lineTimeField: CreationOptional<number>;
+  /** Comma-separated 1-based field numbers of channels 1, 2, …; null = every other field in order. */
+  declare lineChannelFields: CreationOptional<string | null>;
+  declare lineLoadUnit: CreationOptional<string>;
   /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -59,6 +67,12 @@ export class Joint extends Model<InferAttributes<Joint>, InferCreationAttributes
         gasketStressSource: { type: DataTypes.STRING(200), allowNull: true },
         flangeFacing: { type: DataTypes.STRING(40), allowNull: true },
         clampLengthMm: { type: DataTypes.DOUBLE, allowNull: true },
+        serialBaudRate: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 9600 },
+        lineDelimiter: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'comma' },
+        lineDecimalComma: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        lineTimeField: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 1 },
+        lineChannelFields: { type: DataTypes.STRING(2000), allowNull: true },
+        lineLoadUnit: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'kN' },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },

@@ -14,6 +14,7 @@ import { CUSTOM_THREAD, jointTarget, numberFromText, STUD_COUNT_RANGE, targetInp
 import type { JointDetail } from '@/lib/data/joints';
 import { FlangeDiagram } from './flange-diagram';
 import { GasketSection } from './gasket-section';
+import { LoggerLineSection } from './logger-line-section';
 import { FieldMessage, INPUT_CLASS, Section, SelectField, TextField } from './form-controls';
 
 type Action = (state: FormState, formData: FormData) => Promise<FormState>;
@@ -221,6 +222,8 @@ export function JointForm({ joint, units, action }: { joint?: JointDetail; units
         )}
         <p className="text-xs text-muted">The logger channel wired to each position (CH3, AI2 or a gauge&rsquo;s serial name); left blank, channel k is position k and AI0 is position 1. The factor multiplies the gauge reading (1 = as calibrated); between 0.5 and 1.5.</p>
       </Section>
+
+      <LoggerLineSection loggerLine={joint?.loggerLine ?? null} errors={errors} />
 
       <Section title="Notes">
         <label className="flex flex-col gap-1 text-sm font-medium text-ink">

@@ -6,6 +6,8 @@ import { forgetMethodAnalyses } from './runs/stored-analysis';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
 import { jointGasketOf, type JointGasket } from '@/lib/joints/gasket-input';
+import { loggerLineColumns, loggerLineFromColumns } from '@/lib/joints/logger-line-input';
+import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import { gradeIdOf, gradeStoredName, threadSpecOf } from '@/lib/joints/joint-properties';
 import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
@@ -45,6 +47,7 @@ export interface JointDetail extends JointSummary {
   notes: string | null;
   positions: { position: number; calibrationFactor: number; note: string | null; channel: string | null }[];
   gasket: JointGasket;
+  loggerLine: LoggerLineFormat;
 }
 
 export interface MethodSummary {
@@ -159,6 +162,7 @@ export async function getJoint(user: SessionUser, id: number): Promise<JointDeta
     notes: joint.notes ?? null,
     positions: positions.map((p) => ({ position: p.position, calibrationFactor: p.calibrationFactor, note: p.note ?? null, channel: p.channel ?? null })),
     gasket: jointGasketOf(joint),
+    loggerLine: loggerLineFromColumns(joint),
   };
 }
 
@@ -199,6 +203,7 @@ const jointColumns = (input: JointInput) => ({
   gasketStressSource: input.gasket.stressSource,
   flangeFacing: input.gasket.flangeFacing,
   clampLengthMm: input.gasket.clampLengthMm,
+  ...(input.loggerLine ? loggerLineColumns(input.loggerLine) : {}),
 });
 
 /**

@@ -9,6 +9,8 @@ import { columnMappingSchema, type ColumnMapping } from '@/lib/ingest/shapes';
 import { runHeaderSchema, recordedAtDate, type RunHeaderFields } from '@/lib/record/run-header-schema';
 import type { RunHeader } from '@/lib/data/runs/store-run';
 import { jointForImport } from '@/lib/record/joint-import';
+import { loggerLineFromColumns } from '@/lib/joints/logger-line-input';
+import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { MethodPass } from '@/models/method';
 import { Cohort, CohortMember, HardwareSet, Joint, JointPosition, Lubricant, LubricantLot, Method, User, sequelize } from '@/models';
@@ -35,6 +37,8 @@ export interface RecordJoint {
   stressAreaM2: number | null;
   /** Young's modulus used for microstrain files, Pa. */
   youngsModulusPa: number;
+  /** How the logger's live lines look (Connect logger on Stream live). */
+  loggerLine: LoggerLineFormat;
 }
 
 export interface RecordMethod {
@@ -96,6 +100,7 @@ export function jointDto(joint: Joint, positions: JointPosition[]): RecordJoint 
     channelMap,
     stressAreaM2: tensileStressAreaM2Of(joint),
     youngsModulusPa: STUD_YOUNGS_MODULUS_PA,
+    loggerLine: loggerLineFromColumns(joint),
   };
 }
 

@@ -8,6 +8,8 @@ import { fromInputUnit, type UnitSystem } from '@/lib/calc/units';
 import type { CalcWarning } from '@/lib/calc/warnings';
 import { gradeIdOf } from './joint-properties';
 import { parseGasketFields, type JointGasket } from './gasket-input';
+import { LOGGER_LINE_FIELDS, parseLoggerLineFields } from './logger-line-input';
+import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import { parseNumberText } from '@/lib/format/parse-number';
 import { channelKey } from '@/lib/ingest/channel-map';
 
@@ -158,6 +160,8 @@ export interface JointInput {
   notes: string | null;
   positions: { position: number; calibrationFactor: number; note: string | null; channel?: string | null }[];
   gasket: JointGasket;
+  /** How the logger's live lines look (live capture in the browser); absent = left as stored (training default for a new joint). */
+  loggerLine?: LoggerLineFormat;
 }
 
 export type ParseResult<T> = { ok: true; value: T } | { ok: false; errors: FieldErrors; message: string };
@@ -257,6 +261,9 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
   for (const [key, messages] of Object.entries(target.errors)) errors[key] ??= messages;
   const gasket = parseGasketFields(values, units);
   Object.assign(errors, gasket.errors);
+  // A form without the logger line section (older clients, scripts) leaves the stored format as it is.
+  const loggerLine = LOGGER_LINE_FIELDS.some((f) => values[f] !== undefined) ? parseLoggerLineFields(values, scalars.success ? scalars.data.studCount : null) : null;
+  Object.assign(errors, loggerLine?.errors ?? {});
   if (!errors.studGrade && !errors.threadDiameter && !errors.threadPitch && !target.target && !Object.keys(target.errors).length) {
     errors.targetLoad = ['The target could not be worked out from these values.'];
   }
@@ -300,6 +307,7 @@ export function parseJointForm(values: Record<string, string | undefined>): Pars
       notes: s.notes,
       positions,
       gasket: gasket.value,
+      ...(loggerLine ? { loggerLine: loggerLine.value } : {}),
     },
   };
 }

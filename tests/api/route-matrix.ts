@@ -37,8 +37,10 @@ export const ROUTE_MATRIX: MatrixEntry[] = [
   { route: '/api/runs/export', method: 'GET', path: '/api/runs/export?format=csv&status=complete', expect: signedIn(200) },
   // A run id no one has: 404 for every signed-in caller (we do not reveal whether it exists).
   { route: '/api/runs/[id]/stream', method: 'GET', path: '/api/runs/999999999/stream', expect: signedIn(404) },
-  // The bridge endpoint takes a bearer token, not a session: without one everyone gets 401.
-  { route: '/api/runs/[id]/stream', method: 'POST', path: '/api/runs/1/stream', body: '{"t":0,"stud":1,"load":0}', expect: { anonymous: 401, admin: 401, instructor: 401, researcher: 401, trainee: 401 } },
+  // Without a bearer token the endpoint takes the session of the people who record (Connect logger): a run no one has is 404 for them.
+  { route: '/api/runs/[id]/stream', method: 'POST', path: '/api/runs/999999999/stream', body: '{"t":0,"stud":1,"load":0}', expect: { anonymous: 401, admin: 403, instructor: 404, researcher: 404, trainee: 404 } },
+  // The bridge's line format takes a bearer token, not a session: without one everyone gets 401.
+  { route: '/api/stream/line-format', method: 'GET', path: '/api/stream/line-format', expect: { anonymous: 401, admin: 401, instructor: 401, researcher: 401, trainee: 401 } },
   {
     route: '/api/exports/runs.csv',
     method: 'POST',

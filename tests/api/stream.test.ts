@@ -3,7 +3,10 @@
  * another joint's run 404), the bridge CLI streaming a fixture into a recording run, the readings
  * arriving through GET /api/runs/:id/stream, and Finish deriving the steps. The fixture is
  * tests/ingest/good/wide-no-marker.csv (invented) turned into one reading per stud per scan, in N;
- * its steps, worked out by hand in tests/ingest/good.test.ts, are the expected ones here.
+ * its steps, worked out by hand in tests/ingest/good.test.ts, are the expected ones here. Also: the
+ * bridge reading the same file unchanged in the joint's own line layout (time, then one kN field per
+ * channel: the joint's training-default line format), and the signed-in browser's batches (Connect
+ * logger) taken with the session instead of a token.
  */
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -16,7 +19,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
-import { createTestJoint, createTestMethod, dropTestJoints, dropTestMethods, firstIds, header, kN, storedSteps } from '../support/record-fixtures';
+import { createTestJoint, createTestMethod, dropTestJoints, dropTestMethods, firstIds, GOOD_DIR, header, kN, storedSteps } from '../support/record-fixtures';
 import { sessionUserOf } from '../support/session-users';
 import { runBridge, wideFixtureAsStream } from '../support/stream-fixture';
 
@@ -78,11 +81,11 @@ describe('POST /api/runs/:id/stream', () => {
     const { csv, readings } = wideFixtureAsStream();
     const file = path.join(mkdtempSync(path.join(os.tmpdir(), 'evenload-bridge-')), 'stream.csv');
     writeFileSync(file, csv);
-    const bridge = await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '37', '--rate', '0']);
+    const bridge = await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '37', '--rate', '0', '--long']);
     expect(bridge.code, bridge.output).toBe(0);
     expect(bridge.output).toContain(`sent ${readings} readings`);
     // A retried batch changes nothing: readings are keyed by (run, time, stud).
-    await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--rate', '0']);
+    await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--rate', '0', '--long']);
     const status = (await (await instructorHttp.get(`/api/runs/${runId}/stream`)).json()) as { sampleCount: number; status: string; latest: Array<{ position: number; loadN: number }> };
     expect(status).toMatchObject({ sampleCount: readings, status: 'recording' });
     expect(status.latest.map((l) => l.loadN)).toEqual(kN(57, 59, 58, 60));
@@ -100,5 +103,30 @@ describe('POST /api/runs/:id/stream', () => {
     expect(after).toMatchObject({ status: 'complete', stepCount: 8 });
     // A finished run takes no more readings.
     expect((await postStream(runId, '{"t":99,"stud":1,"load":1}', token)).status).toBe(409);
+  });
+
+  it('the bridge reads the logger file as it is, in the joint\'s own layout and units (kN per channel), through the browser\'s line parser', async () => {
+    const { runId } = await startRecording(instructor, header(jointId, instructor.id, ids));
+    const { token } = await createStreamToken(instructor, jointId, 'Bay 4 (test)');
+    const { readings } = wideFixtureAsStream();
+    const bridge = await runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', path.join(GOOD_DIR, 'wide-no-marker.csv'), '--batch', '50', '--rate', '0']);
+    expect(bridge.code, bridge.output).toBe(0);
+    // The comment and the header line are skipped; every scan gives one reading per stud, kN → N.
+    expect(bridge.output).toContain(`sent ${readings} readings to run ${runId}`);
+    expect(bridge.output).toContain('0 malformed lines skipped');
+    const status = (await (await instructorHttp.get(`/api/runs/${runId}/stream`)).json()) as { sampleCount: number; latest: Array<{ position: number; loadN: number }> };
+    expect(status.sampleCount).toBe(readings);
+    // The file's last row, worked out by hand in tests/ingest/good.test.ts: 57, 59, 58, 60 kN.
+    expect(status.latest.map((l) => l.loadN)).toEqual(kN(57, 59, 58, 60));
+  });
+
+  it('takes a signed-in browser\'s batch without a token for a run the person sees, and 404 for one they do not', async () => {
+    const { runId } = await startRecording(instructor, header(jointId, instructor.id, ids));
+    const batch = '{"t":0,"stud":1,"load":0}\n{"t":0,"stud":2,"load":12.5}\n';
+    const mine = await instructorHttp.send('POST', `/api/runs/${runId}/stream`, batch, { 'content-type': 'application/x-ndjson' });
+    expect(mine.status).toBe(200);
+    expect(await mine.json()).toEqual({ accepted: 2, total: 2 });
+    const trainee = await signInAs(server.baseUrl, DEMO_ACCOUNTS.trainee);
+    expect((await trainee.send('POST', `/api/runs/${runId}/stream`, batch, { 'content-type': 'application/x-ndjson' })).status).toBe(404);
   });
 });

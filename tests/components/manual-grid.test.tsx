@@ -1,3 +1,4 @@
+import { LOGGER_LINE_TRAINING_DEFAULTS } from '@/lib/ingest/logger-line';
 import { describe, expect, it, vi } from 'vitest';
 import { fireEvent, render, screen } from '@testing-library/react';
 
@@ -8,7 +9,7 @@ const { ManualGrid } = await import('@/components/record/manual-grid');
 const { manualEntrySchema } = await import('@/lib/record/manual-entry-schema');
 
 // An invented 4-stud joint and a one-pass cross method.
-const joint = { id: 1, name: 'Test joint', studCount: 4, targetLoadN: 2000, bandPercent: 10, maxStudLoadN: 1e6, maxStudLoadSource: 'test', calibration: [1, 1, 1, 1], stressAreaM2: null, youngsModulusPa: 205e9 };
+const joint = { id: 1, name: 'Test joint', studCount: 4, targetLoadN: 2000, bandPercent: 10, maxStudLoadN: 1e6, maxStudLoadSource: 'test', calibration: [1, 1, 1, 1], stressAreaM2: null, youngsModulusPa: 205e9, loggerLine: LOGGER_LINE_TRAINING_DEFAULTS };
 const method = { id: 1, name: 'Cross', checkPasses: 0, passes: [{ percentOfTarget: 100, orderByStudCount: { '4': [1, 3, 2, 4] } }] };
 const header = { jointId: '1', methodId: '1', lubricantId: '1', operatorId: '1', cohortId: '', recordedAt: '2026-01-01T08:00', notes: '', hardwareSetId: '', lubricantLotId: '', gasketCondition: '' };
 

@@ -1,3 +1,4 @@
+import { LOGGER_LINE_TRAINING_DEFAULTS } from '@/lib/ingest/logger-line';
 import { describe, expect, it, vi } from 'vitest';
 import { fireEvent, render, screen } from '@testing-library/react';
 import type { RecordOptions } from '@/lib/data/record';
@@ -10,7 +11,7 @@ const { RecordTabs } = await import('@/components/record/record-tabs');
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
 // Invented cohorts around today: an old one listed first, the running one, and a trainee's past one.
 const options: RecordOptions = {
-  joints: [{ id: 1, name: 'J1', studCount: 4, targetLoadN: 2000, bandPercent: 10, maxStudLoadN: 1e6, maxStudLoadSource: 'test', calibration: [1, 1, 1, 1], stressAreaM2: null, youngsModulusPa: 205e9 }],
+  joints: [{ id: 1, name: 'J1', studCount: 4, targetLoadN: 2000, bandPercent: 10, maxStudLoadN: 1e6, maxStudLoadSource: 'test', calibration: [1, 1, 1, 1], stressAreaM2: null, youngsModulusPa: 205e9, loggerLine: LOGGER_LINE_TRAINING_DEFAULTS }],
   methods: [{ id: 1, name: 'Cross', checkPasses: 0, passes: [{ percentOfTarget: 100, pattern: 'cross', orderByStudCount: { '4': [1, 3, 2, 4] } }] }] as never,
   lubricants: [{ id: 1, name: 'Oil' }, { id: 2, name: 'Copper' }],
   cohorts: [

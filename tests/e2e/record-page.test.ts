@@ -143,7 +143,7 @@ describe('Record page', () => {
     const { csv, readings } = wideFixtureAsStream();
     const file = path.join(mkdtempSync(path.join(os.tmpdir(), 'evenload-e2e-')), 'stream.csv');
     writeFileSync(file, csv);
-    const bridge = runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '16', '--rate', '4']);
+    const bridge = runBridge(['--url', server.baseUrl, '--run', String(runId), '--token', token, '--file', file, '--batch', '16', '--rate', '4', '--long']);
     await page.waitForFunction(() => Number(document.querySelector('[data-testid=sample-count]')?.textContent ?? '0') > 0, null, { timeout: 20_000 });
     const during = Number(await page.getByTestId('sample-count').textContent());
     await page.screenshot({ path: screenshotPath('record-stream-arriving'), fullPage: true });

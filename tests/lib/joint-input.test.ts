@@ -91,6 +91,15 @@ describe('parseJointForm', () => {
     expect(r.value.washer).toBeNull();
   });
 
+  it('reads the logger line section, and leaves the stored format alone when the form has no such section', () => {
+    const r = parseJointForm(jointForm({ serialBaudRate: '19200', lineDelimiter: 'tab', lineDecimal: 'comma', lineTimeField: '1', lineChannelFields: '3-6, 8', lineLoadUnit: 'lbf' }));
+    expect(r.ok && r.value.loggerLine).toEqual({ baudRate: 19200, delimiter: 'tab', decimalComma: true, timeField: 1, channelFields: [3, 4, 5, 6, 8], loadUnit: 'lbf' });
+    const without = parseJointForm(jointForm({}));
+    expect(without.ok && 'loggerLine' in without.value).toBe(false);
+    const wrong = parseJointForm(jointForm({ lineTimeField: '3', lineChannelFields: '2-4' }));
+    expect(!wrong.ok && wrong.errors.lineChannelFields?.[0]).toMatch(/time field cannot also be a channel field/);
+  });
+
   it('ignores a target load typed by the browser when the mode is % of yield', () => {
     const r = parseJointForm(jointForm({ targetLoad: '999' }));
     expect(r.ok && rel(r.value.targetLoadN, lbfToN(11_865))).toBeLessThan(1e-3);

@@ -53,7 +53,7 @@ export const saveSimulatedRunAction = withActionRole(RECORD_ROLES, async (user, 
 export const startRecordingAction = withActionRole(RECORD_ROLES, async (user, form): Promise<RecordFormState> => {
   const { runId } = await startRecording(user, (payloadOf(form) as { header?: unknown } | null)?.header);
   revalidatePath('/record');
-  return okState(`Recording run ${runId}. Start the bridge with --run ${runId}.`, { runId });
+  return okState(`Recording run ${runId}. Connect the logger, or start the bridge with --run ${runId}.`, { runId });
 });
 
 const runIdSchema = z.object({ runId: z.coerce.number().int().positive() });

@@ -22,7 +22,7 @@ export default async function RecordPage() {
     <div className="space-y-4">
       <header>
         <h1 className="text-2xl font-semibold">Record a run</h1>
-        <p className="text-sm text-muted">Fill in the run header once, then bring the loads in from a logger file, by hand, live from a bridge, or from the simulator. {who}</p>
+        <p className="text-sm text-muted">Fill in the run header once, then bring the loads in from a logger file, by hand, live from the logger, or from the simulator. {who}</p>
       </header>
       <RecordTabs options={options} tokens={tokens} recordings={recordings} user={{ id: user.id, role: user.role, units: user.units }} preferences={preferences} />
     </div>

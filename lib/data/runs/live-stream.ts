@@ -11,16 +11,19 @@ import 'server-only';
  * and a stud not yet reported counts as 0 N. The raw samples are kept with the run.
  */
 import { Op, QueryTypes } from 'sequelize';
-import { z } from 'zod';
+import { STREAM_NEGATIVE_FLOOR_SHARE, streamReadingSchema, type StreamReading } from '@/lib/record/stream-reading';
 import { AppError } from '@/lib/http/errors';
 import { createStepDeriver } from '@/lib/ingest/derive-steps';
-import { resolveRunHeader } from '@/lib/data/record';
+import { jointDto, resolveRunHeader } from '@/lib/data/record';
+import { jointForImport } from '@/lib/record/joint-import';
+import type { JointForImport } from '@/lib/ingest/normalise';
+import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import { maxBelievableStudLoad } from '@/lib/joints/joint-properties';
 import { runScope } from '@/lib/data/scope';
 import { STREAM_MAX_READINGS } from '@/lib/record/limits';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
-import { Joint, Run, sequelize } from '@/models';
+import { Joint, JointPosition, Run, sequelize } from '@/models';
 import { appendSteps, completeRecordedRun, storeRun } from './store-run';
 import { formatDecimals } from '@/lib/calc/units';
 
@@ -33,7 +36,6 @@ export async function startRecording(user: SessionUser, headerInput: unknown): P
   return { runId };
 }
 
-const readingSchema = z.object({ t: z.number().finite().min(0), stud: z.number().int().min(1), load: z.number().finite() }).strict();
 
 /**
  * Stores one batch from the bridge. The token's joint must be the run's joint and the run must be
@@ -48,8 +50,8 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
   if (run.status !== 'recording') throw new AppError('conflict', `Run ${runId} is ${run.status === 'set_aside' ? 'set aside' : run.status}, not recording; start a new recording on the Record page.`);
   const joint = await Joint.findByPk(jointId);
   const { maxStudLoadN, source } = maxBelievableStudLoad(joint!);
-  const floorN = -0.05 * run.targetLoadN;
-  const readings: Array<{ t: number; stud: number; load: number }> = [];
+  const floorN = -STREAM_NEGATIVE_FLOOR_SHARE * run.targetLoadN;
+  const readings: StreamReading[] = [];
   const lines = body.split(/\r?\n/);
   for (const [index, raw] of lines.entries()) {
     const line = index + 1;
@@ -61,7 +63,7 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
       throw new AppError('invalid_input', `Line ${line}: not valid JSON. Send one reading {"t": seconds, "stud": position, "load": newtons} or an array of them per line.`, { row: line });
     }
     for (const item of Array.isArray(value) ? value : [value]) {
-      const r = readingSchema.safeParse(item);
+      const r = streamReadingSchema.safeParse(item);
       if (!r.success) {
         const issue = r.error.issues[0];
         const field = String(issue?.path[0] ?? 'reading');
@@ -92,6 +94,15 @@ export async function appendStreamReadings(jointId: number, runId: number, body:
   return { accepted: readings.length, total: Number(count?.n ?? 0) };
 }
 
+/**
+ * Stores one batch sent by a signed-in person's browser (the Record page's "Connect logger"): the
+ * run must be one this person sees; then as {@link appendStreamReadings} on the run's own joint.
+ */
+export async function appendStreamReadingsAsUser(user: SessionUser, runId: number, body: string): Promise<{ accepted: number; total: number }> {
+  const run = await visibleRun(user, runId);
+  return appendStreamReadings(run.jointId, runId, body);
+}
+
 async function visibleRun(user: SessionUser, runId: number): Promise<Run> {
   // From the primary: the bridge that writes the samples and finishes the run sends no cookie, so the
   // page polling this run would otherwise read a lagging replica's older status.
@@ -105,6 +116,8 @@ export interface StreamStatus {
   status: string;
   studCount: number;
   targetLoadN: number;
+  /** The run's acceptance band, ± % of target. */
+  bandPercent: number;
   sampleCount: number;
   stepCount: number;
   lastTimeS: number | null;
@@ -136,6 +149,7 @@ export async function streamStatus(user: SessionUser, runId: number): Promise<St
     status: run.status,
     studCount: run.studCount,
     targetLoadN: run.targetLoadN,
+    bandPercent: run.bandPercent,
     sampleCount: Number(count[0]?.n ?? 0),
     stepCount: run.stepCount,
     lastTimeS: count[0]?.last == null ? null : Number(count[0].last),
@@ -195,6 +209,14 @@ export async function finishRecording(user: SessionUser, runId: number): Promise
     const status = await completeRecordedRun(runId, { jointId: Number(row.joint_id), methodId: Number(row.method_id), bandPercent: Number(row.band_percent) }, run, transaction);
     return { runId, stepCount: run.steps.length, status };
   });
+}
+
+/** What the bridge needs to read lines in a token's joint's own layout and units (`lib/ingest/logger-line.ts`). */
+export async function bridgeLineFormat(jointId: number): Promise<{ jointName: string; format: LoggerLineFormat; joint: JointForImport }> {
+  const [joint, positions] = await Promise.all([Joint.findByPk(jointId), JointPosition.findAll({ where: { jointId } })]);
+  if (!joint) throw new AppError('not_found', 'The joint of this bridge token no longer exists.');
+  const dto = jointDto(joint, positions);
+  return { jointName: dto.name, format: dto.loggerLine, joint: jointForImport(dto) };
 }
 
 /** Runs in status recording this person may see (for the Stream live section). */
