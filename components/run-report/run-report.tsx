@@ -12,6 +12,8 @@ import { FIGURE_EXPLANATIONS } from './figure-explanations';
 import { ReviewPanel } from './review-panel';
 import { GasketStressPanel } from './gasket-stress-panel';
 import { HoldPanel } from './hold-panel';
+import { TensionerPanel } from './tensioner-panel';
+import type { StudTransfer } from '@/lib/calc/tensioner-coverage';
 import type { RunRelaxation } from '@/lib/analysis/relaxation';
 import { RunCharts } from './run-charts';
 import { ATTEMPT_KIND_LABEL, type AttemptKind } from '@/lib/qualification/attempt-kind';
@@ -38,9 +40,11 @@ interface Props {
   reviewAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
   relaxation: RunRelaxation;
   holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  /** A tensioner run's applied and residual load per stud (empty for other tools). */
+  transfers: StudTransfer[];
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, relaxation, holdAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, relaxation, holdAction, transfers }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -141,6 +145,8 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           </table>
         </div>
       </section>
+
+      {header.tensionerRule && transfers.length ? <TensionerPanel transfers={transfers} rule={header.tensionerRule} units={units} /> : null}
 
       <HoldPanel relaxation={relaxation} units={units} action={holdAction} />
 

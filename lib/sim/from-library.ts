@@ -73,8 +73,16 @@ export function methodForSim(method: LibraryMethodForSim, studCount: number): Si
   };
 }
 
-/** Settings the library does not store, the same on every page: a medium gasket and the simulator's tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4). */
-export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15 } as const;
+/**
+ * Settings the library does not store, the same on every page: a medium gasket, the simulator's
+ * tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4) and 100 % tensioner tool coverage
+ * (every stud pulled in one step per pass, lib/calc/tensioner-coverage.ts).
+ */
+export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15, tensionerCoverage: 100 } as const;
+
+/** A tensioner method without a coverage of its own takes the library's; other tools are unchanged. */
+export const withLibraryCoverage = (method: SimMethod): SimMethod =>
+  method.tool === 'hydraulic_tensioner' && method.coverage === undefined ? { ...method, coverage: LIBRARY_RUN_DEFAULTS.tensionerCoverage } : method;
 
 export interface LibraryRunInput {
   joint: LibraryJointForSim;
@@ -94,7 +102,7 @@ export function simulateLibraryRun(input: LibraryRunInput): SimulateRunResult {
     studCount: input.joint.studCount,
     targetLoadN: input.joint.targetLoadN,
     studDiameterM: input.joint.studDiameterM,
-    method: input.method,
+    method: withLibraryCoverage(input.method),
     lubricant: input.lubricant,
     gasketStiffness: input.gasketStiffness ?? LIBRARY_RUN_DEFAULTS.gasketStiffness,
     loadTransferFactor: LIBRARY_RUN_DEFAULTS.loadTransferFactor,
