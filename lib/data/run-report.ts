@@ -3,7 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { AppError } from '../http/errors';
 import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
-import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
+import { Cohort, HardwareSet, Joint, Lubricant, LubricantLot, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { RunCheckReason } from '../run-check/types';
 import { gasketAreaOf } from '../joints/gasket-input';
 import { jointGasketOf } from './joints';
@@ -32,6 +32,8 @@ export interface RunHeaderDto {
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
   operator: { key: string; label: string };
   cohort: { id: number; name: string } | null;
+  /** The studs, nuts and washers used (with this run's use number), the lubricant lot and the gasket's condition, where recorded. */
+  hardware: { setName: string | null; useNumber: number | null; lotCode: string | null; gasketCondition: 'new' | 'reused' | null };
   /** The calculator's load transfer factor for this joint, for tensioner methods only. */
   tensionerRule: CalculatorLtf | null;
 }
@@ -74,6 +76,15 @@ type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; 
 
 const threadLabel = (j: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch'>) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
+
+/** The hardware set's name and the lubricant lot's code of a run, where recorded. */
+async function hardwareOf(run: Run): Promise<RunHeaderDto['hardware']> {
+  const [set, lot] = await Promise.all([
+    run.hardwareSetId ? HardwareSet.findByPk(run.hardwareSetId, { attributes: ['name'] }) : null,
+    run.lubricantLotId ? LubricantLot.findByPk(run.lubricantLotId, { attributes: ['lotCode'] }) : null,
+  ]);
+  return { setName: set?.name ?? null, useNumber: run.hardwareUseNumber ?? null, lotCode: lot?.lotCode ?? null, gasketCondition: run.gasketCondition ?? null };
+}
 
 /** The studs each multi-stud (tensioner) step covered, with applied and residual load, onto the loaded steps. */
 async function attachCovers(runId: number, steps: NormalisedRun['steps']): Promise<void> {
@@ -167,6 +178,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       lubricant: { id: run.lubricant.id, name: run.lubricant.name, nominalNutFactor: run.lubricant.nominalNutFactor },
       operator: { key: operatorKey(user, run.operator.id), label: operatorLabel(user, run.operator) },
       cohort: run.cohort ? { id: run.cohort.id, name: run.cohort.name } : null,
+      hardware: await hardwareOf(run),
       tensionerRule: method.toolKind === 'hydraulic_tensioner' ? calculatorLtf(studDiameterM(asRecorded) * 1000, run.joint.clampLengthMm ?? null) : null,
     },
     run: { studCount: run.studCount, targetLoadN: run.targetLoadN, steps },

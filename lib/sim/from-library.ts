@@ -74,15 +74,12 @@ export function methodForSim(method: LibraryMethodForSim, studCount: number): Si
 }
 
 /**
- * Settings the library does not store, the same on every page: a medium gasket, the simulator's
- * tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4) and 100 % tensioner tool coverage
- * (every stud pulled in one step per pass, lib/calc/tensioner-coverage.ts).
+ * Settings the library does not store, the same on every page: a medium gasket and the simulator's
+ * tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4). A library tensioner method is
+ * simulated one stud per step, as its pass order reads; a tool set on several studs at once is
+ * `SimMethod.coverage` (the Classroom's tensioning scene sets 100 %).
  */
-export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15, tensionerCoverage: 100 } as const;
-
-/** A tensioner method without a coverage of its own takes the library's; other tools are unchanged. */
-export const withLibraryCoverage = (method: SimMethod): SimMethod =>
-  method.tool === 'hydraulic_tensioner' && method.coverage === undefined ? { ...method, coverage: LIBRARY_RUN_DEFAULTS.tensionerCoverage } : method;
+export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15 } as const;
 
 export interface LibraryRunInput {
   joint: LibraryJointForSim;
@@ -102,7 +99,7 @@ export function simulateLibraryRun(input: LibraryRunInput): SimulateRunResult {
     studCount: input.joint.studCount,
     targetLoadN: input.joint.targetLoadN,
     studDiameterM: input.joint.studDiameterM,
-    method: withLibraryCoverage(input.method),
+    method: input.method,
     lubricant: input.lubricant,
     gasketStiffness: input.gasketStiffness ?? LIBRARY_RUN_DEFAULTS.gasketStiffness,
     loadTransferFactor: LIBRARY_RUN_DEFAULTS.loadTransferFactor,

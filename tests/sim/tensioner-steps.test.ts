@@ -3,6 +3,7 @@ import { simulateRun, type SimulateRunInput } from '@/lib/sim/simulate-run';
 import { simulateLibraryRun } from '@/lib/sim/from-library';
 import { circularOrder } from '@/lib/sim/patterns';
 import { studTransfers } from '@/lib/calc/tensioner-coverage';
+import { sceneSetup, type Library } from '@/lib/classroom/scenes';
 
 // A tensioner with no scatter: operator noise 0, actual LTF = nominal 1.15 (the floor of the tens1 rule,
 // docs/REFERENCE.md §4), studs start at 0 N. Target 100 kN, medium gasket: c(1) = 0.07, c(2) = 0.035 (the
@@ -45,9 +46,12 @@ describe('simulator: tensioner steps that cover several studs', () => {
     expect(transfers[0]!.residualN).toBeCloseTo(100_000, 6);
   });
 
-  it('gives a library tensioner method 100 % coverage, as Record, the Classroom and the demo simulate it', () => {
-    const method = { tool: 'hydraulic_tensioner' as const, passes: [{ percentOfTarget: 100, order: circularOrder(8) }], checkPasses: 1 };
-    const { run } = simulateLibraryRun({ joint: { studCount: 8, targetLoadN: 50_000, studDiameterM: 0.016 }, method, lubricant: { nominalK: 0.15, kScatterCv: 0 }, seed: 3 });
+  it("runs the Classroom's tensioning scene with every stud in one step per pass, on the same step model", () => {
+    const joint = { id: 1, name: 'Rig', studCount: 8, targetLoadN: 50_000, bandPercent: 10, studDiameterM: 0.016 };
+    const setup = sceneSetup('tool', { joints: [joint], methods: [], lubricants: [] } satisfies Library, 1)!;
+    const tension = setup.sides.find((s) => s.key === 'tension')!;
+    expect(tension.simMethod.coverage).toBe(100);
+    const { run } = simulateLibraryRun({ joint, method: tension.simMethod, lubricant: tension.simLubricant, seed: 3 });
     expect(run.steps).toHaveLength(2);
     expect(run.steps.every((s) => s.covers?.length === 8)).toBe(true);
   });
