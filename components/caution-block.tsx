@@ -6,7 +6,7 @@
  * A server-safe component (no hooks), so it renders in server and client trees alike.
  */
 
-export type CautionVariant = 'calculator' | 'joint' | 'classroom' | 'calibration';
+export type CautionVariant = 'calculator' | 'joint' | 'classroom' | 'calibration' | 'tensioner';
 
 const VARIANT_LINE: Record<CautionVariant, string> = {
   calculator:
@@ -14,6 +14,8 @@ const VARIANT_LINE: Record<CautionVariant, string> = {
   joint: 'A training joint is not a plant joint: its settings teach the method and are not values for equipment in service.',
   calibration:
     "Calibrate instruments by their owner's procedures and against a reference in date; these figures check a training rig's gauges and are not a calibration certificate.",
+  tensioner:
+    "Hydraulic tensioners work at high pressure: follow the tool maker's instructions for pressure, stroke and fit, keep hoses and couplings in good order, stay clear of the tool and out of line with the stud while it is pressurised; the owner's procedures and qualified judgement decide the loads and the sequence.",
   classroom:
     'The rig studs are loaded: keep hands clear of the reaction arm and the flange gap, and stay out of line with the studs while a tool is working.',
 };

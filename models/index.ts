@@ -33,6 +33,7 @@ import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
 import { StreamToken } from './stream-token';
 import { TighteningStep } from './tightening-step';
+import { StepPosition } from './step-position';
 import { Upload } from './upload';
 import { UploadChunk } from './upload-chunk';
 import { CourseOutcome } from './course-outcome';
@@ -94,6 +95,7 @@ export const MODELS = [
   TheoryResult,
   ChecklistItem,
   ChecklistTick,
+  StepPosition,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -117,6 +119,7 @@ export const MODELS = [
   Lubricant.hasMany(LubricantLot, { as: 'lots', foreignKey: 'lubricantId' });
   LubricantLot.belongsTo(Lubricant, { as: 'lubricant', foreignKey: 'lubricantId' });
   TighteningStep.hasMany(Reading, { as: 'readings', foreignKey: 'stepId' });
+  TighteningStep.hasMany(StepPosition, { as: 'covers', foreignKey: 'stepId' });
   RunComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   OneTimeToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Cohort.hasOne(CohortCriteria, { as: 'criteria', foreignKey: 'cohortId' });
@@ -160,6 +163,7 @@ export {
   RunAnalysisRow,
   SignInAttempt,
   TighteningStep,
+  StepPosition,
   Upload,
   UploadChunk,
   User,

@@ -12,8 +12,8 @@ export interface FlangeViewProps {
   targetN: number;
   bandPercent: number;
   units: UnitSystem;
-  /** The stud being tightened now (1-based), outlined in the accent colour. */
-  activePosition?: number;
+  /** The stud (or the studs a tensioner step pulls together) being tightened now (1-based), outlined in the accent colour. */
+  activePosition?: number | readonly number[];
   /** Drawn size in px (the SVG is square); e.g. 640 for the classroom projector. Default 320. */
   size?: number;
   label: string;
@@ -64,7 +64,7 @@ export function FlangeView({ loadsN, targetN, bandPercent, units, activePosition
           <circle cx={CENTRE} cy={CENTRE} r={PITCH_RADIUS - 26} fill="none" style={{ stroke: 'var(--el-rule)', strokeWidth: 1 }} />
           {readings.map((r) => {
             const { x, y } = studCentre(r.position, count);
-            const active = r.position === activePosition;
+            const active = typeof activePosition === 'number' ? r.position === activePosition : (activePosition?.includes(r.position) ?? false);
             const open = shown === r.position;
             return (
               <g

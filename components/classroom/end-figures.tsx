@@ -51,6 +51,7 @@ export function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohort
       </section>
       <aside className="space-y-4">
         <CautionBlock variant="classroom" />
+        {scene.key === 'tool' ? <CautionBlock variant="tensioner" /> : null}
         {scene.key !== 'real' ? (
           <form action={formAction} className="space-y-2 rounded-card border border-rule bg-panel p-4 text-lg">
             <h2 className="text-xl font-semibold">Save these simulated runs</h2>

@@ -77,12 +77,12 @@ function SideRow({ side, sceneStep, totalSteps, rowHeight, units, stacked }: { s
     const x = (base.options.x ?? {}) as Record<string, unknown>;
     return { ...base, options: { ...base.options, height: plotHeight, x: { ...x, domain: [0.5, totalSteps + 0.5] } } };
   }, [analysis, units, k, steps, plotHeight, totalSteps]);
-  const status = k === 0 ? 'All studs snug' : k >= steps && sceneStep > steps ? `Finished after ${steps} steps` : `Stud ${current?.position} tightened, pass ${current?.pass}`;
+  const status = k === 0 ? 'All studs snug' : k >= steps && sceneStep > steps ? `Finished after ${steps} steps` : `${current?.positions ? `Studs ${current.positions.join(', ')} tensioned together` : `Stud ${current?.position} tightened`}, pass ${current?.pass}`;
   return (
     <section aria-label={side.label} className="grid items-start gap-4" style={{ gridTemplateColumns: stacked ? 'minmax(0, 1fr)' : `${flangeSize + 8}px minmax(0, 1fr)`, minHeight: rowHeight - 8 }}>
       <div className="flex flex-col items-center">
         <FlangeView loadsN={loads} targetN={analysis.targetLoadN} bandPercent={analysis.bandPercent} units={units} size={flangeSize} showLegend={false}
-          activePosition={current && k === sceneStep ? current.position : undefined} label={`${side.label}: flange ${k === 0 ? 'before the first step' : `after step ${k}`}`} />
+          activePosition={current && k === sceneStep ? (current.positions ?? current.position) : undefined} label={`${side.label}: flange ${k === 0 ? 'before the first step' : `after step ${k}`}`} />
         <p className="num text-xl font-medium" data-testid="side-status">{status}</p>
       </div>
       <PlotFigure {...spec} legend={undefined} table={undefined} large title={`${side.label} — ${side.caption}`}

@@ -7,6 +7,8 @@ const range = (lower: number, upper: number) => `${formatNumber(lower, 2)} – $
 
 /** Per group: runs, run-level figures, and the variance components with their intervals. */
 export function CompareGroupsTable({ groups }: { groups: GroupSummary[] }) {
+  // Saved comparisons from before relaxation was compared have no runsWithHold.
+  const held = groups.some((g) => (g.runsWithHold ?? 0) > 0);
   const methods = [...new Set(groups.flatMap((g) => (g.components ? [g.components.betweenMethod] : [])))];
   return (
     <section aria-labelledby="groups-heading" className="relative overflow-x-auto rounded-card border border-rule bg-panel p-4">
@@ -17,6 +19,7 @@ export function CompareGroupsTable({ groups }: { groups: GroupSummary[] }) {
             <th className="py-1">Group</th><th className="text-right">Runs</th><th className="text-right">Studs</th>
             <th className="text-right">Mean run, % of target</th><th className="text-right">Typical run CV</th><th className="text-right">Mean within-run SD, % of target</th>
             <th className="text-right">Stud to stud SD (95 % interval)</th><th className="text-right">Run to run SD (95 % interval)</th>
+            {held ? <th className="text-right">Relaxation, % lost in the hold (runs held)</th> : null}
           </tr>
         </thead>
         <tbody className="num">
@@ -30,13 +33,14 @@ export function CompareGroupsTable({ groups }: { groups: GroupSummary[] }) {
               <td className="text-right">{g.meanWithinSdPercent === null ? dash : formatPercent(g.meanWithinSdPercent)}</td>
               <td className="text-right">{g.components ? `${formatNumber(g.components.withinRunSd.value, 2)} (${range(g.components.withinRunSd.lower, g.components.withinRunSd.upper)})` : dash}</td>
               <td className="text-right">{g.components ? `${formatNumber(g.components.betweenRunSd.value, 2)} (${range(g.components.betweenRunSd.lower, g.components.betweenRunSd.upper)})` : dash}</td>
+              {held ? <td className="text-right" data-testid="group-relaxation">{g.meanRelaxationPercent == null ? dash : `${formatPercent(g.meanRelaxationPercent)} (${g.runsWithHold})`}</td> : null}
             </tr>
           ))}
         </tbody>
       </table>
       <p className="mt-2 text-xs text-muted">
         Each run counts once. Typical run CV: the geometric mean of the runs&apos; own CVs. SDs in percentage points of target. Stud to stud: the scatter
-        within a run, with an exact chi-square interval. Run to run: how much run averages differ beyond that, with a {methods.length ? methods.join(' or ') : 'modified large-sample interval'}.
+        within a run, with an exact chi-square interval. Run to run: how much run averages differ beyond that, with a {methods.length ? methods.join(' or ') : 'modified large-sample interval'}.{held ? ' Relaxation: the mean over held runs of the % of final load lost by the last hold reading after the last pass.' : ''}
       </p>
     </section>
   );

@@ -26,6 +26,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
   const N = joint.studCount;
   const [unit, setUnit] = useState<ManualUnit>(units === 'us' ? 'lbf' : 'kN');
   const [cells, setCells] = useState<string[][]>(() => plan.steps.map(() => Array.from({ length: N }, () => '')));
+  const [holds, setHolds] = useState('');
   const { isSaved, markSaved } = useSavedPayload();
   const [state, formAction, pending] = useActionState(async (prev: RecordFormState, formData: FormData) => {
     const result = await saveManualRunAction(prev, formData);
@@ -73,7 +74,7 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
     return { mean: m, cv: m > 0 ? coefficientOfVariation(loadsN) : null };
   };
   const latest = lastComplete >= 0 ? rowStats(lastComplete) : null;
-  const payload = JSON.stringify({ header: headerPayload(header), unit, rows: cells.map((row) => row.map((text) => (text.trim() === '' ? null : text))) });
+  const payload = JSON.stringify({ header: headerPayload(header), unit, rows: cells.map((row) => row.map((text) => (text.trim() === '' ? null : text))), ...(holds.trim() ? { holds } : {}) });
   const firstBad = readings.flatMap((row, i) => row.map((r, j) => ({ i, j, reason: r.kind === 'invalid' ? r.reason : null }))).find((x) => x.reason !== null);
 
   return (
@@ -134,6 +135,12 @@ export function ManualGrid({ joint, method, header, onHeaderErrors, units }: { j
           </tbody>
         </table>
       </div>
+      <label className="block text-sm">
+        <span className="font-medium">Hold readings (optional)</span>
+        <span className="block text-muted">After the last step, every stud&rsquo;s load at stated times, in {unit === 'lbf' ? 'lbf' : 'kN'}: a header line &ldquo;elapsed,after_pass,1,2,…,{N}&rdquo;, then one line per time, e.g. &ldquo;10 min,,80.1,79.8,…&rdquo; (the pass held after, or blank for the last).</span>
+        <textarea name="holds" value={holds} onChange={(e) => setHolds(e.target.value)} rows={3} placeholder={`elapsed,after_pass,${Array.from({ length: N }, (_, j) => j + 1).join(',')}`}
+          className="num mt-1 w-full rounded-md border border-rule bg-paper p-2 font-mono text-sm" />
+      </label>
       <div className="flex flex-wrap items-center gap-3">
         <button type="submit" disabled={pending || lastComplete < 0 || !!firstBad || isSaved(payload)} className="rounded-md bg-accent px-4 py-2 text-sm font-medium text-accent-ink disabled:opacity-50">
           {pending ? 'Saving…' : isSaved(payload) ? 'Saved' : 'Save run'}

@@ -28,7 +28,7 @@ export interface ParsedPreview {
 export interface ParsedFile extends ParsedPreview {
   mapping: ColumnMapping;
   derivedSteps: boolean;
-  derived: Array<{ order: number; pass: number; position: number; firstLine: number; lastLine: number; timeS: number | null; riseN: number }>;
+  derived: Array<{ order: number; pass: number; position: number; positions?: number[]; firstLine: number; lastLine: number; timeS: number | null; riseN: number }>;
   stepCount: number;
   studCount: number;
   rowCount: number;

@@ -87,7 +87,7 @@ self.onmessage = async (event: MessageEvent<ParseRequest>) => {
         sheet: read.sheet,
         zeroNotes: r.zeroNotes,
         derivedSteps: r.derivedSteps,
-        derived: r.derived.map((d) => ({ order: d.order, pass: d.pass, position: d.position, firstLine: d.firstLine, lastLine: d.lastLine, timeS: d.timeS, riseN: d.riseN })),
+        derived: r.derived.map((d) => ({ order: d.order, pass: d.pass, position: d.position, positions: d.covers?.map((c) => c.position), firstLine: d.firstLine, lastLine: d.lastLine, timeS: d.timeS, riseN: d.riseN })),
         stepCount: r.run.steps.length,
         studCount: r.run.studCount,
         rowCount: r.rowCount,

@@ -63,14 +63,14 @@ export function DerivedSteps({ derived, units, confirmed, onConfirmed }: { deriv
   return (
     <section aria-labelledby="derived-title" className="space-y-2">
       <h2 id="derived-title" className="font-semibold">Steps found in the loads ({derived.length})</h2>
-      <p className="text-sm text-muted">The file has no step marker, so each time one stud&rsquo;s load rose clearly while the others did not, that is taken as a step on that stud. Check them before saving.</p>
+      <p className="text-sm text-muted">The file has no step marker, so each time one stud&rsquo;s load rose clearly, or several rose together (a tensioner tool set), that is taken as a step on those studs; where a tool was released, the step reads the load left after release. Check them before saving.</p>
       <div className="relative max-h-72 overflow-auto rounded-md border border-rule">
         <table className="w-full text-sm">
           <thead className="sticky top-0 bg-panel text-left"><tr><th className="px-2 py-1">Step</th><th className="px-2 py-1">Pass</th><th className="px-2 py-1">Stud</th><th className="px-2 py-1">Lines</th><th className="px-2 py-1">Time</th><th className="px-2 py-1">Rise</th></tr></thead>
           <tbody>
             {derived.map((d) => (
               <tr key={d.order} className="border-t border-rule">
-                <td className="num px-2 py-1">{d.order}</td><td className="num px-2 py-1">{d.pass}</td><td className="num px-2 py-1">{d.position}</td>
+                <td className="num px-2 py-1">{d.order}</td><td className="num px-2 py-1">{d.pass}</td><td className="num px-2 py-1">{d.positions && d.positions.length > 1 ? d.positions.join(', ') : d.position}</td>
                 <td className="num px-2 py-1">{d.firstLine}–{d.lastLine}</td><td className="num px-2 py-1">{d.timeS === null ? '—' : `${d.timeS} s`}</td>
                 <td className="num px-2 py-1">{formatForce(d.riseN, units)}</td>
               </tr>

@@ -41,13 +41,17 @@ export function RunCharts({ analysis, units }: { analysis: RunAnalysis; units: '
           <label className="flex flex-1 items-center gap-2 text-sm">
             <span className="text-muted">Replay</span>
             <input type="range" min={1} max={lastStep} value={step} onChange={(e) => setStep(Number(e.target.value))} className="min-w-40 flex-1 accent-[var(--el-accent)]"
-              aria-valuetext={current ? `Step ${step} of ${lastStep}: stud ${current.position} in pass ${current.pass}` : undefined} />
+              aria-valuetext={current ? `Step ${step} of ${lastStep}: ${current.positions ? `studs ${current.positions.join(', ')}` : `stud ${current.position}`} in pass ${current.pass}` : undefined} />
           </label>
           <button type="button" onClick={() => setStep((s) => Math.min(lastStep, s + 1))} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Next step">Next</button>
           <button type="button" onClick={() => setStep(lastStep)} className="rounded-md border border-rule px-2 py-1 text-sm" aria-label="Last step">Last</button>
         </div>
         <p aria-live="polite" className="num mt-1 text-sm">
-          {current ? `Step ${step} of ${lastStep}: stud ${current.position} tightened in pass ${current.pass}; it now carries ${formatForce(current.loadsN[current.position - 1] ?? 0, units)}.` : null}
+          {current
+            ? current.positions
+              ? `Step ${step} of ${lastStep}: studs ${current.positions.join(', ')} tensioned together in pass ${current.pass}.`
+              : `Step ${step} of ${lastStep}: stud ${current.position} tightened in pass ${current.pass}; it now carries ${formatForce(current.loadsN[current.position - 1] ?? 0, units)}.`
+            : null}
         </p>
         <PlotFigure {...timeSpec} className="mt-2" />
       </section>

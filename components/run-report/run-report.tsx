@@ -12,6 +12,8 @@ import { FIGURE_EXPLANATIONS } from './figure-explanations';
 import { ReviewPanel } from './review-panel';
 import { GasketStressPanel } from './gasket-stress-panel';
 import { HoldPanel } from './hold-panel';
+import { TensionerPanel } from './tensioner-panel';
+import type { StudTransfer } from '@/lib/calc/tensioner-coverage';
 import type { RunRelaxation } from '@/lib/analysis/relaxation';
 import { RunCharts } from './run-charts';
 import { ATTEMPT_KIND_LABEL, type AttemptKind } from '@/lib/qualification/attempt-kind';
@@ -40,9 +42,11 @@ interface Props {
   setAsideAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
   relaxation: RunRelaxation;
   holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
+  /** A tensioner run's applied and residual load per stud (empty for other tools). */
+  transfers: StudTransfer[];
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, setAsideAction, relaxation, holdAction }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, setAsideAction, relaxation, holdAction, transfers }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -93,7 +97,11 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
         <dl className="grid gap-x-6 gap-y-2 rounded-card border border-rule bg-panel p-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
           <Item term="Joint" value={`${header.joint.name}`} detail={`${header.studCount} studs · ${header.joint.thread} · ${header.joint.studGrade} · ${header.joint.gasketType}${header.joint.versionNumber === null ? '' : ` · as recorded (version ${header.joint.versionNumber})`}`} />
           <Item term="Method" value={TOOL_LABELS[header.method.toolKind] ?? header.method.toolKind} detail={`Passes at ${header.method.passPercents.map((p) => `${p} %`).join(', ')}`} />
-          <Item term="Lubricant" value={header.lubricant.name} detail={`Nominal nut factor K = ${formatNumber(header.lubricant.nominalNutFactor, 2)}`} />
+          <Item term="Lubricant" value={header.lubricant.name} detail={`Nominal nut factor K = ${formatNumber(header.lubricant.nominalNutFactor, 2)}${header.hardware.lotCode ? ` · lot ${header.hardware.lotCode}` : ''}`} />
+          {header.hardware.setName || header.hardware.gasketCondition ? (
+            <Item term="Hardware" value={header.hardware.setName ?? 'Not recorded'}
+              detail={[header.hardware.useNumber === null ? null : `use ${header.hardware.useNumber} of the set`, header.hardware.gasketCondition ? `${header.hardware.gasketCondition} gasket` : null].filter(Boolean).join(' · ')} />
+          ) : null}
           <Item term="Operator" value={header.operator.label} detail={header.cohort ? header.cohort.name : 'No cohort'} />
           <Item term="Target load" value={force(target)} detail={`Band ±${formatNumber(header.bandPercent, 2)} %: ${force(target * (1 - header.bandPercent / 100))} to ${force(target * (1 + header.bandPercent / 100))}`} />
           <Item term="Source" value={attempt.sourceLine} detail={`${ATTEMPT_KIND_LABEL[attempt.kind]} · Status: ${STATUS_LABELS[header.status] ?? header.status}`} />
@@ -143,6 +151,8 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
           </table>
         </div>
       </section>
+
+      {header.tensionerRule && transfers.length ? <TensionerPanel transfers={transfers} rule={header.tensionerRule} units={units} /> : null}
 
       <HoldPanel relaxation={relaxation} units={units} action={holdAction} />
 

@@ -1,3 +1,4 @@
+import { stepPositions } from '@/lib/calc/tensioner-coverage';
 import type { NormalisedRun } from '../record/run-types';
 import { coefficientOfVariation } from '../stats/coefficient-of-variation';
 import { elasticInteractionDrift } from '../stats/elastic-interaction-drift';
@@ -30,7 +31,7 @@ export function analyseRun(runId: number, run: NormalisedRun, options: { bandPer
     targetLoadN: run.targetLoadN,
     bandPercent: options.bandPercent,
     finalLoadsN: run.steps[run.steps.length - 1]?.loadsN.slice() ?? [],
-    steps: run.steps.map((s) => ({ order: s.order, pass: s.pass, position: s.position, loadsN: s.loadsN, timeS: s.timeS ?? null, appliedTorqueNm: s.appliedTorqueNm ?? null })),
+    steps: run.steps.map((s) => ({ order: s.order, pass: s.pass, position: s.position, ...(s.covers && s.covers.length > 1 ? { positions: stepPositions(s) } : {}), loadsN: s.loadsN, timeS: s.timeS ?? null, appliedTorqueNm: s.appliedTorqueNm ?? null })),
     passes: snapshots.map((snapshot) => ({
       pass: snapshot.pass,
       percentOfTarget: options.passPercents?.[snapshot.pass - 1] ?? null,

@@ -4,7 +4,7 @@ import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
 import { sampleVariance } from '../stats/sample-variance';
 import { varianceComponentsFromSummaries, type VarianceRunSummary } from '../stats/variance-components-from-summaries';
 import { boxStats } from '../charts/box-stats';
-import { pooledSdLogCv, runCvPairs, runLevelTests, type RawTest, type RunLevelGroup } from './compare-run-tests';
+import { pooledSdLogCv, relaxationTest, runCvPairs, runLevelTests, type RawTest, type RunLevelGroup } from './compare-run-tests';
 import { traineeBlocks } from './compare-trainee-blocks';
 import type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary } from './compare-types';
 import type { BoxSummary, ComparisonGroupData } from './types';
@@ -104,10 +104,10 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
   const studCounts = [...new Set(inputs.flatMap((g) => g.runs.map((r) => r.finalLoadsN.length)))].filter((n) => n > 0).sort((a, b) => a - b);
   const groups: GroupSummary[] = [];
   const chartGroups: ComparisonGroupData[] = [];
-  const runLevel: (RunLevelGroup & { key: string; blocked: { lnCv: number; operator: string | number; attempt: number | null }[] })[] = [];
+  const runLevel: (RunLevelGroup & { key: string; blocked: { lnCv: number; operator: string | number; attempt: number | null }[]; relaxationPercent: number[] })[] = [];
   inputs.forEach((input, index) => {
     const loadsPercent = loadsPercentOf(input.runs);
-    const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [] };
+    const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [], relaxationPercent: input.runs.flatMap((run) => (typeof run.relaxationPercent === 'number' ? [run.relaxationPercent] : [])) };
     const cvs: number[] = [];
     input.runs.forEach((run) => {
       const p = runProfile(run);
@@ -132,6 +132,8 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       meanRunCv: safeMean(cvs),
       meanWithinSdPercent: safeMean(level.withinSdPercent),
       components: componentsOf(input.runs),
+      meanRelaxationPercent: safeMean(level.relaxationPercent),
+      runsWithHold: level.relaxationPercent.length,
     });
     const drift = studCounts.length === 1 ? meanDriftByPosition(input.runs, studCounts[0]!) : [];
     const large = loadsPercent.length > MAX_DOTS_PER_GROUP || cvs.length > MAX_DOTS_PER_GROUP;
@@ -171,6 +173,10 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
     }
   } else {
     warnings.push('At least two groups with two or more runs each are needed to compare runs.');
+  }
+  raw.push(...relaxationTest(runLevel, attempt));
+  if (planned === 'welch-relaxation' && !raw.some((t) => t.id === 'welch-relaxation')) {
+    warnings.push('Relaxation was chosen as the outcome, but fewer than two groups have two or more runs with hold readings after the last pass.');
   }
   const adjusted = raw.length ? holmAdjust(raw.map((t) => t.pValue)) : [];
   const tests: ComparisonTest[] = raw.map(({ measure: _measure, ...t }, i) => ({

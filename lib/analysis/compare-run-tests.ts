@@ -119,3 +119,32 @@ export function pooledSdLogCv(groups: readonly RunLevelGroup[]): { sdLogCv: numb
   }
   return df > 0 && ss > 0 ? { sdLogCv: Math.sqrt(ss / df), df } : null;
 }
+
+/**
+ * Relaxation as the outcome: Welch's ANOVA on each run's % of final load lost during the hold after
+ * its last pass (runs without such a hold left out), with the difference of means between the two
+ * groups furthest apart (Welch t interval). Needs two groups with two or more held runs.
+ */
+export function relaxationTest(groups: readonly { label: string; relaxationPercent: number[] }[], attempt: (name: string, run: () => void) => void): RawTest[] {
+  const held = groups.filter((g) => g.relaxationPercent.length >= 2);
+  if (held.length < 2) return [];
+  const tests: RawTest[] = [];
+  attempt("Welch's ANOVA of relaxation", () => {
+    const r = welchAnova(held.map((g) => g.relaxationPercent));
+    const means = held.map((g) => mean(g.relaxationPercent));
+    const high = held[indexOfExtreme(means, (a, b) => a > b)]!;
+    const low = held[indexOfExtreme(means, (a, b) => a < b)]!;
+    const t = welchTTest(high.relaxationPercent, low.relaxationPercent);
+    tests.push({
+      id: 'welch-relaxation',
+      question: TEST_QUESTIONS['welch-relaxation'],
+      name: "Welch's ANOVA on relaxation",
+      statistic: r.statistic,
+      pValue: r.pValue,
+      df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`,
+      measure: 'relaxation during the hold',
+      effect: { label: `Relaxation, ${high.label} − ${low.label}`, estimate: t.meanDifference, lower: t.confidenceInterval.lower, upper: t.confidenceInterval.upper, scale: 'points' },
+    });
+  });
+  return tests;
+}

@@ -15,6 +15,8 @@ export interface ComparedRun {
    * sample SD of `finalLoadsN`), so a comparison of thousands of runs need not recompute them.
    */
   stored?: { meanN: number; sdN: number } | null;
+  /** Mean % of final load lost by the last hold reading after the last pass; null or absent without such a hold. */
+  relaxationPercent?: number | null;
 }
 
 export interface GroupInput {
@@ -46,10 +48,13 @@ export interface GroupSummary {
   meanWithinSdPercent: number | null;
   /** Stud-to-stud and run-to-run SDs (% of target) with 95 % intervals, from the variance components. */
   components: { withinRunSd: Estimate; betweenRunSd: Estimate; withinMethod: string; betweenMethod: string } | null;
+  /** Mean relaxation (% of final load lost during the hold after the last pass) over the runs that have one, and how many do. */
+  meanRelaxationPercent: number | null;
+  runsWithHold: number;
 }
 
 /** The tests a comparison runs; one of them is chosen as planned before the data is seen. */
-export const COMPARISON_TESTS = ['welch-ln-cv', 'anova-ln-cv', 'welch-within-sd', 'anova-within-sd', 'spread-of-run-means', 'trainee-blocks'] as const;
+export const COMPARISON_TESTS = ['welch-ln-cv', 'anova-ln-cv', 'welch-within-sd', 'anova-within-sd', 'spread-of-run-means', 'trainee-blocks', 'welch-relaxation'] as const;
 export type ComparisonTestId = (typeof COMPARISON_TESTS)[number];
 
 /** What each test answers, in words (also the labels of the planned-outcome choice). */
@@ -60,6 +65,7 @@ export const TEST_QUESTIONS: Record<ComparisonTestId, string> = {
   'anova-within-sd': 'Is the within-run SD different? (one-way ANOVA)',
   'spread-of-run-means': 'Do run means (% of target) vary more from run to run in some groups?',
   'trainee-blocks': 'Is the run CV different once each operator is a block?',
+  'welch-relaxation': 'Is the relaxation during the hold (% of final load lost) different? (Welch)',
 };
 
 export interface EffectSize {

@@ -40,3 +40,14 @@ export function runRelaxation(passes: readonly PassSummary[], points: readonly H
   const heldAfter = new Set(holds.map((h) => h.afterPass));
   return { holds, retighteningPasses: [...heldAfter].filter((p) => p < lastPass).map((p) => p + 1) };
 }
+
+/**
+ * A run's relaxation as one number for a comparison: the mean over studs of the % of final load
+ * lost by the last hold reading after the last pass, (F_final − F_hold) / F_final × 100 (studs
+ * with no final load left out); null when nothing is left to average. Hand-worked: final 100 and
+ * 80 kN, hold 95 and 78 kN → (5 % + 2.5 %) / 2 = 3.75 %.
+ */
+export function finalHoldRelaxationPercent(finalLoadsN: readonly number[], holdLoadsN: readonly number[]): number | null {
+  const lost = finalLoadsN.flatMap((start, i) => (start > 0 && Number.isFinite(holdLoadsN[i]) ? [((start - holdLoadsN[i]!) / start) * 100] : []));
+  return lost.length ? lost.reduce((a, b) => a + b, 0) / lost.length : null;
+}

@@ -8,8 +8,10 @@ import type { BoxStats as BoxSummary } from '../charts/box-stats';
 export interface AnalysedStep {
   order: number;
   pass: number;
-  /** Position of the stud tightened in this step. */
+  /** Position of the stud tightened in this step (the first, when the step covered several). */
   position: number;
+  /** Every stud a multi-stud (tensioner) step tightened; absent for a one-stud step. */
+  positions?: number[];
   /** Every stud's load right after this step (index 0 = position 1). */
   loadsN: number[];
   timeS: number | null;

@@ -1,10 +1,12 @@
 import { AppError } from '@/lib/http/errors';
+import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
+import { LTF_RULES, loadTransferFactor } from './tensioner';
 
 /**
  * The step model of a hydraulic tensioner that tightens several studs at once: with 100 % tool
  * coverage one step takes every stud; with 50 % coverage (a tool on every other stud) a pass is two
  * steps, the odd positions then the even ones (common practice). Kept here so the simulator, the
- * classroom and the run report can share one model; not yet wired into them.
+ * classroom and the run report share one model (`NormalisedStep.covers`, lib/record/run-types.ts).
  *
  * Per stud a step has an applied load (the tool's load while pressurised) and a residual load (after
  * the nut takes it and the pressure is released). The measured load transfer factor is
@@ -30,4 +32,57 @@ export function measuredLoadTransferFactors(appliedN: readonly number[], residua
     const residual = residualN[i]!;
     return Number.isFinite(applied) && Number.isFinite(residual) && residual > 0 ? applied / residual : null;
   });
+}
+
+/** The positions a step tightened: its covers for a multi-stud (tensioner) step, else its one position. */
+export function stepPositions(step: Pick<NormalisedStep, 'position' | 'covers'>): number[] {
+  return step.covers && step.covers.length > 0 ? step.covers.map((c) => c.position) : [step.position];
+}
+
+/** One stud's last tensioner pull: applied and residual load in N and the measured load transfer factor. */
+export interface StudTransfer {
+  position: number;
+  appliedN: number;
+  residualN: number;
+  /** applied ÷ residual; null when the residual is not above zero. */
+  measuredLtf: number | null;
+  /** The pass of the pull. */
+  pass: number;
+}
+
+/**
+ * Per stud, the last step that covered it with an applied and residual load (the final pull), in
+ * position order; studs no tensioner step covered are left out. Empty for a torque run.
+ */
+export function studTransfers(run: Pick<NormalisedRun, 'steps'>): StudTransfer[] {
+  const last = new Map<number, StudTransfer>();
+  const ordered = [...run.steps].sort((a, b) => a.order - b.order);
+  for (const step of ordered) {
+    for (const cover of step.covers ?? []) {
+      const [measuredLtf] = measuredLoadTransferFactors([cover.appliedN], [cover.residualN]);
+      last.set(cover.position, { position: cover.position, appliedN: cover.appliedN, residualN: cover.residualN, measuredLtf: measuredLtf ?? null, pass: step.pass });
+    }
+  }
+  return [...last.values()].sort((a, b) => a.position - b.position);
+}
+
+/** The load transfer factor the calculator's rule gives for a joint, to set beside the measured ones. */
+export interface CalculatorLtf {
+  ltf: number;
+  /** The rule in words, for the screen. */
+  rule: string;
+  /** False when the joint has no clamped length, so only the rule's floor is known. */
+  fromClampLength: boolean;
+}
+
+/**
+ * The calculator's default rule (`tens1`: 1.01 + D/L, at least 1.15; lib/calc/tensioner.ts,
+ * docs/REFERENCE.md §4) for a stud of diameter D and clamped length L in mm; without L, the floor
+ * 1.15. Measured factors of about 1.1 to 1.4 are usual, higher for short clamped lengths (from
+ * memory): a measured value far outside that is worth a look at the gauges.
+ */
+export function calculatorLtf(diameterMm: number, clampLengthMm: number | null): CalculatorLtf {
+  const rule = LTF_RULES.find((r) => r.id === 'tens1')!;
+  if (clampLengthMm === null || !(clampLengthMm > 0)) return { ltf: rule.floor, rule: `${rule.label} (the floor: the joint has no clamped length)`, fromClampLength: false };
+  return { ltf: loadTransferFactor('tens1', diameterMm, clampLengthMm), rule: rule.label, fromClampLength: true };
 }

@@ -241,8 +241,10 @@ export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, j
     case 'tool':
       sides = [
         side('torque', 'Torque wrench', '30 / 60 / 100 % cross + check, torque through K', method(THREE_CROSS_CHECK), THREE_CROSS_CHECK, paste, n),
-        side('tension', 'Hydraulic tensioner', `two cross passes, load transfer factor ${DEFAULT_LTF}`, method(TENSIONER_TWO), TENSIONER_TWO, paste, n),
+        side('tension', 'Hydraulic tensioner', `two passes, every stud at once (100 % tool coverage), load transfer factor ${DEFAULT_LTF}`, method(TENSIONER_TWO), TENSIONER_TWO, paste, n),
       ];
+      // A tool on every stud: each pass is one step that covers them all (lib/calc/tensioner-coverage.ts).
+      sides[1]!.simMethod = { ...sides[1]!.simMethod, coverage: 100 };
       break;
   }
   return { scene, joint, sides, missing };

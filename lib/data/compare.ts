@@ -4,6 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { compareGroups, DEFAULT_PLANNED, type ComparisonResult, type GroupInput } from '../analysis/compare-groups';
 import { COMPARISON_TESTS } from '../analysis/compare-types';
+import { finalHoldRelaxationPercent } from '../analysis/relaxation';
 import { nutFactor } from '../stats/nut-factor';
 import { studDiameterM } from '../joints/joint-properties';
 import type { SessionUser } from '../auth/session';
@@ -82,6 +83,7 @@ const STATUS_SQL = { complete: "r.status = 'complete'", set_aside: "r.status = '
 
 /** The run-level columns of a comparison (narrow, so the attempt window sorts small rows). */
 interface RunRowSql {
+  id: number;
   group_id: number;
   operator_id: number;
   attempt: number | null;
@@ -132,16 +134,17 @@ export async function compareRunsCached(user: SessionUser, query: CompareQuery, 
   refuseOperatorIdsForResearcher(user, 'ids', query.by === 'trainee' && Boolean(query.ids?.length));
   const { where, params } = await filterSql(user, query);
   const match = SOURCE_SQL[query.source];
-  const [fp] = await sequelize.query<{ n: number | null; changed: Date | null; ids: number | null; names: Date | null; min_studs: number | null; max_studs: number | null; left_out: number | null }>(
+  const [fp] = await sequelize.query<{ n: number | null; changed: Date | null; ids: number | null; names: Date | null; min_studs: number | null; max_studs: number | null; left_out: number | null; holds: string | null }>(
     `SELECT SUM(${match}) AS n, MAX(IF(${match}, r.updated_at, NULL)) AS changed, SUM(IF(${match}, r.id, 0)) AS ids,
        MIN(IF(${match}, r.stud_count, NULL)) AS min_studs, MAX(IF(${match}, r.stud_count, NULL)) AS max_studs,
        SUM(r.source = 'simulated' AND NOT (${match})) AS left_out,
        GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
-                COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS names
+                COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS names,
+       (SELECT CONCAT(COUNT(*), '/', COALESCE(SUM(load_n), 0)) FROM run_holds) AS holds
      FROM runs r WHERE ${where.join(' AND ')}`,
     { type: QueryTypes.SELECT, replacements: params },
   );
-  const fingerprint = `${Number(fp?.n ?? 0)}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${Number(fp?.left_out ?? 0)}:${String(fp?.names ?? '-')}`;
+  const fingerprint = `${Number(fp?.n ?? 0)}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${Number(fp?.left_out ?? 0)}:${String(fp?.names ?? '-')}:${fp?.holds ?? '-'}`;
   const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
   const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
   const etag = `"${createHash('sha256').update(`${key}|${fingerprint}|${SOFTWARE}`).digest('base64url').slice(0, 32)}"`;
@@ -189,7 +192,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
   const chosen = where.join(' AND ');
   const [rows, loads] = await Promise.all([
     sequelize.query<RunRowSql>(
-      `SELECT x.group_id, x.operator_id, x.attempt, x.target_load_n, x.final_mean_n, x.final_sd_n FROM (
+      `SELECT x.id, x.group_id, x.operator_id, x.attempt, x.target_load_n, x.final_mean_n, x.final_sd_n FROM (
          SELECT ${column} AS group_id, r.id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, (${chosen}) AS chosen,
                 IF(r.status = 'complete', ROW_NUMBER() OVER (PARTITION BY r.operator_id, r.status = 'complete' ORDER BY r.recorded_at, r.id), NULL) AS attempt
          FROM runs r
@@ -207,6 +210,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     if (list) list.push(joined);
     else byGroup.set(row.group_id, [joined]);
   });
+  const relaxation = await relaxationByRun([...byGroup.values()].flat());
   // Keep the named groups in the order given; otherwise the 8 largest groups, ordered by label.
   let groupIds = query.ids?.filter((g) => byGroup.has(g)) ?? [...byGroup.keys()].sort((a, b) => (byGroup.get(b)?.length ?? 0) - (byGroup.get(a)?.length ?? 0)).slice(0, 8);
   const labels = await groupLabels(user, query.by, groupIds);
@@ -223,6 +227,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
       // Set-aside runs have no place in the operator's sequence of complete runs.
       attempt: r.attempt ?? null,
       stored: r.final_mean_n !== null && r.final_sd_n !== null ? { meanN: Number(r.final_mean_n), sdN: Number(r.final_sd_n) } : null,
+      relaxationPercent: relaxation.get(Number(r.id)) ?? null,
     })),
   }));
   const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });
@@ -231,6 +236,40 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
   if (missing.length) result.warnings.push(`No runs you may see match ${missing.length === 1 ? 'one of the chosen groups' : `${missing.length} of the chosen groups`} with these filters.`);
   if (query.source === 'both') result.warnings.push('Measured and simulated runs are pooled in these groups, as asked.');
   return { ...result, by: query.by, source: query.source, totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0), simulatedLeftOut: shape.simulatedLeftOut, nutFactors };
+}
+
+/**
+ * Per run, the relaxation during the hold after its last pass: the last hold reading's loads
+ * against the final loads (`finalHoldRelaxationPercent`). Runs whose holds all follow an earlier
+ * pass (a retightening came after) or that have none are left out.
+ */
+async function relaxationByRun(rows: readonly (RunRowSql & RunLoadsSql)[]): Promise<Map<number, number>> {
+  const out = new Map<number, number>();
+  if (rows.length === 0) return out;
+  // Most runs have no hold: find the few that do first, so the last-pass scan below reads their steps only.
+  const held = await sequelize.query<{ run_id: number }>('SELECT DISTINCT run_id FROM run_holds WHERE run_id IN (?)', { type: QueryTypes.SELECT, replacements: [rows.map((r) => Number(r.id))] });
+  if (held.length === 0) return out;
+  const ids = held.map((h) => Number(h.run_id));
+  const holds = await sequelize.query<{ run_id: number; after_pass: number; elapsed_s: number; position: number; load_n: number }>(
+    `SELECT h.run_id, h.after_pass, h.elapsed_s, h.position, h.load_n FROM run_holds h
+     JOIN (SELECT s.run_id, MAX(s.pass_number) AS last_pass FROM tightening_steps s WHERE s.run_id IN (?) GROUP BY s.run_id) p ON p.run_id = h.run_id AND p.last_pass = h.after_pass
+     WHERE h.elapsed_s = (SELECT MAX(x.elapsed_s) FROM run_holds x WHERE x.run_id = h.run_id AND x.after_pass = h.after_pass)`,
+    { type: QueryTypes.SELECT, replacements: [ids] },
+  );
+  const loadsByRun = new Map<number, Map<number, number>>();
+  for (const h of holds) {
+    const loads = loadsByRun.get(Number(h.run_id)) ?? new Map<number, number>();
+    loads.set(Number(h.position), Number(h.load_n));
+    loadsByRun.set(Number(h.run_id), loads);
+  }
+  for (const row of rows) {
+    const held = loadsByRun.get(Number(row.id));
+    if (!held) continue;
+    const finals = JSON.parse(row.final_loads_json) as number[];
+    const value = finalHoldRelaxationPercent(finals, finals.map((_, i) => held.get(i + 1) ?? Number.NaN));
+    if (value !== null) out.set(Number(row.id), value);
+  }
+  return out;
 }
 
 async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Promise<Map<number, string>> {

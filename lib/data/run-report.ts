@@ -3,12 +3,14 @@ import { Op, QueryTypes } from 'sequelize';
 import { AppError } from '../http/errors';
 import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
-import { Cohort, Joint, Lubricant, Method, Run, RunComment, User, sequelize } from '@/models';
+import { Cohort, HardwareSet, Joint, Lubricant, LubricantLot, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { RunCheckReason } from '../run-check/types';
 import { gasketAreaOf, jointGasketOf, type JointGasket } from '../joints/gasket-input';
 import { passPercentsOf } from '../analysis/pass-percents-of';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 import { jointAsRecorded } from './joint-versions';
+import { calculatorLtf, type CalculatorLtf } from '../calc/tensioner-coverage';
+import { studDiameterM } from '../joints/joint-properties';
 
 export interface RunHeaderDto {
   id: number;
@@ -29,6 +31,10 @@ export interface RunHeaderDto {
   /** `key` is the user id as text, or for researchers the pseudonym's code (scope.ts operatorKey). */
   operator: { key: string; label: string };
   cohort: { id: number; name: string } | null;
+  /** The studs, nuts and washers used (with this run's use number), the lubricant lot and the gasket's condition, where recorded. */
+  hardware: { setName: string | null; useNumber: number | null; lotCode: string | null; gasketCondition: 'new' | 'reused' | null };
+  /** The calculator's load transfer factor for this joint, for tensioner methods only. */
+  tensionerRule: CalculatorLtf | null;
 }
 
 export interface RunReviewDto {
@@ -69,6 +75,30 @@ type RunWithParts = Run & { joint: Joint; method: Method; lubricant: Lubricant; 
 const threadLabel = (j: Pick<Joint, 'threadSystem' | 'threadDiameter' | 'threadPitch'>) =>
   j.threadSystem === 'inch' ? `${j.threadDiameter} in, ${j.threadPitch} threads per inch` : `M${j.threadDiameter} × ${j.threadPitch} mm`;
 
+/** The hardware set's name and the lubricant lot's code of a run, where recorded. */
+async function hardwareOf(run: Run): Promise<RunHeaderDto['hardware']> {
+  const [set, lot] = await Promise.all([
+    run.hardwareSetId ? HardwareSet.findByPk(run.hardwareSetId, { attributes: ['name'] }) : null,
+    run.lubricantLotId ? LubricantLot.findByPk(run.lubricantLotId, { attributes: ['lotCode'] }) : null,
+  ]);
+  return { setName: set?.name ?? null, useNumber: run.hardwareUseNumber ?? null, lotCode: lot?.lotCode ?? null, gasketCondition: run.gasketCondition ?? null };
+}
+
+/** The studs each multi-stud (tensioner) step covered, with applied and residual load, onto the loaded steps. */
+async function attachCovers(runId: number, steps: NormalisedRun['steps']): Promise<void> {
+  const covers = await sequelize.query<{ step_order: number; position: number; applied_n: number; residual_n: number }>(
+    `SELECT s.step_order, c.position, c.applied_n, c.residual_n FROM step_positions c JOIN tightening_steps s ON s.id = c.step_id
+     WHERE c.run_id = ? ORDER BY s.step_order, c.position`,
+    { type: QueryTypes.SELECT, replacements: [runId] },
+  );
+  const byOrder = new Map(steps.map((step) => [step.order, step]));
+  for (const row of covers) {
+    const step = byOrder.get(Number(row.step_order));
+    if (!step) continue;
+    (step.covers ??= []).push({ position: Number(row.position), appliedN: Number(row.applied_n), residualN: Number(row.residual_n) });
+  }
+}
+
 /**
  * A run the viewer may see, with its steps and readings. Throws not_found when it does not exist
  * or is not the viewer's to see (the two are not told apart).
@@ -100,6 +130,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
     }
     step.loadsN[row.position - 1] = row.load_n;
   }
+  await attachCovers(runId, steps);
   const comments = !seesFreeText(user) ? [] : await RunComment.findAll({ where: { runId }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }], order: [['createdAt', 'ASC']] });
   const method = run.method;
   const reviewer = run.reviewedById ? await User.findByPk(run.reviewedById, { attributes: ['id', 'name'] }) : null;
@@ -145,6 +176,8 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
       lubricant: { id: run.lubricant.id, name: run.lubricant.name, nominalNutFactor: run.lubricant.nominalNutFactor },
       operator: { key: operatorKey(user, run.operator.id), label: operatorLabel(user, run.operator) },
       cohort: run.cohort ? { id: run.cohort.id, name: run.cohort.name } : null,
+      hardware: await hardwareOf(run),
+      tensionerRule: method.toolKind === 'hydraulic_tensioner' ? calculatorLtf(studDiameterM(asRecorded) * 1000, run.joint.clampLengthMm ?? null) : null,
     },
     run: { studCount: run.studCount, targetLoadN: run.targetLoadN, steps },
     comments: comments.map((c) => {

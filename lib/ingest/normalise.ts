@@ -169,12 +169,12 @@ function addDerivedSteps(deriver: StepDeriver, collector: StepCollector, options
   collector.warnings.push(...d.warnings);
   if (plan && !hasPassColumn) keepPlannedStepsAfterLastRise(d, plan, collector.warnings);
   for (const s of d.steps) {
-    collector.steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN });
+    collector.steps.push({ order: s.order, pass: s.pass, position: s.position, appliedTorqueNm: s.appliedTorqueNm, appliedPressureBar: s.appliedPressureBar, timeS: s.timeS, loadsN: s.loadsN, covers: s.covers ?? null });
     collector.stepLines.push({ order: s.order, firstLine: s.firstLine, lastLine: s.lastLine });
   }
   if (d.steps.length > 0) {
     collector.warnings.push(
-      `No step column: ${d.steps.length} steps derived from the loads (a rise of more than ${(options.derive?.thresholdFraction ?? 0.02) * 100} % of the target on one stud is a step${hasPassColumn ? '' : '; a new pass starts when a stud already tightened in the pass is tightened again'}). Confirm them.`,
+      `No step column: ${d.steps.length} steps derived from the loads (a rise of more than ${(options.derive?.thresholdFraction ?? 0.02) * 100} % of the target on one stud, or on several together, is a step; a released tool's step reads the load left after release${hasPassColumn ? '' : '; a new pass starts when a stud already tightened in the pass is tightened again'}). Confirm them.`,
     );
   }
   return d.steps;

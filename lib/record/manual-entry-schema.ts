@@ -28,6 +28,8 @@ export const manualEntrySchema = z.object({
    * step. Blank cells are null; a row may be left wholly blank only at the end (run stopped early).
    */
   rows: z.array(z.array(manualCellSchema)).min(1, 'Enter the loads of at least one step.').max(2000, 'At most 2,000 steps.'),
+  /** Hold readings after a pass, in the layout of lib/record/hold-readings.ts (kN, or lbf when the grid is in lbf); optional. */
+  holds: z.string().max(20_000, 'Hold readings have at most 20,000 characters.').optional(),
 });
 
 export type ManualEntry = z.infer<typeof manualEntrySchema>;

@@ -1,3 +1,4 @@
+import { stepPositions } from '../calc/tensioner-coverage';
 import { kn } from './format';
 import type { RunCheckInput, RunCheckReason } from './types';
 
@@ -31,12 +32,14 @@ export function checkFlatChannel({ run }: RunCheckInput): RunCheckReason | null 
   }
   const spans = max.map((high, i) => high - min[i]!);
   // Only studs the steps say were tightened: in a run that stops early the others are rightly flat.
-  const tightened = new Set(run.steps.map((step) => step.position - 1));
+  const tightened = new Set(run.steps.flatMap((step) => stepPositions(step).map((p) => p - 1)));
   const rose = new Set<number>();
   const ordered = [...run.steps].sort((a, b) => a.order - b.order);
   ordered.forEach((step, k) => {
-    const before = k === 0 ? 0 : ordered[k - 1]!.loadsN[step.position - 1]!;
-    if (step.loadsN[step.position - 1]! - before >= FLAT_SPAN_FRACTION * run.targetLoadN) rose.add(step.position - 1);
+    for (const position of stepPositions(step)) {
+      const before = k === 0 ? 0 : ordered[k - 1]!.loadsN[position - 1]!;
+      if (step.loadsN[position - 1]! - before >= FLAT_SPAN_FRACTION * run.targetLoadN) rose.add(position - 1);
+    }
   });
   const flat = spans.flatMap((span, i) => (tightened.has(i) && !rose.has(i) && span < FLAT_SPAN_FRACTION * run.targetLoadN ? [i] : []));
   const others = spans.filter((_, i) => tightened.has(i) && !flat.includes(i));

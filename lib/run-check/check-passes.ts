@@ -1,4 +1,5 @@
 import { count } from './format';
+import { hasMultiStudSteps, tensionerPassProblem, tensionerPasses } from './tensioner-passes';
 import type { RunCheckInput, RunCheckReason } from './types';
 
 /**
@@ -9,6 +10,7 @@ import type { RunCheckInput, RunCheckReason } from './types';
  */
 export function checkPasses({ run, jointStudCount, method }: RunCheckInput): RunCheckReason | null {
   const plannedPasses = method.passes.length + method.checkPasses;
+  if (hasMultiStudSteps(run)) return checkTensionerPasses(run, jointStudCount, method, plannedPasses);
   const plannedSteps = plannedPasses * jointStudCount;
   const recordedPasses = new Set(run.steps.map((step) => step.pass)).size;
   if (recordedPasses === plannedPasses && run.steps.length === plannedSteps) return null;
@@ -18,4 +20,16 @@ export function checkPasses({ run, jointStudCount, method }: RunCheckInput): Run
       `The run has ${count(recordedPasses, 'pass', 'passes')} and ${count(run.steps.length, 'step', 'steps')}; ` +
       `the method "${method.name}" prescribes ${count(plannedPasses, 'pass', 'passes')} and ${count(plannedSteps, 'step', 'steps')} for ${jointStudCount} studs.`,
   };
+}
+
+/**
+ * A run whose tensioner steps cover several studs: as many passes as the method prescribes, each
+ * covering every stud once, in 1 step (100 % tool coverage), 2 (50 %) or one per stud.
+ */
+function checkTensionerPasses(run: RunCheckInput['run'], studCount: number, method: RunCheckInput['method'], plannedPasses: number): RunCheckReason | null {
+  const passes = tensionerPasses(run);
+  const problems = passes.map((pass) => tensionerPassProblem(pass, studCount)).filter((p): p is string => p !== null);
+  if (passes.length === plannedPasses && problems.length === 0) return null;
+  const counted = `The run has ${count(passes.length, 'pass', 'passes')} of tensioner steps; the method "${method.name}" prescribes ${count(plannedPasses, 'pass', 'passes')}`;
+  return { rule: 'passes', message: problems.length ? `${counted}, and ${problems[0]}.` : `${counted}.` };
 }

@@ -73,7 +73,12 @@ export function methodForSim(method: LibraryMethodForSim, studCount: number): Si
   };
 }
 
-/** Settings the library does not store, the same on every page: a medium gasket and the simulator's tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4). */
+/**
+ * Settings the library does not store, the same on every page: a medium gasket and the simulator's
+ * tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4). A library tensioner method is
+ * simulated one stud per step, as its pass order reads; a tool set on several studs at once is
+ * `SimMethod.coverage` (the Classroom's tensioning scene sets 100 %).
+ */
 export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15 } as const;
 
 export interface LibraryRunInput {

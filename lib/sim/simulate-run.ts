@@ -1,4 +1,5 @@
 import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
+import { tensionerStepGroups, type ToolCoverage } from '@/lib/calc/tensioner-coverage';
 import { SimInputError } from './errors';
 import { circularOrder, validatePassOrder } from './patterns';
 import { createRng } from './random';
@@ -27,6 +28,12 @@ export interface SimMethod {
   passes: SimPass[];
   /** Circular passes (1..N) at 100 % after the listed passes, repeated this many times. */
   checkPasses: number;
+  /**
+   * Tensioner only: tool coverage. 100 = every stud in one step per pass, 50 = the odd positions
+   * then the even ones (lib/calc/tensioner-coverage.ts); the pass order is then not used. Absent =
+   * one stud per step in the pass order.
+   */
+  coverage?: ToolCoverage;
 }
 
 export interface SimLubricant {
@@ -298,10 +305,35 @@ export function simulateRun(input: SimulateRunInput): SimulateRunResult {
   const [stepMin, stepMax] = STEP_SECONDS[method.tool];
   const steps: NormalisedStep[] = [];
   let timeS = 0;
+  const groups = isTensioner && method.coverage ? tensionerStepGroups(n, method.coverage) : null;
+  // Several studs pulled at once: each is held at its applied load while its nut is run down, so
+  // a stud of the group does not ease the others; the studs outside it ease by Σ c(k)·ΔF (MODEL.md).
+  const pullGroup = (group: number[], aimN: number): NormalisedStep['covers'] => {
+    const covers = group.map((position) => {
+      const i = position - 1;
+      const current = loads[i] ?? 0;
+      const appliedN = aimN * ltfNominal * rng.clampedNormal(1, operatorNoiseCv);
+      const next = appliedN > current ? appliedN / (ltfActual?.[i] ?? ltfNominal) : current;
+      return { position, appliedN, residualN: next, delta: next - current };
+    });
+    for (const c of covers) loads[c.position - 1] = c.residualN;
+    for (let q = 1; q <= n; q += 1) {
+      if (group.includes(q)) continue;
+      const eased = covers.reduce((sum, c) => sum + (coefficients[circularDistance(c.position, q, n) - 1] ?? 0) * c.delta, 0);
+      loads[q - 1] = Math.max(0, (loads[q - 1] ?? 0) - eased);
+    }
+    return covers.map(({ position, appliedN, residualN }) => ({ position, appliedN, residualN }));
+  };
   passes.forEach((pass, passIndex) => {
     if (passIndex > 0) timeS += rng.uniform(PASS_PAUSE_SECONDS[0], PASS_PAUSE_SECONDS[1]);
     const aimN = (pass.percentOfTarget / 100) * targetLoadN;
-    for (const position of pass.order) {
+    for (const group of groups ?? []) {
+      const covers = pullGroup(group, aimN);
+      timeS += rng.uniform(stepMin, stepMax);
+      const meanApplied = covers!.reduce((sum, c) => sum + c.appliedN, 0) / covers!.length;
+      steps.push({ order: steps.length + 1, pass: passIndex + 1, position: group[0]!, appliedTorqueNm: null, appliedPressureBar: meanApplied / pistonArea / 1e5, timeS, loadsN: [...loads], covers });
+    }
+    for (const position of groups ? [] : pass.order) {
       const i = position - 1;
       const current = loads[i] ?? 0;
       const setFactor = rng.clampedNormal(1, operatorNoiseCv);
@@ -329,6 +361,7 @@ export function simulateRun(input: SimulateRunInput): SimulateRunResult {
         appliedPressureBar,
         timeS,
         loadsN: [...loads],
+        ...(isTensioner && appliedPressureBar !== null ? { covers: [{ position, appliedN: appliedPressureBar * pistonArea * 1e5, residualN: next }] } : {}),
       });
     }
   });

@@ -44,7 +44,7 @@ describe('compareGroups on a hand-made selection (run as the unit)', () => {
   });
 
   it("adjusts across all tests of the comparison by Holm's method (statsmodels multipletests)", () => {
-    for (const t of result.tests) close(t.adjustedPValue, fixture.tests[t.id].adjustedPValue, 1e-4);
+    for (const t of result.tests) close(t.adjustedPValue, fixture.tests[t.id as keyof typeof fixture.tests].adjustedPValue, 1e-4);
   });
 
   it('labels one test planned (first) and the rest exploratory', () => {

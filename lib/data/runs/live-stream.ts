@@ -203,7 +203,7 @@ export async function finishRecording(user: SessionUser, runId: number): Promise
     const run: NormalisedRun = {
       studCount,
       targetLoadN,
-      steps: derived.steps.map((s) => ({ order: s.order, pass: s.pass, position: s.position, timeS: s.timeS, loadsN: s.loadsN })),
+      steps: derived.steps.map((s) => ({ order: s.order, pass: s.pass, position: s.position, timeS: s.timeS, loadsN: s.loadsN, covers: s.covers ?? null })),
     };
     await appendSteps(runId, run, 0, transaction);
     const status = await completeRecordedRun(runId, { jointId: Number(row.joint_id), methodId: Number(row.method_id), bandPercent: Number(row.band_percent) }, run, transaction);

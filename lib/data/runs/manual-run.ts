@@ -1,5 +1,6 @@
 import 'server-only';
-import { sequelize } from '@/models';
+import { RunHold, sequelize } from '@/models';
+import { parseHoldReadings } from '@/lib/record/hold-readings';
 import { AppError } from '@/lib/http/errors';
 import { loadToN } from '@/lib/ingest/units';
 import { resolveRunHeader } from '@/lib/data/record';
@@ -33,6 +34,7 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
     throw new AppError('invalid_input', issue?.message ?? 'The grid is not valid.', { field: String(field) });
   }
   const { header: headerInput, unit, rows } = parsed.data;
+  if (unit === 'N' && parsed.data.holds?.trim()) throw new AppError('invalid_input', 'Hold readings are typed in kN or lbf: choose kN or lbf as the unit, or add the holds on the run report.', { field: 'holds' });
   const resolved = await resolveRunHeader(user, headerInput, 'manual', 'complete');
   const { joint, method } = resolved;
   const plan = planSteps(method, joint.studCount);
@@ -59,6 +61,18 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
     });
     run.steps.push({ order: r + 1, pass: step.pass, position: step.position, loadsN });
   }
-  const { runId, status } = await sequelize.transaction((transaction) => storeRunWithStatus(resolved.header, run, transaction));
+  const holds = parsed.data.holds?.trim() ? manualHolds(parsed.data.holds, run, unit) : [];
+  const { runId, status } = await sequelize.transaction(async (transaction) => {
+    const stored = await storeRunWithStatus(resolved.header, run, transaction);
+    const rows = holds.flatMap((p) => p.loadsN.map((loadN, i) => ({ runId: stored.runId, afterPass: p.afterPass, elapsedS: p.elapsedS, position: i + 1, loadN })));
+    if (rows.length) await RunHold.bulkCreate(rows, { transaction });
+    return stored;
+  });
   return { runId, stepCount: run.steps.length, status };
+}
+
+/** The grid's hold readings, read before anything is stored (kN, or lbf when the grid is in lbf), after the grid's last pass by default. */
+function manualHolds(text: string, run: NormalisedRun, unit: 'kN' | 'N' | 'lbf') {
+  const passCount = Math.max(...run.steps.map((s) => s.pass));
+  return parseHoldReadings(text, { studCount: run.studCount, passCount, units: unit === 'lbf' ? 'us' : 'si' });
 }

@@ -62,6 +62,9 @@ export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, 
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
     throw new AppError('invalid_input', `Every step needs a load for each of the ${run.studCount} studs.`);
   }
+  if (run.steps.some((step) => (step.covers ?? []).some((c) => !Number.isInteger(c.position) || c.position < 1 || c.position > run.studCount))) {
+    throw new AppError('invalid_input', `A tensioner step covers a position outside 1–${run.studCount}.`);
+  }
   const checked = header.status === 'complete' ? await checkBeforeStoring(header, run, transaction) : null;
   const pins = await runPins(header.jointId, transaction);
   const hardwareUseNumber = header.hardwareSetId ? await claimHardwareUse(header.hardwareSetId, transaction) : null;
@@ -157,7 +160,20 @@ async function insertSteps(runId: number, studCount: number, steps: NormalisedRu
         transaction,
       });
     }
+    await insertCovers(runId, chunk, idByOrder, transaction);
   }
+}
+
+/** The studs each multi-stud (tensioner) step covered, with applied and residual load: one multi-row INSERT per chunk. */
+async function insertCovers(runId: number, chunk: NormalisedRun['steps'], idByOrder: Map<number, number>, transaction: Transaction): Promise<void> {
+  const values: string[] = [];
+  for (const step of chunk) {
+    for (const cover of step.covers ?? []) {
+      values.push(`(${idByOrder.get(step.order)},${sqlNumber(cover.position)},${runId},${sqlNumber(cover.appliedN)},${sqlNumber(cover.residualN)})`);
+    }
+  }
+  if (values.length === 0) return;
+  await sequelize.query(`INSERT INTO step_positions (step_id, position, run_id, applied_n, residual_n) VALUES ${values.join(',')}`, { type: QueryTypes.INSERT, transaction });
 }
 
 /**

@@ -17,6 +17,7 @@ import { REVIEW_ROLES } from '@/lib/data/runs/run-review';
 import { addCommentAction, addHoldsAction, confirmAttemptAction, restoreRunAction, reviewRunAction, setAsideAction, setRunToolsAction } from './actions';
 import { HOLD_ROLES, loadRunHolds } from '@/lib/data/run-holds';
 import { runRelaxation } from '@/lib/analysis/relaxation';
+import { studTransfers } from '@/lib/calc/tensioner-coverage';
 
 export const metadata: Metadata = { title: 'Run report' };
 export const dynamic = 'force-dynamic';
@@ -50,6 +51,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
         setAsideAction={attempt.canSetAside && attempt.status === 'needs_review' ? setAsideAction.bind(null, id) : null}
         relaxation={relaxation}
         holdAction={HOLD_ROLES.includes(user.role) ? addHoldsAction.bind(null, parsed.data) : null}
+        transfers={studTransfers(loaded.run)}
       />
       <RunTools tools={tools} register={register} action={editsTools ? setRunToolsAction.bind(null, parsed.data) : null} />
       <FigureHistory entries={history} />
