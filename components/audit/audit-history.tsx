@@ -28,14 +28,19 @@ const ACTION_LABELS: Record<string, string> = {
   invite_create: 'Account created by invitation',
   accept_invitation: 'Invitation accepted',
   password_reset: 'Password reset',
+  review_link: 'Review link made',
+  review_revoke: 'Review link withdrawn',
 };
+
+/** Keys an audit row keeps for the export and for finding rows, not for reading on the object's own page. */
+const KEYS_NOT_SHOWN = new Set(['traineeId']);
 
 /** What changed between before and after, as "field: old → new" lines (only fields that differ). */
 function changes(before: unknown, after: unknown): string[] {
   const b = (before && typeof before === 'object' ? before : {}) as Record<string, unknown>;
   const a = (after && typeof after === 'object' ? after : {}) as Record<string, unknown>;
   const show = (v: unknown) => (v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v));
-  return [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => show(b[k]) !== show(a[k])).map((k) => `${k}: ${show(b[k])} → ${show(a[k])}`);
+  return [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => !KEYS_NOT_SHOWN.has(k) && show(b[k]) !== show(a[k])).map((k) => `${k}: ${show(b[k])} → ${show(a[k])}`);
 }
 
 /** The history of one object from the audit log: who did what, when, why, and what changed. */
