@@ -49,6 +49,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare finalLoadsJson: CreationOptional<string | null>;
   /** JSON array of each stud's drift in % since it was last tightened. */
   declare driftJson: CreationOptional<string | null>;
+  /** The same final loads as float64 bytes (lib/record/float64-blob.ts), for comparisons. */
+  declare finalLoadsF64: CreationOptional<Buffer | null>;
+  /** The same drift as float64 bytes (NaN where never tightened). */
+  declare driftF64: CreationOptional<Buffer | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   /** The joint as it stood when the run was recorded. */
@@ -95,6 +99,8 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         finalMaxN: { type: DataTypes.DOUBLE, allowNull: true },
         finalLoadsJson: { type: DataTypes.TEXT, allowNull: true },
         driftJson: { type: DataTypes.TEXT, allowNull: true },
+        finalLoadsF64: { type: DataTypes.BLOB, allowNull: true },
+        driftF64: { type: DataTypes.BLOB, allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
         jointVersionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

@@ -12,6 +12,8 @@ export class SavedComparison extends Model<InferAttributes<SavedComparison>, Inf
   declare resultsJson: string;
   declare softwareVersion: string;
   declare dataSha256: string;
+  /** sha256 of the frozen runs' ids and last changes when the data was last found unchanged (`runsFingerprint`); null: not yet known. */
+  declare runsFingerprint: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User>;
 
@@ -27,6 +29,7 @@ export class SavedComparison extends Model<InferAttributes<SavedComparison>, Inf
         resultsJson: { type: DataTypes.TEXT('long'), allowNull: false },
         softwareVersion: { type: DataTypes.STRING(80), allowNull: false },
         dataSha256: { type: DataTypes.CHAR(64), allowNull: false },
+        runsFingerprint: { type: DataTypes.CHAR(64), allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'saved_comparisons', underscored: true, timestamps: true, updatedAt: false },

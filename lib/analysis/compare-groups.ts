@@ -15,6 +15,13 @@ export type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, G
 /** Dots drawn per group at most; larger groups are drawn from an even sample, with the box from all values. */
 export const MAX_DOTS_PER_GROUP = 400;
 
+/**
+ * A dot's position as the comparison's JSON carries it: 6 significant digits (0.0001 % of target,
+ * far finer than a chart's pixel), so the cached answer is less than half the bytes of full doubles.
+ * Only the drawn dots are rounded; every statistic and box is computed from the full values.
+ */
+export const dotValue = (value: number): number => Number(value.toPrecision(6));
+
 /** An even, deterministic sample (every k-th value) of at most `max` values. */
 export function evenSample(values: ArrayLike<number>, max: number): number[] {
   if (values.length <= max) return Array.from(values);
@@ -25,7 +32,7 @@ export function evenSample(values: ArrayLike<number>, max: number): number[] {
 function boxOf(values: readonly number[] | Float64Array): BoxSummary | undefined {
   const box = boxStats(values);
   if (!box) return undefined;
-  return { ...box, outliers: evenSample(box.outliers, MAX_DOTS_PER_GROUP) };
+  return { ...box, outliers: evenSample(box.outliers, MAX_DOTS_PER_GROUP).map(dotValue) };
 }
 
 /** Fewer runs than this in a group make the tests say little (common practice: a handful per group at least). */
@@ -141,8 +148,8 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       key: input.key,
       label: input.label,
       colourIndex: index % 8,
-      finalLoadsPercent: evenSample(loadsPercent, MAX_DOTS_PER_GROUP),
-      runCvs: evenSample(cvs, MAX_DOTS_PER_GROUP),
+      finalLoadsPercent: evenSample(loadsPercent, MAX_DOTS_PER_GROUP).map(dotValue),
+      runCvs: evenSample(cvs, MAX_DOTS_PER_GROUP).map(dotValue),
       ...(large ? { finalLoadsBox: boxOf(loadsPercent.slice()), runCvBox: boxOf(cvs.map((cv) => cv * 100)) } : {}),
       meanDriftByPosition: drift,
     });

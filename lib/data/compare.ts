@@ -6,6 +6,7 @@ import { compareGroups, DEFAULT_PLANNED, type ComparisonResult, type GroupInput 
 import { COMPARISON_TESTS } from '../analysis/compare-types';
 import { finalHoldRelaxationPercent } from '../analysis/relaxation';
 import { nutFactor } from '../stats/nut-factor';
+import { decodeFloat64Blob } from '../record/float64-blob';
 import { studDiameterM } from '../joints/joint-properties';
 import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
@@ -81,22 +82,27 @@ const MEASURED_SQL = "r.source IN ('upload', 'manual', 'live')";
 const SOURCE_SQL = { measured: MEASURED_SQL, simulated: "r.source = 'simulated'", both: '1 = 1' } as const;
 const STATUS_SQL = { complete: "r.status = 'complete'", set_aside: "r.status = 'set_aside'", both: "r.status IN ('complete', 'set_aside')" } as const;
 
-/** The run-level columns of a comparison (narrow, so the attempt window sorts small rows). */
+/**
+ * One run of a comparison: its run-level columns and its stud-level figures as float64 bytes
+ * (`lib/record/float64-blob.ts`), with the JSON text only for a run that has no bytes yet.
+ */
 interface RunRowSql {
   id: number;
   group_id: number;
   operator_id: number;
-  attempt: number | null;
   target_load_n: number;
   final_mean_n: number | null;
   final_sd_n: number | null;
-}
-
-/** The stud-level columns, read by a second query in the same order (by run id). */
-interface RunLoadsSql {
-  final_loads_json: string;
+  final_loads_f64: Uint8Array | null;
+  final_loads_json: string | null;
+  drift_f64?: Uint8Array | null;
   drift_json?: string | null;
 }
+
+/** The final loads of a run as the query gives them. */
+const finalLoadsOf = (r: RunRowSql): number[] => (r.final_loads_f64 ? (decodeFloat64Blob(r.final_loads_f64) as number[]) : (JSON.parse(r.final_loads_json ?? '[]') as number[]));
+/** The drift of a run (null where a stud was never tightened); empty when not read. */
+const driftOf = (r: RunRowSql): (number | null)[] => (r.drift_f64 ? decodeFloat64Blob(r.drift_f64) : r.drift_json ? (JSON.parse(r.drift_json) as (number | null)[]) : []);
 
 /** What the fingerprint aggregate returns besides the fingerprint itself. */
 interface SelectionShape {
@@ -180,37 +186,39 @@ async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ wher
 
 /**
  * Reads only what the statistics need: per run its group, operator, attempt number (the operator's
- * n-th complete run, by a window over their runs), target and final loads; drift only when the
+ * n-th complete run, counted over their complete runs), target and final loads; drift only when the
  * selection has one stud count (drift by position is not averaged across stud counts).
  */
 async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[], shape: SelectionShape): Promise<CompareResponse> {
   const column = GROUP_COLUMN[query.by];
   const oneStudCount = shape.studCounts.min !== null && shape.studCounts.min === shape.studCounts.max;
-  // Two queries side by side, both in run id order: the run-level figures with the attempt number
-  // (a window over each operator's complete runs, on narrow rows: wide JSON text in the window's
-  // sort made it several times slower), and the final loads (and drift) as stored JSON.
   const chosen = where.join(' AND ');
-  const [rows, loads] = await Promise.all([
+  // Two queries side by side: the chosen runs (run-level columns and the stud-level bytes, no JSON to
+  // parse), and the attempt numbers: every complete run of the operators concerned in the order
+  // (operator, recorded_at, id), read from the index `runs_operator_attempts` alone and counted here
+  // (what ROW_NUMBER() over each operator's complete runs gives, without the window's sort).
+  const [rows, sequence] = await Promise.all([
     sequelize.query<RunRowSql>(
-      `SELECT x.id, x.group_id, x.operator_id, x.attempt, x.target_load_n, x.final_mean_n, x.final_sd_n FROM (
-         SELECT ${column} AS group_id, r.id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, (${chosen}) AS chosen,
-                IF(r.status = 'complete', ROW_NUMBER() OVER (PARTITION BY r.operator_id, r.status = 'complete' ORDER BY r.recorded_at, r.id), NULL) AS attempt
-         FROM runs r
-         WHERE (r.status = 'complete' AND r.operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${chosen})) OR (${chosen})
-       ) x WHERE x.chosen ORDER BY x.id`,
-      { type: QueryTypes.SELECT, replacements: [...params, ...params, ...params] },
+      `SELECT r.id, ${column} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n,
+              r.final_loads_f64, IF(r.final_loads_f64 IS NULL, r.final_loads_json, NULL) AS final_loads_json${oneStudCount ? ', r.drift_f64, IF(r.drift_f64 IS NULL, r.drift_json, NULL) AS drift_json' : ''}
+       FROM runs r WHERE ${chosen} ORDER BY r.id`,
+      { type: QueryTypes.SELECT, replacements: params },
     ),
-    sequelize.query<RunLoadsSql>(`SELECT r.final_loads_json${oneStudCount ? ', r.drift_json' : ''} FROM runs r WHERE ${chosen} ORDER BY r.id`, { type: QueryTypes.SELECT, replacements: params }),
+    sequelize.query<{ operator_id: number; id: number }>(
+      `SELECT a.operator_id, a.id FROM runs a
+       WHERE a.status = 'complete' AND a.operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${chosen})
+       ORDER BY a.operator_id, a.recorded_at, a.id`,
+      { type: QueryTypes.SELECT, replacements: params },
+    ),
   ]);
-  if (rows.length !== loads.length) throw new AppError('conflict', 'Runs changed while the comparison was being computed. Try again.');
-  const byGroup = new Map<number, (RunRowSql & RunLoadsSql)[]>();
-  rows.forEach((row, i) => {
-    const joined = Object.assign(row, loads[i]!);
+  const attemptOf = attemptNumbers(sequence);
+  const byGroup = new Map<number, RunRowSql[]>();
+  for (const row of rows) {
     const list = byGroup.get(row.group_id);
-    if (list) list.push(joined);
-    else byGroup.set(row.group_id, [joined]);
-  });
-  const relaxation = await relaxationByRun([...byGroup.values()].flat());
+    if (list) list.push(row);
+    else byGroup.set(row.group_id, [row]);
+  }
+  const relaxation = await relaxationByRun(rows);
   // Keep the named groups in the order given; otherwise the 8 largest groups, ordered by label.
   let groupIds = query.ids?.filter((g) => byGroup.has(g)) ?? [...byGroup.keys()].sort((a, b) => (byGroup.get(b)?.length ?? 0) - (byGroup.get(a)?.length ?? 0)).slice(0, 8);
   const labels = await groupLabels(user, query.by, groupIds);
@@ -221,11 +229,11 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     label: labels.get(g) ?? `#${g}`,
     runs: (byGroup.get(g) ?? []).map((r) => ({
       targetLoadN: r.target_load_n,
-      finalLoadsN: JSON.parse(r.final_loads_json) as number[],
-      driftPercent: r.drift_json ? (JSON.parse(r.drift_json) as (number | null)[]) : [],
+      finalLoadsN: finalLoadsOf(r),
+      driftPercent: driftOf(r),
       operator: r.operator_id,
       // Set-aside runs have no place in the operator's sequence of complete runs.
-      attempt: r.attempt ?? null,
+      attempt: attemptOf.get(r.id) ?? null,
       stored: r.final_mean_n !== null && r.final_sd_n !== null ? { meanN: Number(r.final_mean_n), sdN: Number(r.final_sd_n) } : null,
       relaxationPercent: relaxation.get(Number(r.id)) ?? null,
     })),
@@ -243,7 +251,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
  * against the final loads (`finalHoldRelaxationPercent`). Runs whose holds all follow an earlier
  * pass (a retightening came after) or that have none are left out.
  */
-async function relaxationByRun(rows: readonly (RunRowSql & RunLoadsSql)[]): Promise<Map<number, number>> {
+async function relaxationByRun(rows: readonly RunRowSql[]): Promise<Map<number, number>> {
   const out = new Map<number, number>();
   if (rows.length === 0) return out;
   // Most runs have no hold: find the few that do first, so the last-pass scan below reads their steps only.
@@ -265,11 +273,24 @@ async function relaxationByRun(rows: readonly (RunRowSql & RunLoadsSql)[]): Prom
   for (const row of rows) {
     const held = loadsByRun.get(Number(row.id));
     if (!held) continue;
-    const finals = JSON.parse(row.final_loads_json) as number[];
+    const finals = finalLoadsOf(row);
     const value = finalHoldRelaxationPercent(finals, finals.map((_, i) => held.get(i + 1) ?? Number.NaN));
     if (value !== null) out.set(Number(row.id), value);
   }
   return out;
+}
+
+/** Each run's attempt number (1-based) from the complete runs in (operator, recorded_at, id) order. */
+function attemptNumbers(sequence: readonly { operator_id: number; id: number }[]): Map<number, number> {
+  const attempts = new Map<number, number>();
+  let operator: number | null = null;
+  let n = 0;
+  for (const run of sequence) {
+    n = run.operator_id === operator ? n + 1 : 1;
+    operator = run.operator_id;
+    attempts.set(run.id, n);
+  }
+  return attempts;
 }
 
 async function groupLabels(user: SessionUser, by: CompareBy, ids: number[]): Promise<Map<number, string>> {

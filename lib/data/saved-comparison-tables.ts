@@ -56,3 +56,14 @@ export async function dataTables(slug: string, runs: readonly FrozenRun[], group
   const lines = DATA_TABLES.map((t) => `${sha256Hex(files[t.path]!)}  ${t.path}\n`).join('');
   return { files, dataSha256: sha256Hex(lines) };
 }
+
+/**
+ * A cheap stand-in for the data hash: sha256 of each run's id and last change (`runs.updated_at`,
+ * which every write of a run's row, steps or readings moves; a missing run drops its line). Equal
+ * fingerprints mean the data tables are as they were; a different one means they may have changed,
+ * and the tables are rebuilt to tell.
+ */
+export async function runsFingerprint(ids: readonly number[]): Promise<string> {
+  const rows = ids.length ? await sequelize.query<{ id: number; updated_at: Date }>('SELECT id, updated_at FROM runs WHERE id IN (?) ORDER BY id', { type: QueryTypes.SELECT, replacements: [ids] }) : [];
+  return sha256Hex(rows.map((r) => `${r.id}:${new Date(r.updated_at).toISOString()}\n`).join(''));
+}

@@ -15,7 +15,7 @@ import { SavedComparison, sequelize, User } from '@/models';
 import { pseudonymiseJson, type Replacement } from '../saved-comparisons/pseudonymise';
 import { pseudonymFor } from './pseudonym';
 import { comparisonRunKeys, compareQuerySchema, compareRunsJson, type CompareQuery, type CompareResponse } from './compare';
-import { dataTables, sha256Hex, type DataTables, type FrozenRun } from './saved-comparison-tables';
+import { dataTables, runsFingerprint, sha256Hex, type DataTables, type FrozenRun } from './saved-comparison-tables';
 import { runScopeSql } from './scope';
 
 /** A frozen comparison carries every reading of its runs in its package; above this many runs, narrow the filters. */
@@ -52,6 +52,8 @@ export async function freezeComparison(user: SessionUser, input: { title: string
   if (runs.length > MAX_FROZEN_RUNS) throw new AppError('invalid_input', `A saved comparison holds at most ${MAX_FROZEN_RUNS} runs; this one has ${runs.length}. Narrow the filters first.`);
   if (runs.length !== results.totalRuns) throw new AppError('conflict', 'Runs changed while the comparison was being frozen. Try again.');
   const slug = randomBytes(9).toString('base64url').replace(/[-_]/g, 'x').slice(0, 12).toLowerCase();
+  // The fingerprint first: a run changing after it makes the page check the long way, never the reverse.
+  const fingerprint = await runsFingerprint(runs.map((r) => r.id));
   const { dataSha256 } = await dataTables(slug, runs, labelsOf(results));
   await SavedComparison.create({
     slug,
@@ -62,6 +64,7 @@ export async function freezeComparison(user: SessionUser, input: { title: string
     resultsJson: JSON.stringify(results),
     softwareVersion: softwareVersion(),
     dataSha256,
+    runsFingerprint: fingerprint,
     createdAt: new Date(),
   });
   return { slug };
@@ -93,11 +96,24 @@ type SavedComparisonFull = SavedComparisonView & { runs: FrozenRun[]; tables: Da
 const NOT_FOUND = 'This saved comparison does not exist, or it holds runs you may not see.';
 const frozenRuns = (row: SavedComparison): FrozenRun[] => (JSON.parse(row.runIdsJson) as [number, string][]).map(([id, group]) => ({ id, group }));
 
+/**
+ * Whether the runs' data tables still hash to the frozen sha256. When the runs' fingerprint (ids and
+ * last changes) is the one stored, nothing changed and no table is built; otherwise the tables are
+ * rebuilt and hashed, and when they still match, the new fingerprint is stored for the next view.
+ */
+async function changedSinceFrozen(row: SavedComparison, original: FrozenRun[], labels: Map<string, string>): Promise<{ dataChanged: boolean; tables: DataTables | null }> {
+  const fingerprint = await runsFingerprint(original.map((r) => r.id));
+  if (row.runsFingerprint === fingerprint) return { dataChanged: false, tables: null };
+  const tables = await dataTables(row.slug, original, labels);
+  const dataChanged = tables.dataSha256 !== row.dataSha256;
+  if (!dataChanged) await SavedComparison.update({ runsFingerprint: fingerprint }, { where: { id: row.id } });
+  return { dataChanged, tables };
+}
+
 /** The view of a saved comparison row (results as frozen; the data tables recomputed to tell whether they changed). */
 async function viewOf(row: SavedComparison, results: CompareResponse, query: CompareQuery, runs: FrozenRun[], original: FrozenRun[], originalLabels: Map<string, string>): Promise<SavedComparisonFull> {
   const facts = { title: row.title, author: row.createdBy?.name ?? 'Unknown', createdAt: row.createdAt.toISOString(), link: `${appBaseUrl()}/compare/saved/${row.slug}`, dataSha256: row.dataSha256 };
-  const tables = await dataTables(row.slug, original, originalLabels);
-  const dataChanged = tables.dataSha256 !== row.dataSha256;
+  const { dataChanged, tables } = await changedSinceFrozen(row, original, originalLabels);
   return {
     ...facts,
     slug: row.slug,
@@ -110,7 +126,7 @@ async function viewOf(row: SavedComparison, results: CompareResponse, query: Com
     results,
     headline: headlineOf(results),
     runs,
-    // The tables serve the package as they are only when the runs were not relabelled for a reviewer.
+    // The tables (when they were rebuilt) serve the package only when the runs were not relabelled for a reviewer.
     tables: runs === original ? tables : null,
   };
 }

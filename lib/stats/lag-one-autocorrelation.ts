@@ -1,7 +1,7 @@
 import { sum } from 'simple-statistics';
 import { StatsError } from './stats-error';
 import { assertValues } from './internal/assert-values';
-import { centredSums } from './internal/centred-sums';
+import { centredSums, scaledDeviations } from './internal/centred-sums';
 import { mean } from './mean';
 
 /**
@@ -22,7 +22,9 @@ import { mean } from './mean';
  */
 export function lagOneAutocorrelation(values: readonly number[]): number {
   assertValues('lagOneAutocorrelation', values, 2);
-  const { q, scaled } = centredSums(values, mean(values));
+  const centre = mean(values);
+  const { scale, q } = centredSums(values, centre);
+  const scaled = scaledDeviations(values, centre, scale);
   if (q === 0) throw new StatsError('lagOneAutocorrelation requires values that are not all equal');
   const products: number[] = [];
   for (let i = 0; i + 1 < scaled.length; i++) products.push(scaled[i]! * scaled[i + 1]!);

@@ -1,5 +1,6 @@
 import { sum } from 'simple-statistics';
 import { assertValues } from './internal/assert-values';
+import { compensatedSumOf } from './internal/compensated-sum-of';
 
 /**
  * Arithmetic mean of a sample.
@@ -21,8 +22,10 @@ export function mean(values: readonly number[]): number {
   assertValues('mean', values, 1);
   const n = values.length;
   let first = sum(values as number[]) / n;
-  if (!Number.isFinite(first)) first = sum(values.map((v) => v / n));
-  const correction = sum(values.map((v) => v - first)) / n;
+  // The same sums as sum(values.map(…)), without the copies (compensatedSumOf).
+  if (!Number.isFinite(first)) first = compensatedSumOf(values, (v) => v / n);
+  const centre = first;
+  const correction = compensatedSumOf(values, (v) => v - centre) / n;
   const refined = first + correction;
   return Number.isFinite(refined) ? refined : first;
 }

@@ -28,6 +28,7 @@ import { sequelize } from '../../lib/platform/db';
 import { env } from '../../lib/platform/env';
 import { startAppServer } from '../../tests/support/app-server';
 import { DEMO_ACCOUNTS, signInAs } from '../../tests/support/http-session';
+import { encodeFloat64Blob } from '../../lib/record/float64-blob';
 import { ingestInput } from './ingest-input';
 import { benchUploadPressure } from './upload-pressure';
 
@@ -83,6 +84,9 @@ async function benchIngest() {
   rows.push(['ingest peak memory', `${ingest.maxRssMb.toFixed(0)} MB max RSS`, '', ingest.maxRssMb < 500 ? 'under 500 MB' : 'OVER 500 MB']);
 }
 
+/** The float64 bytes storeRun writes beside the JSON (lib/record/float64-blob.ts), as a SQL hex literal. */
+const hexBlob = (values: number[]) => `X'${Buffer.from(encodeFloat64Blob(values)).toString('hex')}'`;
+
 async function ensureCompareRuns(): Promise<number[]> {
   const wanted = 10_000;
   const ids = await demoIds();
@@ -104,9 +108,9 @@ async function ensureCompareRuns(): Promise<number[]> {
       const m = loads.reduce((a, b) => a + b, 0) / 8;
       const sd = Math.sqrt(loads.reduce((a, b) => a + (b - m) ** 2, 0) / 7);
       const drift = loads.map((_, p) => -10 * spread * (8 - p) * rand());
-      batch.push(`(${ids.jointId},${methods[group]},${ids.lubricantId},${ids.operatorId},NULL,60000,10,'simulated','complete',NOW(),'bench compare run',8,8,1,${m},${sd},${sd / m},${Math.min(...loads)},${Math.max(...loads)},'${JSON.stringify(loads)}','${JSON.stringify(drift)}',NOW(),NOW())`);
+      batch.push(`(${ids.jointId},${methods[group]},${ids.lubricantId},${ids.operatorId},NULL,60000,10,'simulated','complete',NOW(),'bench compare run',8,8,1,${m},${sd},${sd / m},${Math.min(...loads)},${Math.max(...loads)},'${JSON.stringify(loads)}','${JSON.stringify(drift)}',${hexBlob(loads)},${hexBlob(drift)},NOW(),NOW())`);
     }
-    await sequelize.query(`INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status, recorded_at, notes, stud_count, step_count, pass_count, final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, created_at, updated_at) VALUES ${batch.join(',')}`);
+    await sequelize.query(`INSERT INTO runs (joint_id, method_id, lubricant_id, operator_id, cohort_id, target_load_n, band_percent, source, status, recorded_at, notes, stud_count, step_count, pass_count, final_mean_n, final_sd_n, final_cv, final_min_n, final_max_n, final_loads_json, drift_json, final_loads_f64, drift_f64, created_at, updated_at) VALUES ${batch.join(',')}`);
   }
   // Spread the runs over several operators (the trainees as blocks of the mixed model).
   const operators = (await q<{ id: number }>("SELECT id FROM users WHERE role = 'trainee' ORDER BY id LIMIT 12")).map((u) => u.id);

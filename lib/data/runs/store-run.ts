@@ -2,7 +2,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { AppError } from '../../http/errors';
 import type { NormalisedRun } from '../../record/run-types';
 import { Run, sequelize } from '../../../models';
-import { storedRunFigures } from '../../record/run-figures';
+import { storedRunFigures, type StoredRunFigures } from '../../record/run-figures';
+import { float64BlobOfJson } from '../../record/float64-blob';
 import { runPins } from '../joint-versions';
 import type { RunSource, RunStatus } from '@/models/run';
 import type { RunCheckReason } from '../../run-check/types';
@@ -57,6 +58,14 @@ export async function storeRun(header: RunHeader, run: NormalisedRun, transactio
   return (await storeRunWithStatus(header, run, transaction)).runId;
 }
 
+const asBuffer = (bytes: Uint8Array | null) => (bytes ? Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength) : null);
+
+/** The run's stored figures with the float64 bytes of the same final loads and drift (what comparisons read). */
+function figuresToStore(run: NormalisedRun): StoredRunFigures & { finalLoadsF64: Buffer | null; driftF64: Buffer | null } {
+  const figures = storedRunFigures(run);
+  return { ...figures, finalLoadsF64: asBuffer(float64BlobOfJson(figures.finalLoadsJson)), driftF64: asBuffer(float64BlobOfJson(figures.driftJson)) };
+}
+
 /** {@link storeRun}, also giving the status the run was stored with and the check's reasons. */
 export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, transaction: Transaction): Promise<{ runId: number; status: RunStatus; reasons: RunCheckReason[] }> {
   if (run.steps.some((step) => step.loadsN.length !== run.studCount)) {
@@ -79,7 +88,7 @@ export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, 
       setAsideReason: header.setAsideReason ?? null,
       setAsideById: header.setAsideById ?? null,
       notes: header.notes ?? null,
-      ...storedRunFigures(run),
+      ...figuresToStore(run),
     },
     { transaction },
   );
@@ -193,7 +202,7 @@ export async function completeRecordedRun(runId: number, ids: { jointId: number;
  * (a live run finished, a correction): every path that changes readings calls this.
  */
 export async function refreshRunFigures(runId: number, run: NormalisedRun, transaction: Transaction): Promise<void> {
-  const { studCount: _unchanged, ...figures } = storedRunFigures(run);
+  const { studCount: _unchanged, ...figures } = figuresToStore(run);
   await Run.update(figures, { where: { id: runId }, transaction });
   await storeRunAnalysis(runId, run, transaction);
 }

@@ -1,30 +1,35 @@
-import { sum } from 'simple-statistics';
+import { compensatedSumOf } from './compensated-sum-of';
 import { powerOfTwoScale } from './power-of-two-scale';
 
 /**
  * Deviations from a centre and their corrected sum of squares, computed with a power-of-two
- * scale: returns `scale` and `q` such that Σ(x − c)² = scale² · q, plus the scaled deviations.
+ * scale: returns `scale` and `q` such that Σ(x − c)² = scale² · q (`scaledDeviations` gives the
+ * scaled deviations when a caller needs them).
  * q uses the corrected two-pass formula q = Σe² − (Σe)²/n (Chan, Golub & LeVeque 1983), which
  * removes the first-order error left when the centre is a rounded mean. Sums are
- * Kahan–Babuška–Neumaier compensated (simple-statistics `sum`).
+ * Kahan–Babuška–Neumaier compensated, the same operations as simple-statistics `sum` over the
+ * scaled deviations (`compensatedSumOf`), without allocating them.
  *
  * References: Chan, Golub & LeVeque, "Algorithms for computing the sample variance", The American
  * Statistician 37 (1983) 242–247; Neumaier, ZAMM 54 (1974) 39–51.
  * @throws never (callers validate)
  * @example
- * centredSums([1, 2, 3], 2); // { scale: 1, q: 2, scaled: [-1, 0, 1] }
+ * centredSums([1, 2, 3], 2); // { scale: 1, q: 2 }
  */
-export function centredSums(
-  values: readonly number[],
-  centre: number,
-): { scale: number; q: number; scaled: number[] } {
-  const deviations = values.map((v) => v - centre);
+export function centredSums(values: ArrayLike<number>, centre: number): { scale: number; q: number } {
   let maxAbs = 0;
-  for (const d of deviations) maxAbs = Math.max(maxAbs, Math.abs(d));
+  for (let i = 0; i < values.length; i++) maxAbs = Math.max(maxAbs, Math.abs(values[i]! - centre));
   const scale = powerOfTwoScale(maxAbs);
-  const scaled = deviations.map((d) => d / scale);
-  const s1 = sum(scaled);
-  const s2 = sum(scaled.map((e) => e * e));
+  const s1 = compensatedSumOf(values, (v) => (v - centre) / scale);
+  const s2 = compensatedSumOf(values, (v) => {
+    const e = (v - centre) / scale;
+    return e * e;
+  });
   const q = Math.max(0, s2 - (s1 * s1) / values.length);
-  return { scale, q, scaled };
+  return { scale, q };
+}
+
+/** The deviations from `centre` divided by `scale` (as `centredSums` sums them). */
+export function scaledDeviations(values: readonly number[], centre: number, scale: number): number[] {
+  return values.map((v) => (v - centre) / scale);
 }
