@@ -95,6 +95,9 @@ interface RunRowSql {
 /** The stud-level columns, read by a second query in the same order (by run id). */
 interface RunLoadsSql {
   final_loads_json: string;
+  /** Stored gasket figures (lib/record/run-gasket-figures.ts); null without a gasket contact area. */
+  final_gasket_stress_mpa: number | null;
+  gasket_min_seating_mpa: number | null;
   drift_json?: string | null;
 }
 
@@ -200,7 +203,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
        ) x WHERE x.chosen ORDER BY x.id`,
       { type: QueryTypes.SELECT, replacements: [...params, ...params, ...params] },
     ),
-    sequelize.query<RunLoadsSql>(`SELECT r.final_loads_json${oneStudCount ? ', r.drift_json' : ''} FROM runs r WHERE ${chosen} ORDER BY r.id`, { type: QueryTypes.SELECT, replacements: params }),
+    sequelize.query<RunLoadsSql>(`SELECT r.final_loads_json, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa${oneStudCount ? ', r.drift_json' : ''} FROM runs r WHERE ${chosen} ORDER BY r.id`, { type: QueryTypes.SELECT, replacements: params }),
   ]);
   if (rows.length !== loads.length) throw new AppError('conflict', 'Runs changed while the comparison was being computed. Try again.');
   const byGroup = new Map<number, (RunRowSql & RunLoadsSql)[]>();
@@ -228,6 +231,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
       attempt: r.attempt ?? null,
       stored: r.final_mean_n !== null && r.final_sd_n !== null ? { meanN: Number(r.final_mean_n), sdN: Number(r.final_sd_n) } : null,
       relaxationPercent: relaxation.get(Number(r.id)) ?? null,
+      gasket: r.final_gasket_stress_mpa === null ? null : { stressMpa: Number(r.final_gasket_stress_mpa), minSeatingMpa: r.gasket_min_seating_mpa === null ? null : Number(r.gasket_min_seating_mpa) },
     })),
   }));
   const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });
