@@ -20,6 +20,9 @@ const VARIANT_LINE: Record<CautionVariant, string> = {
     'The rig studs are loaded: keep hands clear of the reaction arm and the flange gap, and stay out of line with the studs while a tool is working.',
 };
 
+/** The caution shown wherever gasket stress is (the run report, the classroom). */
+export const GASKET_STRESS_CAUTION = "Going past the gasket's maximum stress crushes it. Follow the gasket maker's data, the owner's procedures and qualified engineering judgement.";
+
 export interface CautionBlockProps {
   /** Adds the line for the place the block is shown. Without it, only the common lines. */
   variant?: CautionVariant;

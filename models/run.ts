@@ -41,6 +41,9 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare stepCount: CreationOptional<number>;
   declare passCount: CreationOptional<number>;
   declare finalMeanN: CreationOptional<number | null>;
+  /** Average gasket stress after the final step, MPa, and the recorded joint's minimum seating stress (lib/record/run-gasket-figures.ts). */
+  declare finalGasketStressMpa: CreationOptional<number | null>;
+  declare gasketMinSeatingMpa: CreationOptional<number | null>;
   declare finalSdN: CreationOptional<number | null>;
   declare finalCv: CreationOptional<number | null>;
   declare finalMinN: CreationOptional<number | null>;
@@ -101,6 +104,8 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         driftJson: { type: DataTypes.TEXT, allowNull: true },
         finalLoadsF64: { type: DataTypes.BLOB, allowNull: true },
         driftF64: { type: DataTypes.BLOB, allowNull: true },
+        finalGasketStressMpa: { type: DataTypes.DOUBLE, allowNull: true },
+        gasketMinSeatingMpa: { type: DataTypes.DOUBLE, allowNull: true },
         createdAt: { type: DataTypes.DATE, allowNull: false },
         updatedAt: { type: DataTypes.DATE, allowNull: false },
         jointVersionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

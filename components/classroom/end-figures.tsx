@@ -8,12 +8,14 @@ import type { SideFigures } from '@/lib/classroom/figures';
 import { IDLE_FORM_STATE } from '@/lib/http/form-state';
 import type { ClassroomCohort } from '@/lib/data/classroom';
 import type { BuiltScene } from './scene-model';
+import { GasketPassStress } from './gasket-pass-stress';
+import type { UnitSystem } from '@/lib/calc/units';
 
 const pct = (fraction: number) => formatPercentFixed(fraction * 100);
 const pctOf = (percent: number, signed = false) => formatPercentFixed(percent, { signed });
 
 /** The end of a scene: the final-load figures side by side, the reading, and saving the simulated runs to a cohort. */
-export function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohorts: ClassroomCohort[]; seed: number }) {
+export function EndFigures({ scene, cohorts, seed, units }: { scene: BuiltScene; cohorts: ClassroomCohort[]; seed: number; units: UnitSystem }) {
   const figures = scene.figures;
   const [state, formAction, pending] = useActionState(saveSceneAction, IDLE_FORM_STATE);
   if (!figures) return null;
@@ -48,6 +50,7 @@ export function EndFigures({ scene, cohorts, seed }: { scene: BuiltScene; cohort
           {figures.scatterReading ? <p className="text-3xl leading-snug">{figures.scatterReading}</p> : null}
           <p className={figures.scatterReading ? 'mt-2 text-2xl leading-snug text-muted' : 'text-3xl leading-snug'}>{figures.cvReading}</p>
         </div>
+        <GasketPassStress scene={scene} units={units} />
       </section>
       <aside className="space-y-4">
         <CautionBlock variant="classroom" />

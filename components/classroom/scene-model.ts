@@ -3,6 +3,7 @@ import type { RunAnalysis } from '@/lib/analysis/types';
 import { placeAmongSimulated, runFigures, sceneFigures, sideFigures, type SceneFigures } from '@/lib/classroom/figures';
 import { SCENES, sceneSetup, seedFamily, sideForRealRun, simulateSide, type Library, type SceneKey } from '@/lib/classroom/scenes';
 import type { NormalisedRun } from '@/lib/record/run-types';
+import type { GasketForStress } from '@/lib/joints/gasket-input';
 
 /** What the stage draws for one scene: each side's shown run and the end figures. */
 export interface BuiltScene {
@@ -17,6 +18,8 @@ export interface BuiltScene {
   jointId: number | null;
   targetLoadN: number;
   bandPercent: number;
+  /** The joint's gasket (as recorded for a measured run), for the gasket stress after each pass; null without a contact area. */
+  gasket: GasketForStress | null;
 }
 
 export interface RealRunInput {
@@ -27,13 +30,15 @@ export interface RealRunInput {
   lubricantId: number;
   bandPercent: number;
   run: NormalisedRun;
+  /** The run's joint gasket as recorded (the run report's). */
+  gasket?: GasketForStress | null;
 }
 
 const SUBJECT: Record<SceneKey, string> = { passes: 'these methods', pattern: 'these orders', lube: 'these lubricants', tool: 'these tools', real: 'these runs' };
 
 export function buildScene(key: SceneKey, library: Library, jointId: number | null, seed: number, real: RealRunInput | null): BuiltScene {
   const info = SCENES[key];
-  const empty = (problems: string[]): BuiltScene => ({ key, title: info.title, sides: [], totalSteps: 0, figures: null, problems, saveable: false, jointId, targetLoadN: 0, bandPercent: 10 });
+  const empty = (problems: string[]): BuiltScene => ({ key, title: info.title, sides: [], totalSteps: 0, figures: null, problems, saveable: false, jointId, targetLoadN: 0, bandPercent: 10, gasket: null });
   if (key === 'real') {
     if (!real) return empty(['No run to show: record a run in one of your cohorts (Record), or pick one in the scene list.']);
     const joint = library.joints.find((j) => j.id === real.jointId);
@@ -66,6 +71,7 @@ export function buildScene(key: SceneKey, library: Library, jointId: number | nu
       jointId: joint.id,
       targetLoadN: real.run.targetLoadN,
       bandPercent: real.bandPercent,
+      gasket: real.gasket ?? null,
     };
   }
   if (jointId === null) return empty(['No joint in the library: add one under Joints first.']);
@@ -91,5 +97,6 @@ export function buildScene(key: SceneKey, library: Library, jointId: number | nu
     jointId: joint.id,
     targetLoadN: joint.targetLoadN,
     bandPercent: joint.bandPercent,
+    gasket: joint.gasket ?? null,
   };
 }

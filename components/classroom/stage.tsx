@@ -52,7 +52,7 @@ export function Stage({ scene, step, sceneNumber, sceneCount, units, cohorts, se
       {scene.problems.length && !scene.sides.length ? (
         <div className="mt-8 space-y-3 text-3xl">{scene.problems.map((p) => <p key={p}>{p}</p>)}</div>
       ) : atEnd ? (
-        <EndFigures scene={scene} cohorts={cohorts} seed={seed} />
+        <EndFigures scene={scene} cohorts={cohorts} seed={seed} units={units} />
       ) : (
         <div className="flex flex-col gap-2">
           {scene.sides.map((side) => (

@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import { formatNumber } from '@/lib/calc/units';
+import { formatNumber, type UnitSystem } from '@/lib/calc/units';
 import type { CompareResponse } from '@/lib/data/compare';
 import type { RunFilterOptions } from '@/lib/data/runs';
 import { fetchJson } from '@/lib/http/fetch-json';
@@ -15,7 +15,7 @@ import { FreezeComparison } from './freeze-comparison';
 
 const SOURCE_WORDS = { measured: 'measured', simulated: 'simulated', both: 'measured and simulated' } as const;
 
-export function CompareView({ options }: { options: RunFilterOptions }) {
+export function CompareView({ options, units = 'si' }: { options: RunFilterOptions; units?: UnitSystem }) {
   const { params, update } = useUrlState();
   const by = (params.get('by') ?? 'method') as ByChoice;
   const ids = (params.get('ids') ?? '').split(',').filter(Boolean);
@@ -79,7 +79,7 @@ export function CompareView({ options }: { options: RunFilterOptions }) {
               {data.warnings.map((w) => <li key={w}>{w}</li>)}
             </ul>
           ) : null}
-          <CompareGroupsTable groups={data.groups} />
+          <CompareGroupsTable groups={data.groups} units={units} />
           <CompareCharts data={data} onPickStudCount={(n) => update({ studCount: String(n) })} />
           <CompareTests data={data} />
           <ComparePlanner planner={data.planner} />

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
+import type { UnitSystem } from '@/lib/calc/units';
 import type { SavedComparisonView as SavedView } from '@/lib/data/saved-comparisons';
 import { TEST_QUESTIONS, type ComparisonTestId } from '@/lib/analysis/compare-types';
 import { formatDateTime } from '@/lib/format/format-date';
@@ -26,7 +27,7 @@ function valueWords(name: string, value: unknown): string {
  * a warning when its runs changed after it was frozen. `review`: opened through a review link
  * (no link to the live Compare page; `children` holds the author's review links otherwise).
  */
-export function SavedComparisonView({ saved, packageHref, review = false, children }: { saved: SavedView; packageHref: string; review?: boolean; children?: ReactNode }) {
+export function SavedComparisonView({ saved, packageHref, review = false, units = 'si', children }: { saved: SavedView; packageHref: string; review?: boolean; units?: UnitSystem; children?: ReactNode }) {
   const { results } = saved;
   const filters = Object.entries(saved.query).filter(([, v]) => v !== undefined);
   return (
@@ -67,7 +68,7 @@ export function SavedComparisonView({ saved, packageHref, review = false, childr
           {results.warnings.map((w) => <li key={w}>{w}</li>)}
         </ul>
       ) : null}
-      <CompareGroupsTable groups={results.groups} />
+      <CompareGroupsTable groups={results.groups} units={units} />
       <CompareCharts data={results} />
       <CompareTests data={results} />
       <ComparePlanner planner={results.planner} />

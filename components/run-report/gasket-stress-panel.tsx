@@ -1,12 +1,11 @@
 'use client';
 
 import type { PassSummary } from '@/lib/analysis/types';
-import { gasketStressLevel, gasketStressSummary, type GasketStressLevel } from '@/lib/calc/gasket';
+import { gasketStressLevel, gasketStressSummary } from '@/lib/calc/gasket';
+import { gasketLimitsSentence, LEVEL_CLASS, LEVEL_TEXT } from '@/components/gasket-stress-level';
 import { formatNumber, formatStress, type UnitSystem } from '@/lib/calc/units';
 import type { RunGasketDto } from '@/lib/data/run-report';
-
-const LEVEL_TEXT: Record<GasketStressLevel, string> = { below_seating: 'below seating', within: 'within limits', above_max: 'above the maximum', unknown: '' };
-const LEVEL_CLASS: Record<GasketStressLevel, string> = { below_seating: 'text-caution', within: 'text-good', above_max: 'text-danger', unknown: 'text-muted' };
+import { GASKET_STRESS_CAUTION } from '@/components/caution-block';
 
 const positionsText = (positions: number[]) => (positions.length === 0 ? 'none' : positions.join(', '));
 
@@ -18,13 +17,12 @@ export function GasketStressPanel({ gasket, passes, finalLoadsN, units }: { gask
   const limits = { minSeatingMpa: gasket.minSeatingMpa, maxMpa: gasket.maxMpa };
   const stress = (mpa: number) => formatStress(mpa, units);
   const final = gasketStressSummary(finalLoadsN, gasket.areaMm2, limits);
-  const limitText = [gasket.minSeatingMpa === null ? null : `seating ${stress(gasket.minSeatingMpa)}`, gasket.maxMpa === null ? null : `maximum ${stress(gasket.maxMpa)}`].filter(Boolean).join(', ');
   return (
     <section aria-labelledby="gasket-heading" className="rounded-card border border-rule bg-panel p-4">
       <h2 id="gasket-heading" className="text-lg font-semibold">Gasket stress</h2>
       <p className="mt-1 text-sm text-muted">
         Average = total stud load ÷ contact area. Per position: each stud&apos;s load over its share of the ring (an estimate; the flange spreads a stud&apos;s load over its neighbours).
-        {limitText ? ` Limits: ${limitText}${gasket.source ? ` (${gasket.source})` : ''}.` : ' No stress limits are set on this joint.'}
+        {gasketLimitsSentence(gasket, units)}
       </p>
       <div className="overflow-x-auto">
         <table className="mt-2 w-full text-sm">
@@ -60,9 +58,7 @@ export function GasketStressPanel({ gasket, passes, finalLoadsN, units }: { gask
           );
         })}
       </ul>
-      <p className="mt-3 text-xs text-muted">
-        Going past the gasket&apos;s maximum stress crushes it. Follow the gasket maker&apos;s data, the owner&apos;s procedures and qualified engineering judgement.
-      </p>
+      <p className="mt-3 text-xs text-muted">{GASKET_STRESS_CAUTION}</p>
     </section>
   );
 }

@@ -6,6 +6,7 @@ import { varianceComponentsFromSummaries, type VarianceRunSummary } from '../sta
 import { boxStats } from '../charts/box-stats';
 import { pooledSdLogCv, relaxationTest, runCvPairs, runLevelTests, type RawTest, type RunLevelGroup } from './compare-run-tests';
 import { traineeBlocks } from './compare-trainee-blocks';
+import { groupGasketFigures } from './group-gasket';
 import type { ComparedRun, ComparisonResult, ComparisonTest, ComparisonTestId, GroupInput, GroupSummary } from './compare-types';
 import type { BoxSummary, ComparisonGroupData } from './types';
 import { formatDecimals, formatInputValue } from '@/lib/calc/units';
@@ -141,6 +142,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       components: componentsOf(input.runs),
       meanRelaxationPercent: safeMean(level.relaxationPercent),
       runsWithHold: level.relaxationPercent.length,
+      gasket: groupGasketFigures(input.runs),
     });
     const drift = studCounts.length === 1 ? meanDriftByPosition(input.runs, studCounts[0]!) : [];
     const large = loadsPercent.length > MAX_DOTS_PER_GROUP || cvs.length > MAX_DOTS_PER_GROUP;

@@ -17,6 +17,8 @@ export interface ComparedRun {
   stored?: { meanN: number; sdN: number } | null;
   /** Mean % of final load lost by the last hold reading after the last pass; null or absent without such a hold. */
   relaxationPercent?: number | null;
+  /** Average gasket stress after the final step (MPa) and the joint's minimum seating stress as recorded; null or absent without gasket data. */
+  gasket?: { stressMpa: number; minSeatingMpa: number | null } | null;
 }
 
 export interface GroupInput {
@@ -51,6 +53,18 @@ export interface GroupSummary {
   /** Mean relaxation (% of final load lost during the hold after the last pass) over the runs that have one, and how many do. */
   meanRelaxationPercent: number | null;
   runsWithHold: number;
+  /** Gasket stress over the runs with gasket data (lib/analysis/group-gasket.ts); absent in comparisons saved before it. */
+  gasket?: GroupGasketFigures;
+}
+
+/** Mean average gasket stress after the final step (MPa) and the share of runs whose average reaches the seating stress. */
+export interface GroupGasketFigures {
+  /** Null when no run of the group has gasket data. */
+  meanStressMpa: number | null;
+  runsWithGasket: number;
+  /** Fraction of the runs with a known seating stress whose average reaches it; null when none has one. */
+  seatedShare: number | null;
+  runsWithSeating: number;
 }
 
 /** The tests a comparison runs; one of them is chosen as planned before the data is seen. */

@@ -1,3 +1,4 @@
+import type { GasketForStress } from '@/lib/joints/gasket-input';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import { isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
@@ -71,6 +72,8 @@ export interface LibraryJoint {
   bandPercent: number;
   /** Nominal stud diameter D in m (T = K·D·F). */
   studDiameterM: number;
+  /** The joint's gasket contact area and stress limits; null or absent when its contact area is not known. */
+  gasket?: GasketForStress | null;
 }
 
 export interface LibraryMethodPass {

@@ -3,6 +3,7 @@ import { Op } from 'sequelize';
 import { AppError } from '../http/errors';
 import { sceneSetup, seedFamily, simulateSide, SCENES, type Library, type SceneKey } from '../classroom/scenes';
 import { studDiameterM } from '../joints/joint-properties';
+import { gasketForStress, jointGasketOf } from '../joints/gasket-input';
 import { currentCohortOf } from '../cohorts/current-cohort';
 import { storeRun as storeRunInDb } from './runs/store-run';
 import { assertRole, type SessionUser } from '../auth/session';
@@ -35,7 +36,7 @@ export async function classroomLibrary(user: SessionUser): Promise<Library> {
     Lubricant.findAll({ order: [['id', 'ASC']] }),
   ]);
   return {
-    joints: joints.map((j) => ({ id: j.id, name: j.name, studCount: j.studCount, targetLoadN: j.targetLoadN, bandPercent: j.bandPercent, studDiameterM: studDiameterM(j) })),
+    joints: joints.map((j) => ({ id: j.id, name: j.name, studCount: j.studCount, targetLoadN: j.targetLoadN, bandPercent: j.bandPercent, studDiameterM: studDiameterM(j), gasket: gasketForStress(jointGasketOf(j)) })),
     methods: methods.map((m) => ({
       id: m.id,
       name: m.name,

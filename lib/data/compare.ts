@@ -96,6 +96,9 @@ interface RunRowSql {
   final_loads_f64: Uint8Array | null;
   final_loads_json: string | null;
   drift_f64?: Uint8Array | null;
+  /** Stored gasket figures (lib/record/run-gasket-figures.ts); null without a gasket contact area. */
+  final_gasket_stress_mpa: number | null;
+  gasket_min_seating_mpa: number | null;
   drift_json?: string | null;
 }
 
@@ -199,7 +202,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
   // (what ROW_NUMBER() over each operator's complete runs gives, without the window's sort).
   const [rows, sequence] = await Promise.all([
     sequelize.query<RunRowSql>(
-      `SELECT r.id, ${column} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n,
+      `SELECT r.id, ${column} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa,
               r.final_loads_f64, IF(r.final_loads_f64 IS NULL, r.final_loads_json, NULL) AS final_loads_json${oneStudCount ? ', r.drift_f64, IF(r.drift_f64 IS NULL, r.drift_json, NULL) AS drift_json' : ''}
        FROM runs r WHERE ${chosen} ORDER BY r.id`,
       { type: QueryTypes.SELECT, replacements: params },
@@ -236,6 +239,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
       attempt: attemptOf.get(r.id) ?? null,
       stored: r.final_mean_n !== null && r.final_sd_n !== null ? { meanN: Number(r.final_mean_n), sdN: Number(r.final_sd_n) } : null,
       relaxationPercent: relaxation.get(Number(r.id)) ?? null,
+      gasket: r.final_gasket_stress_mpa === null ? null : { stressMpa: Number(r.final_gasket_stress_mpa), minSeatingMpa: r.gasket_min_seating_mpa === null ? null : Number(r.gasket_min_seating_mpa) },
     })),
   }));
   const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });

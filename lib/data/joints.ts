@@ -3,6 +3,7 @@ import { fn, col, UniqueConstraintError } from 'sequelize';
 import { nextVersion } from './optimistic-lock';
 import { recordJointVersion } from './joint-versions';
 import { forgetMethodAnalyses } from './runs/stored-analysis';
+import { refreshGasketFigures } from './runs/gasket-figures';
 import { AppError } from '@/lib/http/errors';
 import type { JointInput } from '@/lib/joints/joint-input';
 import { jointGasketOf, type JointGasket } from '@/lib/joints/gasket-input';
@@ -246,6 +247,8 @@ export async function saveJoint(user: SessionUser, id: number | null, input: Joi
       { transaction },
     );
     await recordJointVersion(jointId, transaction);
+    // Runs pinned to versions made before gaskets were snapshotted follow the joint's current gasket data.
+    if (id !== null) await refreshGasketFigures(sequelize, { unsnapshottedOfJoint: jointId, touch: true }, transaction);
     return { id: jointId };
   });
 }

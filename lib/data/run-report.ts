@@ -5,7 +5,7 @@ import type { NormalisedRun } from '../record/run-types';
 import type { SessionUser } from '../auth/session';
 import { Cohort, HardwareSet, Joint, Lubricant, LubricantLot, Method, Run, RunComment, User, sequelize } from '@/models';
 import type { RunCheckReason } from '../run-check/types';
-import { gasketAreaOf, jointGasketOf, type JointGasket } from '../joints/gasket-input';
+import { gasketForStress, jointGasketOf, type GasketForStress } from '../joints/gasket-input';
 import { passPercentsOf } from '../analysis/pass-percents-of';
 import { operatorKey, operatorLabel, runScope, seesFreeText } from './scope';
 import { jointAsRecorded } from './joint-versions';
@@ -44,18 +44,7 @@ export interface RunReviewDto {
 }
 
 /** The joint's gasket as the report needs it: contact area (mm²) and stress limits (MPa) with their source. */
-export interface RunGasketDto {
-  areaMm2: number;
-  minSeatingMpa: number | null;
-  maxMpa: number | null;
-  source: string | null;
-}
-
-/** The gasket data (as recorded, else the joint row's), or null when its contact area is not known. */
-function runGasketOf(g: JointGasket): RunGasketDto | null {
-  const areaMm2 = gasketAreaOf(g);
-  return areaMm2 === null ? null : { areaMm2, minSeatingMpa: g.minSeatingMpa, maxMpa: g.maxMpa, source: g.stressSource };
-}
+export type RunGasketDto = GasketForStress;
 
 export interface RunCommentDto {
   id: number;
@@ -163,7 +152,7 @@ export async function loadRun(user: SessionUser, runId: number): Promise<LoadedR
         thread: threadLabel(asRecorded),
         versionNumber: recorded?.versionNumber ?? null,
         // Versions made before gaskets were snapshotted carry none: the joint's current data stand in.
-        gasket: runGasketOf(recorded?.snapshot.gasket ?? jointGasketOf(run.joint)),
+        gasket: gasketForStress(recorded?.snapshot.gasket ?? jointGasketOf(run.joint)),
       },
       method: {
         id: method.id,

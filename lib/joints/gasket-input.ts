@@ -123,6 +123,20 @@ export function gasketAreaOf(g: Pick<JointGasket, 'innerMm' | 'outerMm' | 'areaM
   return g.areaMm2 !== null && g.areaMm2 > 0 ? g.areaMm2 : null;
 }
 
+/** A gasket as stress figures need it: contact area (mm²) and stress limits (MPa) with their source. */
+export interface GasketForStress {
+  areaMm2: number;
+  minSeatingMpa: number | null;
+  maxMpa: number | null;
+  source: string | null;
+}
+
+/** The gasket's contact area and limits, or null when its contact area is not known. */
+export function gasketForStress(g: JointGasket): GasketForStress | null {
+  const areaMm2 = gasketAreaOf(g);
+  return areaMm2 === null ? null : { areaMm2, minSeatingMpa: g.minSeatingMpa, maxMpa: g.maxMpa, source: g.stressSource };
+}
+
 export const gasketLimitsOf = (g: Pick<JointGasket, 'minSeatingMpa' | 'maxMpa'>): GasketLimits => ({ minSeatingMpa: g.minSeatingMpa, maxMpa: g.maxMpa });
 
 /** The form's text for stored gasket data in `units` (a new joint starts from the training defaults). */

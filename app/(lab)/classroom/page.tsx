@@ -23,7 +23,7 @@ export default async function ClassroomPage({ searchParams }: { searchParams: Pr
     try {
       const loaded = await loadRun(user, runId);
       // A run without steps has nothing to replay (the scene would have no frames).
-      if (loaded.run.steps.length > 0) realRun = { id: loaded.header.id, label: realRuns.runs.find((r) => r.id === runId)?.label ?? `Run ${runId}`, jointId: loaded.header.joint.id, methodId: loaded.header.method.id, lubricantId: loaded.header.lubricant.id, bandPercent: loaded.header.bandPercent, run: loaded.run };
+      if (loaded.run.steps.length > 0) realRun = { id: loaded.header.id, label: realRuns.runs.find((r) => r.id === runId)?.label ?? `Run ${runId}`, jointId: loaded.header.joint.id, methodId: loaded.header.method.id, lubricantId: loaded.header.lubricant.id, bandPercent: loaded.header.bandPercent, run: loaded.run, gasket: loaded.header.joint.gasket };
     } catch (error) {
       if (!isAppError(error)) throw error;
     }

@@ -9,6 +9,7 @@ import type { RunSource, RunStatus } from '@/models/run';
 import type { RunCheckReason } from '../../run-check/types';
 import { checkBeforeStoring } from './check-before-storing';
 import { claimHardwareUse } from './hardware-use';
+import { refreshGasketFigures } from './gasket-figures';
 import { storeRunAnalysis } from './stored-analysis';
 
 export interface RunHeader {
@@ -93,6 +94,7 @@ export async function storeRunWithStatus(header: RunHeader, run: NormalisedRun, 
     { transaction },
   );
   await appendSteps(runId, run, 0, transaction);
+  await refreshGasketFigures(sequelize, { runIds: [runId] }, transaction);
   // The analysis the report's API serves, computed now and kept with the run (same transaction).
   await storeRunAnalysis(runId, run, transaction);
   return { runId, status: checked?.status ?? header.status, reasons: checked?.reasons ?? [] };
@@ -198,11 +200,12 @@ export async function completeRecordedRun(runId: number, ids: { jointId: number;
 }
 
 /**
- * Recomputes the stored per-run figures and the stored analysis after a run's readings changed
+ * Recomputes the stored per-run figures (gasket figures included) and the stored analysis after a run's readings changed
  * (a live run finished, a correction): every path that changes readings calls this.
  */
 export async function refreshRunFigures(runId: number, run: NormalisedRun, transaction: Transaction): Promise<void> {
   const { studCount: _unchanged, ...figures } = figuresToStore(run);
   await Run.update(figures, { where: { id: runId }, transaction });
+  await refreshGasketFigures(sequelize, { runIds: [runId] }, transaction);
   await storeRunAnalysis(runId, run, transaction);
 }

@@ -17,7 +17,7 @@ export default async function ComparePage() {
           Groups of complete runs side by side. Set-aside runs are left out. The choice lives in the address bar, so a comparison can be bookmarked and shared.
         </p>
       </div>
-      <CompareView options={options} />
+      <CompareView options={options} units={user.units} />
     </div>
   );
 }

@@ -21,7 +21,7 @@ export default async function SavedComparisonPage({ params }: { params: Promise<
   // Only the author makes and withdraws review links (anyone else sees none).
   const links = await listReviewLinks(user, slug).catch(() => null);
   return (
-    <SavedComparisonView saved={view} packageHref={`/api/compare/saved/${view.slug}/package`}>
+    <SavedComparisonView saved={view} packageHref={`/api/compare/saved/${view.slug}/package`} units={user.units}>
       {links ? <ReviewLinks slug={view.slug} links={links} /> : null}
     </SavedComparisonView>
   );

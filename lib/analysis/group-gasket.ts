@@ -1,0 +1,18 @@
+import { mean } from '../stats/mean';
+import type { ComparedRun, GroupGasketFigures } from './compare-types';
+
+/**
+ * A compare group's gasket figures from its runs' stored figures: the mean of the runs' average
+ * gasket stress after the final step, over the runs that have gasket data, and the share of the
+ * runs with a known minimum seating stress whose average reaches it (≥).
+ */
+export function groupGasketFigures(runs: readonly Pick<ComparedRun, 'gasket'>[]): GroupGasketFigures {
+  const withGasket = runs.flatMap((r) => (r.gasket ? [r.gasket] : []));
+  const withSeating = withGasket.filter((g) => g.minSeatingMpa !== null);
+  return {
+    meanStressMpa: withGasket.length ? mean(withGasket.map((g) => g.stressMpa)) : null,
+    runsWithGasket: withGasket.length,
+    seatedShare: withSeating.length ? withSeating.filter((g) => g.stressMpa >= g.minSeatingMpa!).length / withSeating.length : null,
+    runsWithSeating: withSeating.length,
+  };
+}
