@@ -28,6 +28,7 @@ import { ReviewLink } from './review-link';
 import { RunAnalysisRow } from './run-analysis';
 import { RunComment } from './run-comment';
 import { RunHold } from './run-hold';
+import { RunCount } from './run-count';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -96,6 +97,7 @@ export const MODELS = [
   ChecklistItem,
   ChecklistTick,
   StepPosition,
+  RunCount,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -181,4 +183,5 @@ export {
   TrainingRecord,
   Job,
   RefresherReminder,
+  RunCount,
 };

@@ -87,7 +87,8 @@ start_mariadb() { # $1 name, $2 port, $3 server id, extra mariadbd options after
     --bind-address=127.0.0.1 --port="$port" --socket="$root/mariadb.sock" --pid-file="$root/mariadb.pid" \
     --log-error="$root/mariadb.log" --skip-name-resolve --max-connections=300 \
     --innodb-buffer-pool-size=128M --local-infile=1 \
-    --server-id="$id" --log-bin="$root/binlog" --binlog-format=ROW --gtid-strict-mode=1 "$@" \
+    --server-id="$id" --log-bin="$root/binlog" --binlog-format=ROW --gtid-strict-mode=1 \
+    --log-bin-trust-function-creators=1 "$@" \
     </dev/null >/dev/null 2>&1 &
   for _ in $(seq 1 150); do
     mariadb-admin --no-defaults --socket="$root/mariadb.sock" -uroot ping >/dev/null 2>&1 && { log "$name MariaDB on 127.0.0.1:$port"; return; }

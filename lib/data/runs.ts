@@ -78,22 +78,25 @@ export async function runListFilterSql(
 /**
  * Run rows with their names, for raw queries. The page is cut from `runs` alone first (so MariaDB
  * walks the covering `runs_list` index, which holds every column listed, and stops at the limit), and
- * only those rows are joined to their names. With `withTotal`, each row also carries the count of
- * every row the filter matches (an uncorrelated subquery, computed once), so the runs list costs one
- * round trip and one pooled connection.
+ * only those rows are joined to their names. With `total`, each row also carries the count of every
+ * row the filter matches, as an uncorrelated subquery computed once, so the runs list costs one round
+ * trip and one pooled connection: `'maintained'` sums the counters of `run_counts` (a handful of rows;
+ * only for a filter on scope, cohort, operator, status and source, see `answeredByRunCounts`),
+ * `'count'` counts the runs.
  */
-export async function selectRunRows(filter: { sql: string; params: unknown[] }, orderBy: string, limit: number, offset = 0, withTotal = false): Promise<RunRowSql[]> {
+export async function selectRunRows(filter: { sql: string; params: unknown[] }, orderBy: string, limit: number, offset = 0, total: false | 'count' | 'maintained' = false): Promise<RunRowSql[]> {
+  const totalSql = total === 'maintained' ? `(SELECT COALESCE(SUM(r.n), 0) FROM run_counts r WHERE ${filter.sql})` : `(SELECT COUNT(*) FROM runs r WHERE ${filter.sql})`;
   return sequelize.query<RunRowSql>(
     `SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
        j.name AS joint_name, m.name AS method_name, l.name AS lubricant_name, o.id AS operator_id, o.name AS operator_name, c.name AS cohort_name
-       ${withTotal ? `, (SELECT COUNT(*) FROM runs r WHERE ${filter.sql}) AS total` : ''}
+       ${total ? `, ${totalSql} AS total` : ''}
      FROM (SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
              r.joint_id, r.method_id, r.lubricant_id, r.operator_id, r.cohort_id
            FROM runs r WHERE ${filter.sql} ORDER BY ${orderBy} LIMIT ? OFFSET ?) r
      JOIN joints j ON j.id = r.joint_id JOIN methods m ON m.id = r.method_id JOIN lubricants l ON l.id = r.lubricant_id
      JOIN users o ON o.id = r.operator_id LEFT JOIN cohorts c ON c.id = r.cohort_id
      ORDER BY ${orderBy}`,
-    { type: QueryTypes.SELECT, replacements: [...(withTotal ? filter.params : []), ...filter.params, limit, offset] },
+    { type: QueryTypes.SELECT, replacements: [...(total ? filter.params : []), ...filter.params, limit, offset] },
   );
 }
 
@@ -113,21 +116,29 @@ export interface RunRowSql {
   operator_id: number;
   operator_name: string;
   cohort_name: string | null;
-  /** With `withTotal`: every row the filter matches. */
+  /** With `total`: every row the filter matches. */
   total?: number | bigint;
 }
 
 const SORT_COLUMNS: Record<RunListQuery['sort'], string> = { recordedAt: 'r.recorded_at', finalCv: 'r.final_cv', finalMeanN: 'r.final_mean_n', passCount: 'r.pass_count' };
 
 /**
- * One page of the runs list in one raw query: the page with its names and the count on `runs` alone
- * (every filter is on its columns). Sort column and direction come from a fixed list.
+ * Whether the total can be read from `run_counts` (kept by triggers on `runs`, see migration
+ * 20261204080000-run-counts): its key is operator, cohort, status and source, which is every column
+ * the scope and these filters test; a filter on method, lubricant, joint or dates is counted.
+ */
+export const answeredByRunCounts = (query: Omit<RunListQuery, 'sort' | 'dir' | 'page' | 'pageSize'>): boolean =>
+  query.methodId === undefined && query.lubricantId === undefined && query.jointId === undefined && query.from === undefined && query.to === undefined;
+
+/**
+ * One page of the runs list in one raw query: the page with its names and the total (every filter is
+ * on the columns of `runs`). Sort column and direction come from a fixed list.
  */
 export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
   const filter = await runListFilterSql(user, query);
   const direction = query.dir === 'asc' ? 'ASC' : 'DESC';
   const offset = (query.page - 1) * query.pageSize;
-  const rows = await selectRunRows(filter, `${SORT_COLUMNS[query.sort]} ${direction}, r.id DESC`, query.pageSize, offset, true);
+  const rows = await selectRunRows(filter, `${SORT_COLUMNS[query.sort]} ${direction}, r.id DESC`, query.pageSize, offset, answeredByRunCounts(query) ? 'maintained' : 'count');
   // A page past the end has no row to carry the count: then it is asked for on its own.
   const total = rows[0] ? Number(rows[0].total) : offset === 0 ? 0 : await countRuns(filter);
   return {

@@ -179,11 +179,27 @@ async function benchCompare(baseUrl: string) {
   rows.push(['compare repeat', `GET ${apiMs.toFixed(1)} ms (median, full body); If-None-Match ${revalidateMs.toFixed(1)} ms (${notModified}/12 answered 304)`, `load average ${load1!.toFixed(1)}`, `${(apiMs / sqlMs).toFixed(2)}x; revalidated ${(revalidateMs / sqlMs).toFixed(2)}x (<= 1.5x)`]);
 }
 
+/**
+ * autocannon at `url`; besides the rates, what the non-2xx answers were: the count per status code and
+ * the first answers' bodies per status (the error code and message the app sent), so a burst's
+ * failures name their reason in the bench output.
+ */
 async function cannon(url: string, cookie: string, connections: number, seconds: number, extraHeaders: Record<string, string> = {}) {
-  const result = await autocannon({ url, connections, duration: seconds, headers: { ...(cookie ? { cookie } : {}), ...extraHeaders }, timeout: 10 });
-  const notModified = (result.statusCodeStats as Record<string, { count: number }> | undefined)?.['304']?.count ?? 0;
-  return { requestsPerSecond: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx - notModified, notModified, total: result.requests.total };
+  const reasons: Record<string, string[]> = {};
+  const onResponse = (status: number, body: string) => {
+    if (status < 300 || status === 304) return;
+    const seen = (reasons[status] ??= []);
+    if (seen.length < 3 && !seen.includes(body.slice(0, 200))) seen.push(body.slice(0, 200));
+  };
+  const result = await autocannon({ url, connections, duration: seconds, headers: { ...(cookie ? { cookie } : {}), ...extraHeaders }, timeout: 10, requests: [{ method: 'GET', onResponse }] });
+  const statusCodes = Object.fromEntries(Object.entries((result.statusCodeStats ?? {}) as Record<string, { count: number }>).map(([code, stat]) => [code, stat.count]));
+  const notModified = statusCodes['304'] ?? 0;
+  return { requestsPerSecond: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx - notModified, notModified, total: result.requests.total, statusCodes, reasons, loadAverage1m: os.loadavg()[0]! };
 }
+
+/** "200: 51234, 503: 49 (unavailable: The database is not answering…)": each status with its first reason. */
+const statusLine = (r: { statusCodes: Record<string, number>; reasons: Record<string, string[]> }) =>
+  Object.entries(r.statusCodes).map(([code, n]) => `${code}: ${n}${r.reasons[code]?.[0] ? ` (${r.reasons[code]![0]!.slice(0, 120)})` : ''}`).join(', ');
 
 async function benchLoad(baseUrl: string) {
   const researcher = await signInAs(baseUrl, DEMO_ACCOUNTS.researcher);
@@ -199,7 +215,7 @@ async function benchLoad(baseUrl: string) {
   results.load = { connections: 50, seconds, constant, runsList: list, runAnalysis: analysis, runAnalysisRepeat: repeat, runsListRatio: list.requestsPerSecond / constant.requestsPerSecond, analysisRatio: analysis.requestsPerSecond / constant.requestsPerSecond, analysisRepeatRatio: repeat.requestsPerSecond / constant.requestsPerSecond, target: 'runs list and analysis >= 0.8x constant, runs list p99 < 100 ms' };
   const line = (name: string, r: typeof list) => `${Math.round(r.requestsPerSecond)} req/s, p50 ${r.p50} ms, p99 ${r.p99} ms, errors ${r.errors + r.timeouts + r.non2xx}`;
   rows.push(['load 50 conn: constant JSON', line('constant', constant), '', 'baseline']);
-  rows.push(['load 50 conn: GET /api/runs', line('list', list), '', `${(list.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x), p99 ${list.p99 < 100 ? '<' : '>='} 100 ms`]);
+  rows.push(['load 50 conn: GET /api/runs', line('list', list), `load average ${list.loadAverage1m.toFixed(1)}; ${statusLine(list)}`, `${(list.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x), p99 ${list.p99 < 100 ? '<' : '>='} 100 ms`]);
   rows.push(['load 50 conn: GET /api/runs/:id/analysis', line('analysis', analysis), '', `${(analysis.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x)`]);
   rows.push(['load 50 conn: analysis, If-None-Match', `${line('repeat', repeat)}, 304s ${repeat.notModified}`, etag ? `ETag ${etag.slice(0, 12)}…` : 'no ETag', `${(repeat.requestsPerSecond / constant.requestsPerSecond).toFixed(2)}x (>= 0.8x)`]);
 }
@@ -209,7 +225,8 @@ async function benchBurst(baseUrl: string) {
   const seconds = Number(process.env.BENCH_BURST_SECONDS ?? 60);
   const burst = await cannon(`${baseUrl}/api/runs?pageSize=25`, researcher.cookie, 200, seconds);
   results.burst = { connections: 200, seconds, ...burst, poolMax: env.DB_POOL_MAX, poolAcquireMs: env.DB_POOL_ACQUIRE_MS, target: '0 errors' };
-  rows.push([`burst 200 conn x ${seconds} s: GET /api/runs`, `${burst.total.toLocaleString('en-US')} requests, ${Math.round(burst.requestsPerSecond)} req/s, p99 ${burst.p99} ms`, `pool max ${env.DB_POOL_MAX}`, `errors ${burst.errors}, timeouts ${burst.timeouts}, non-2xx ${burst.non2xx}`]);
+  rows.push([`burst 200 conn x ${seconds} s: GET /api/runs`, `${burst.total.toLocaleString('en-US')} requests, ${Math.round(burst.requestsPerSecond)} req/s, p99 ${burst.p99} ms`, `pool max ${env.DB_POOL_MAX}, load average ${burst.loadAverage1m.toFixed(1)}`, `errors ${burst.errors}, timeouts ${burst.timeouts}, non-2xx ${burst.non2xx}`]);
+  rows.push(['burst: answers by status', statusLine(burst), '', '']);
 }
 
 async function benchUploads() {

@@ -89,7 +89,8 @@ export async function launchAppServer(port: number, extraEnv: Record<string, str
         if (child.exitCode !== null) return resolve();
         child.once('exit', () => resolve());
         child.kill('SIGTERM');
-        setTimeout(() => child.kill('SIGKILL'), 5000).unref();
+        // A server writing a CPU profile on exit (--cpu-prof) may need longer than 5 s on a loaded machine.
+        setTimeout(() => child.kill('SIGKILL'), nodeFlags.includes('--cpu-prof') ? 60_000 : 5000).unref();
       }),
   };
 }
