@@ -61,7 +61,7 @@ async function benchIngest() {
   ingestInput(csvPath, tsvPath);
   const ids = await demoIds();
 
-  const child = spawnSync(path.join(root, 'node_modules/.bin/tsx'), [...profileFlags, 'scripts/bench/ingest-child.ts', csvPath, String(ids.jointId), String(ids.methodId), String(ids.lubricantId), String(ids.operatorId)], { cwd: root, env: process.env, encoding: 'utf8', maxBuffer: 10 * 2 ** 20 });
+  const child = spawnSync(path.join(root, 'node_modules/.bin/tsx'), [...profileFlags, 'scripts/bench/ingest-child.ts', csvPath, String(ids.jointId), String(ids.methodId), String(ids.lubricantId), String(ids.operatorId), '--bench-input'], { cwd: root, env: process.env, encoding: 'utf8', maxBuffer: 10 * 2 ** 20 });
   if (child.status !== 0) throw new Error(`ingest child failed: ${child.stderr}`);
   const ingest = JSON.parse(child.stdout.trim().split('\n').pop() as string) as { runId: number; readings: number; steps: number; tareNotes: number; totalSeconds: number; parseSeconds: number; storeSeconds: number; maxRssMb: number };
   await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [ingest.runId] });
