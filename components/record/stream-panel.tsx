@@ -48,7 +48,7 @@ export function StreamPanel({ joint, joints, header, tokens, recordings, onHeade
       <section aria-labelledby="recording-title" className="space-y-3">
         <h2 id="recording-title" className="font-semibold">Recording</h2>
         <p className="text-sm text-muted">
-          Start a recording for the header above, then connect the logger here (or run the bridge next to it) to send its readings. Steps are found from the loads when you finish (each clear rise of one stud is a step).
+          Start a recording for the header above, then connect the logger here (or run the bridge next to it) to send its readings. Steps are found from the loads when you finish: each clear rise of one stud, or of the studs a tensioner pulls together, is a step.
         </p>
         <div className="flex flex-wrap items-center gap-3">
           <form action={startAction}>
