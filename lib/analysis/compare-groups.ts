@@ -1,4 +1,5 @@
 import { holmAdjust } from '../stats/holm-adjust';
+import { reasonInWords } from './reason-in-words';
 import { mean } from '../stats/mean';
 import { sampleStandardDeviation } from '../stats/sample-standard-deviation';
 import { sampleVariance } from '../stats/sample-variance';
@@ -106,7 +107,7 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
     try {
       run();
     } catch (error) {
-      warnings.push(`${name} could not be computed: ${error instanceof Error ? error.message : String(error)}.`);
+      warnings.push(`${name} could not be computed: ${reasonInWords(error)}.`);
     }
   };
   const studCounts = [...new Set(inputs.flatMap((g) => g.runs.map((r) => r.finalLoadsN.length)))].filter((n) => n > 0).sort((a, b) => a - b);
