@@ -44,9 +44,11 @@ interface Props {
   holdAction: ((state: FormState, formData: FormData) => Promise<FormState>) | null;
   /** A tensioner run's applied and residual load per stud (empty for other tools). */
   transfers: StudTransfer[];
+  /** When the page was made, for the printed header: taken on the server, so hydration sees the same text. */
+  printedOn: string;
 }
 
-export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, setAsideAction, relaxation, holdAction, transfers }: Props) {
+export function RunReport({ header, analysis, comments, units: preferredUnits, role, attempt, commentAction, reviewAction, setAsideAction, relaxation, holdAction, transfers, printedOn }: Props) {
   const [units, setUnits] = useState(preferredUnits);
   const f = analysis.figures;
   const target = header.targetLoadN;
@@ -66,7 +68,7 @@ export function RunReport({ header, analysis, comments, units: preferredUnits, r
 
   return (
     <article className="print-sheet space-y-6" aria-labelledby="run-title">
-      <PrintHeader title={`Run report ${header.id}`} printedOn={formatDateTime(new Date().toISOString())} />
+      <PrintHeader title={`Run report ${header.id}`} printedOn={printedOn} />
       <header className="space-y-3">
         <div className="flex flex-wrap items-start gap-3">
           <div>

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { FigureHistory } from '@/components/run-report/figure-history';
+import { formatDateTime } from '@/lib/format/format-date';
 import { RunReport } from '@/components/run-report/run-report';
 import { RunTools } from '@/components/run-report/run-tools';
 import { listEquipment, runTools } from '@/lib/data/equipment';
@@ -52,6 +53,7 @@ export default async function RunReportPage({ params }: { params: Promise<{ id: 
         relaxation={relaxation}
         holdAction={HOLD_ROLES.includes(user.role) ? addHoldsAction.bind(null, parsed.data) : null}
         transfers={studTransfers(loaded.run)}
+        printedOn={formatDateTime(new Date().toISOString())}
       />
       <RunTools tools={tools} register={register} action={editsTools ? setRunToolsAction.bind(null, parsed.data) : null} />
       <FigureHistory entries={history} />
