@@ -19,7 +19,7 @@ export function AttemptPanel({ actions }: { actions: AttemptActions }) {
       <h2 id="attempt-heading" className="text-lg font-semibold">Attempt and status</h2>
       {actions.confirm ? <ConfirmForm action={actions.confirm} /> : null}
       {actions.setAside ? <SetAsideForm action={actions.setAside} /> : null}
-      {actions.restore ? <ReasonForm action={actions.restore} id="restore" label="Reason for restoring this run" button="Restore" hint="The run counts again in comparisons and progress." /> : null}
+      {actions.restore ? <ReasonForm action={actions.restore} id="restore" label="Reason for restoring this run" button="Restore" hint="The run goes back to where it was: a complete run counts again in comparisons and progress; a run held for review is held again until it is confirmed." /> : null}
     </section>
   );
 }

@@ -15,7 +15,7 @@ import { compareRuns, compareQuerySchema } from '@/lib/data/compare';
 import { signOffRun } from '@/lib/data/assessment';
 import { exportRunsCsv } from '@/lib/data/exports';
 import { reviewRun } from '@/lib/data/runs/run-review';
-import { setRunAside } from '@/lib/data/qualification/attempts';
+import { restoreRun, setRunAside } from '@/lib/data/qualification/attempts';
 import type { SessionUser } from '@/lib/auth/session';
 import type { AppServer } from '../support/app-server';
 import { DEMO_ACCOUNTS, signInAs, type HttpSession } from '../support/http-session';
@@ -170,6 +170,12 @@ describe('the run check on upload', () => {
     await setRunAside(researcher, overYield.runId!, 'Studs over yield: replaced before the next lesson.');
     const [setAside] = await sequelize.query<{ status: string; set_aside_reason: string }>('SELECT status, set_aside_reason FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [overYield.runId] });
     expect(setAside).toEqual({ status: 'set_aside', set_aside_reason: 'Studs over yield: replaced before the next lesson.' });
+    expect(await compareTotal()).toBe(countedBefore + 1);
+    // Restoring a run that was set aside while held goes back to being held: it never passed the check.
+    const admin = await sessionUserFor(DEMO_ACCOUNTS.admin);
+    await restoreRun(admin, overYield.runId!, 'Set aside by mistake; the studs are to be looked at first.');
+    const [restored] = await sequelize.query<{ status: string }>('SELECT status FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [overYield.runId] });
+    expect(restored).toEqual({ status: 'needs_review' });
     expect(await compareTotal()).toBe(countedBefore + 1);
   });
 });

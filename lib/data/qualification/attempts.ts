@@ -164,20 +164,37 @@ export async function setRunAside(user: SessionUser, runId: number, rawReason: u
   });
 }
 
-/** Restores a set-aside run with a reason (the same people as setting a complete run aside); it counts again. */
+/**
+ * Restores a set-aside run with a reason (the same people as setting a complete run aside). It goes
+ * back to the status it was set aside from, as the audit row of that set-aside recorded it: a run
+ * set aside while held for review is held again (it never passed the check, and restoring must not
+ * let it count unconfirmed); a complete run counts again. Runs set aside before the audit log
+ * existed (no such row) return to complete.
+ */
 export async function restoreRun(user: SessionUser, runId: number, rawReason: unknown): Promise<void> {
   const reason = parseStatusReason(rawReason);
   await sequelize.transaction(async (transaction) => {
     const row = await lockedRun(user, runId, transaction);
     if (row.status !== 'set_aside') throw new AppError('conflict', 'This run is not set aside; nothing was changed.');
-    await Run.update({ status: 'complete', setAsideReason: null, setAsideById: null }, { where: { id: runId }, transaction });
+    const status = (await statusBeforeSetAside(runId, transaction)) === 'needs_review' ? ('needs_review' as const) : ('complete' as const);
+    await Run.update({ status, setAsideReason: null, setAsideById: null }, { where: { id: runId }, transaction });
     await writeAudit(transaction, user, {
       objectType: 'run',
       objectId: runId,
       action: 'restore',
       reason,
       before: { status: row.status, setAsideReason: row.set_aside_reason },
-      after: { status: 'complete', setAsideReason: null },
+      after: { status, setAsideReason: null },
     });
   });
+}
+
+/** The status a run had when it was last set aside, from that audit row; null when there is none. */
+async function statusBeforeSetAside(runId: number, transaction: Transaction): Promise<string | null> {
+  const [entry] = await sequelize.query<{ before_json: string | null }>(
+    "SELECT before_json FROM audit_log WHERE object_type = 'run' AND object_id = ? AND action = 'set_aside' ORDER BY id DESC LIMIT 1",
+    { type: QueryTypes.SELECT, replacements: [runId], transaction },
+  );
+  const before = entry?.before_json ? (JSON.parse(entry.before_json) as { status?: unknown }) : null;
+  return typeof before?.status === 'string' ? before.status : null;
 }
