@@ -14,6 +14,7 @@ import { AppError } from '../http/errors';
 import { etagMatches } from '../http/etag';
 import { softwareVersion } from '../saved-comparisons/software-version';
 import { sequelize } from '@/models';
+import { readRowArrays } from './read-row-arrays';
 import { operatorKey, operatorLabel, refuseOperatorIdsForResearcher, runScopeSql } from './scope';
 
 const isoDate = isoDateSchema();
@@ -102,16 +103,51 @@ interface RunRowSql {
   drift_json?: string | null;
 }
 
+/** A run row as the comparison's read returns it (readRowArrays), in the SELECT's column order (`RUN_COLUMNS`). */
+type RunRowArray = [
+  id: number, groupId: number, operatorId: number, targetLoadN: number, finalMeanN: number | null, finalSdN: number | null,
+  gasketStressMpa: number | null, gasketMinSeatingMpa: number | null, finalLoadsF64: Uint8Array | null, finalLoadsJson: string | null,
+  driftF64: Uint8Array | null, driftJson: string | null, updatedAt: Date, studCount: number,
+];
+
+/** The columns of RunRowArray; the group column is `${column} AS group_id`. */
+const runColumnsSql = (groupColumn: string) =>
+  `r.id, ${groupColumn} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa,
+   r.final_loads_f64, IF(r.final_loads_f64 IS NULL, r.final_loads_json, NULL) AS final_loads_json, r.drift_f64, IF(r.drift_f64 IS NULL, r.drift_json, NULL) AS drift_json,
+   r.updated_at, r.stud_count`;
+
+const runRowOf = (a: RunRowArray): RunRowSql => ({
+  id: a[0], group_id: a[1], operator_id: a[2], target_load_n: a[3], final_mean_n: a[4], final_sd_n: a[5],
+  final_gasket_stress_mpa: a[6], gasket_min_seating_mpa: a[7], final_loads_f64: a[8], final_loads_json: a[9], drift_f64: a[10], drift_json: a[11],
+});
+
 /** The final loads of a run as the query gives them. */
 const finalLoadsOf = (r: RunRowSql): number[] => (r.final_loads_f64 ? (decodeFloat64Blob(r.final_loads_f64) as number[]) : (JSON.parse(r.final_loads_json ?? '[]') as number[]));
 /** The drift of a run (null where a stud was never tightened); empty when not read. */
 const driftOf = (r: RunRowSql): (number | null)[] => (r.drift_f64 ? decodeFloat64Blob(r.drift_f64) : r.drift_json ? (JSON.parse(r.drift_json) as (number | null)[]) : []);
 
-/** What the fingerprint aggregate returns besides the fingerprint itself. */
-interface SelectionShape {
-  studCounts: { min: number | null; max: number | null };
-  simulatedLeftOut: number;
+/**
+ * What a cached comparison is checked against: the chosen runs' count, last change and id sum, the
+ * simulated runs left out, when a group name last changed and the hold readings. Each part either
+ * comes from one aggregate over the filter (`fingerprintByAggregate`) or, for a comparison computed
+ * now, from the very rows it reads (`fingerprintOfRead`); `tests/integration/compare-fingerprint.test.ts`
+ * checks that both give the same text.
+ */
+interface FingerprintParts {
+  n: number;
+  changed: Date | null;
+  ids: number;
+  leftOut: number;
+  names: string | null;
+  holds: string | null;
 }
+
+const fingerprintText = (p: FingerprintParts) => `${p.n}:${p.changed ? p.changed.toISOString() : '-'}:${p.ids}:${p.leftOut}:${p.names ?? '-'}:${p.holds ?? '-'}`;
+
+/** The group names' last change and the hold readings, as text, the same in both ways of taking a fingerprint. */
+const NAMES_AND_HOLDS_SQL = `CAST(GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
+                COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS CHAR) AS names,
+       (SELECT CONCAT(COUNT(*), '/', COALESCE(SUM(load_n), 0)) FROM run_holds) AS holds`;
 
 export async function compareRuns(user: SessionUser, query: CompareQuery): Promise<CompareResponse> {
   return JSON.parse(await compareRunsJson(user, query)) as CompareResponse;
@@ -124,11 +160,9 @@ const CACHE_DAYS = 2;
 const SOFTWARE = softwareVersion();
 
 /**
- * The comparison as JSON text, from the shared cache when the runs it depends on are unchanged.
- * One aggregate over the filter (without the source condition) gives the fingerprint (count, last
- * change and id sum of the matching runs, last change of the group names), the stud counts in the
- * selection and the number of simulated runs left out, so a cache hit costs about one bare
- * aggregate plus a primary-key read.
+ * The comparison as JSON text, from the shared cache when the runs it depends on are unchanged
+ * (their fingerprint: `FingerprintParts`). A cache hit costs a primary-key read and one aggregate; a
+ * comparison never asked for costs one read of its runs, which gives the fingerprint as well.
  */
 export async function compareRunsJson(user: SessionUser, query: CompareQuery): Promise<string> {
   return (await compareRunsCached(user, query, null)).body as string;
@@ -143,31 +177,45 @@ export async function compareRunsCached(user: SessionUser, query: CompareQuery, 
   refuseOperatorIdsForResearcher(user, 'ids', query.by === 'trainee' && Boolean(query.ids?.length));
   const { where, params } = await filterSql(user, query);
   const match = SOURCE_SQL[query.source];
-  const [fp] = await sequelize.query<{ n: number | null; changed: Date | null; ids: number | null; names: Date | null; min_studs: number | null; max_studs: number | null; left_out: number | null; holds: string | null }>(
+  const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
+  const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
+  const etagOf = (fingerprint: string) => `"${createHash('sha256').update(`${key}|${fingerprint}|${SOFTWARE}`).digest('base64url').slice(0, 32)}"`;
+  const computeAndStore = async () => {
+    const { response, fingerprint } = await computeComparison(user, query, where, match, params);
+    const body = JSON.stringify(response);
+    await sequelize.query('REPLACE INTO comparison_cache (cache_key, fingerprint, body, created_at) VALUES (?, ?, ?, NOW())', { replacements: [key, fingerprint, body] });
+    // Housekeeping, not part of the answer: old entries go while the answer is sent.
+    sequelize.query('DELETE FROM comparison_cache WHERE created_at < NOW() - INTERVAL ? DAY', { replacements: [CACHE_DAYS] }).catch((error: unknown) => console.warn('evenload: removing old cached comparisons failed', error));
+    return { etag: etagOf(fingerprint), body };
+  };
+  if (ifNoneMatch) {
+    // A revalidation: the fingerprint alone decides, and a 304 needs no body.
+    const fingerprint = fingerprintText(await fingerprintByAggregate(where, match, params));
+    const etag = etagOf(fingerprint);
+    if (etagMatches(ifNoneMatch, etag)) return { etag, body: null };
+    const [cached] = await sequelize.query<{ body: string }>('SELECT body FROM comparison_cache WHERE cache_key = ? AND fingerprint = ?', { type: QueryTypes.SELECT, replacements: [key, fingerprint] });
+    return cached ? { etag, body: cached.body } : computeAndStore();
+  }
+  const [cached] = await sequelize.query<{ fingerprint: string; body: string }>('SELECT fingerprint, body FROM comparison_cache WHERE cache_key = ?', { type: QueryTypes.SELECT, replacements: [key] });
+  // A comparison nobody has asked for (or whose answer has expired) cannot be a hit: its runs are read
+  // at once, and its fingerprint is taken from that same read.
+  if (!cached) return computeAndStore();
+  const fingerprint = fingerprintText(await fingerprintByAggregate(where, match, params));
+  return cached.fingerprint === fingerprint ? { etag: etagOf(fingerprint), body: cached.body } : computeAndStore();
+}
+
+/**
+ * The fingerprint from one aggregate over the filter (without the source condition), so a cache hit
+ * costs about one bare aggregate plus a primary-key read.
+ */
+async function fingerprintByAggregate(where: string[], match: string, params: unknown[]): Promise<FingerprintParts> {
+  const [fp] = await sequelize.query<{ n: number | string | null; changed: Date | null; ids: number | string | null; left_out: number | string | null; names: string | null; holds: string | null }>(
     `SELECT SUM(${match}) AS n, MAX(IF(${match}, r.updated_at, NULL)) AS changed, SUM(IF(${match}, r.id, 0)) AS ids,
-       MIN(IF(${match}, r.stud_count, NULL)) AS min_studs, MAX(IF(${match}, r.stud_count, NULL)) AS max_studs,
-       SUM(r.source = 'simulated' AND NOT (${match})) AS left_out,
-       GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
-                COALESCE((SELECT MAX(updated_at) FROM cohorts), 0), COALESCE((SELECT MAX(updated_at) FROM users), 0)) AS names,
-       (SELECT CONCAT(COUNT(*), '/', COALESCE(SUM(load_n), 0)) FROM run_holds) AS holds
+       SUM(r.source = 'simulated' AND NOT (${match})) AS left_out, ${NAMES_AND_HOLDS_SQL}
      FROM runs r WHERE ${where.join(' AND ')}`,
     { type: QueryTypes.SELECT, replacements: params },
   );
-  const fingerprint = `${Number(fp?.n ?? 0)}:${fp?.changed ? new Date(fp.changed).toISOString() : '-'}:${fp?.ids ?? 0}:${Number(fp?.left_out ?? 0)}:${String(fp?.names ?? '-')}:${fp?.holds ?? '-'}`;
-  const viewer = user.role === 'admin' || user.role === 'researcher' ? user.role : `${user.role}:${user.id}`;
-  const key = createHash('sha256').update(JSON.stringify({ viewer, query: Object.entries(query).sort(([a], [b]) => a.localeCompare(b)) })).digest('hex');
-  const etag = `"${createHash('sha256').update(`${key}|${fingerprint}|${SOFTWARE}`).digest('base64url').slice(0, 32)}"`;
-  if (etagMatches(ifNoneMatch, etag)) return { etag, body: null };
-  const [cached] = await sequelize.query<{ body: string }>('SELECT body FROM comparison_cache WHERE cache_key = ? AND fingerprint = ?', {
-    type: QueryTypes.SELECT,
-    replacements: [key, fingerprint],
-  });
-  if (cached) return { etag, body: cached.body };
-  const shape: SelectionShape = { studCounts: { min: fp?.min_studs ?? null, max: fp?.max_studs ?? null }, simulatedLeftOut: Number(fp?.left_out ?? 0) };
-  const body = JSON.stringify(await computeComparison(user, query, [...where, match], params, shape));
-  await sequelize.query('REPLACE INTO comparison_cache (cache_key, fingerprint, body, created_at) VALUES (?, ?, ?, NOW())', { replacements: [key, fingerprint, body] });
-  await sequelize.query('DELETE FROM comparison_cache WHERE created_at < NOW() - INTERVAL ? DAY', { replacements: [CACHE_DAYS] });
-  return { etag, body };
+  return { n: Number(fp?.n ?? 0), changed: fp?.changed ? new Date(fp.changed) : null, ids: Number(fp?.ids ?? 0), leftOut: Number(fp?.left_out ?? 0), names: fp?.names ?? null, holds: fp?.holds ?? null };
 }
 
 /** Every filter except the source, as SQL on the alias `r`, scoped to this person. */
@@ -189,31 +237,38 @@ async function filterSql(user: SessionUser, query: CompareQuery): Promise<{ wher
 
 /**
  * Reads only what the statistics need: per run its group, operator, attempt number (the operator's
- * n-th complete run, counted over their complete runs), target and final loads; drift only when the
- * selection has one stud count (drift by position is not averaged across stud counts).
+ * n-th complete run, counted over their complete runs), target, final loads and drift (drift is used
+ * only when the selection has one stud count: it is not averaged across stud counts). The fingerprint
+ * comes from the same read: the names and holds first (so it can only be older than the rows, which
+ * makes a later check miss, never hit on newer data), then the chosen runs themselves.
  */
-async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], params: unknown[], shape: SelectionShape): Promise<CompareResponse> {
+async function computeComparison(user: SessionUser, query: CompareQuery, where: string[], match: string, params: unknown[]): Promise<{ response: CompareResponse; fingerprint: string }> {
   const column = GROUP_COLUMN[query.by];
-  const oneStudCount = shape.studCounts.min !== null && shape.studCounts.min === shape.studCounts.max;
-  const chosen = where.join(' AND ');
+  const chosen = [...where, match].join(' AND ');
+  const [side] = await sequelize.query<{ left_out: number | string | null; names: string | null; holds: string | null }>(
+    query.source === 'measured'
+      ? `SELECT (SELECT COUNT(*) FROM runs r WHERE ${where.join(' AND ')} AND r.source = 'simulated') AS left_out, ${NAMES_AND_HOLDS_SQL}`
+      : `SELECT 0 AS left_out, ${NAMES_AND_HOLDS_SQL}`,
+    { type: QueryTypes.SELECT, replacements: query.source === 'measured' ? params : [] },
+  );
   // Two queries side by side: the chosen runs (run-level columns and the stud-level bytes, no JSON to
   // parse), and the attempt numbers: every complete run of the operators concerned in the order
   // (operator, recorded_at, id), read from the index `runs_operator_attempts` alone and counted here
   // (what ROW_NUMBER() over each operator's complete runs gives, without the window's sort).
-  const [rows, sequence] = await Promise.all([
-    sequelize.query<RunRowSql>(
-      `SELECT r.id, ${column} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa,
-              r.final_loads_f64, IF(r.final_loads_f64 IS NULL, r.final_loads_json, NULL) AS final_loads_json${oneStudCount ? ', r.drift_f64, IF(r.drift_f64 IS NULL, r.drift_json, NULL) AS drift_json' : ''}
-       FROM runs r WHERE ${chosen} ORDER BY r.id`,
-      { type: QueryTypes.SELECT, replacements: params },
-    ),
-    sequelize.query<{ operator_id: number; id: number }>(
+  // Both through the driver as arrays (readRowArrays): Sequelize's walk over 10,000 rows cost more than the read.
+  const [rowArrays, sequence] = await Promise.all([
+    readRowArrays<RunRowArray>(`SELECT ${runColumnsSql(column)} FROM runs r WHERE ${chosen} ORDER BY r.id`, params),
+    readRowArrays<[operatorId: number, id: number]>(
       `SELECT a.operator_id, a.id FROM runs a
        WHERE a.status = 'complete' AND a.operator_id IN (SELECT DISTINCT r.operator_id FROM runs r WHERE ${chosen})
        ORDER BY a.operator_id, a.recorded_at, a.id`,
-      { type: QueryTypes.SELECT, replacements: params },
+      params,
     ),
   ]);
+  const fingerprint = fingerprintText({ ...fingerprintOfRead(rowArrays), leftOut: Number(side?.left_out ?? 0), names: side?.names ?? null, holds: side?.holds ?? null });
+  const studCounts = new Set(rowArrays.map((a) => a[13]));
+  const oneStudCount = studCounts.size === 1;
+  const rows = rowArrays.map(runRowOf);
   const attemptOf = attemptNumbers(sequence);
   const byGroup = new Map<number, RunRowSql[]>();
   for (const row of rows) {
@@ -233,7 +288,7 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     runs: (byGroup.get(g) ?? []).map((r) => ({
       targetLoadN: r.target_load_n,
       finalLoadsN: finalLoadsOf(r),
-      driftPercent: driftOf(r),
+      driftPercent: oneStudCount ? driftOf(r) : [],
       operator: r.operator_id,
       // Set-aside runs have no place in the operator's sequence of complete runs.
       attempt: attemptOf.get(r.id) ?? null,
@@ -243,11 +298,23 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
     })),
   }));
   const result = compareGroups(inputs, { subject: SUBJECT[query.by], planned: query.planned, blocks: query.by !== 'trainee' });
-  const nutFactors = query.by === 'lubricant' ? await nutFactorsFor(where, params, groupIds, labels) : [];
+  const nutFactors = query.by === 'lubricant' ? await nutFactorsFor([...where, match], params, groupIds, labels) : [];
   const missing = query.ids?.filter((g) => !byGroup.has(g)) ?? [];
   if (missing.length) result.warnings.push(`No runs you may see match ${missing.length === 1 ? 'one of the chosen groups' : `${missing.length} of the chosen groups`} with these filters.`);
   if (query.source === 'both') result.warnings.push('Measured and simulated runs are pooled in these groups, as asked.');
-  return { ...result, by: query.by, source: query.source, totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0), simulatedLeftOut: shape.simulatedLeftOut, nutFactors };
+  const response = { ...result, by: query.by, source: query.source, totalRuns: inputs.reduce((n, g) => n + g.runs.length, 0), simulatedLeftOut: Number(side?.left_out ?? 0), nutFactors };
+  return { response, fingerprint };
+}
+
+/** The chosen runs' part of the fingerprint, from the rows read: what `fingerprintByAggregate` sums. */
+function fingerprintOfRead(rows: readonly RunRowArray[]): Pick<FingerprintParts, 'n' | 'changed' | 'ids'> {
+  let changed: Date | null = null;
+  let ids = 0;
+  for (const row of rows) {
+    ids += Number(row[0]);
+    if (!changed || row[12].getTime() > changed.getTime()) changed = row[12];
+  }
+  return { n: rows.length, changed, ids };
 }
 
 /**
@@ -259,9 +326,11 @@ async function relaxationByRun(rows: readonly RunRowSql[]): Promise<Map<number, 
   const out = new Map<number, number>();
   if (rows.length === 0) return out;
   // Most runs have no hold: find the few that do first, so the last-pass scan below reads their steps only.
-  const held = await sequelize.query<{ run_id: number }>('SELECT DISTINCT run_id FROM run_holds WHERE run_id IN (?)', { type: QueryTypes.SELECT, replacements: [rows.map((r) => Number(r.id))] });
-  if (held.length === 0) return out;
-  const ids = held.map((h) => Number(h.run_id));
+  // The runs with holds come from the primary key's first column alone (a loose index scan, one entry per
+  // held run) and are matched here, instead of sending the ids of every chosen run to the database.
+  const chosen = new Set(rows.map((r) => Number(r.id)));
+  const ids = (await readRowArrays<[runId: number]>('SELECT DISTINCT run_id FROM run_holds')).map(([runId]) => Number(runId)).filter((runId) => chosen.has(runId));
+  if (ids.length === 0) return out;
   const holds = await sequelize.query<{ run_id: number; after_pass: number; elapsed_s: number; position: number; load_n: number }>(
     `SELECT h.run_id, h.after_pass, h.elapsed_s, h.position, h.load_n FROM run_holds h
      JOIN (SELECT s.run_id, MAX(s.pass_number) AS last_pass FROM tightening_steps s WHERE s.run_id IN (?) GROUP BY s.run_id) p ON p.run_id = h.run_id AND p.last_pass = h.after_pass
@@ -285,14 +354,14 @@ async function relaxationByRun(rows: readonly RunRowSql[]): Promise<Map<number, 
 }
 
 /** Each run's attempt number (1-based) from the complete runs in (operator, recorded_at, id) order. */
-function attemptNumbers(sequence: readonly { operator_id: number; id: number }[]): Map<number, number> {
+function attemptNumbers(sequence: readonly (readonly [operatorId: number, id: number])[]): Map<number, number> {
   const attempts = new Map<number, number>();
   let operator: number | null = null;
   let n = 0;
-  for (const run of sequence) {
-    n = run.operator_id === operator ? n + 1 : 1;
-    operator = run.operator_id;
-    attempts.set(run.id, n);
+  for (const [operatorId, id] of sequence) {
+    n = operatorId === operator ? n + 1 : 1;
+    operator = operatorId;
+    attempts.set(id, n);
   }
   return attempts;
 }

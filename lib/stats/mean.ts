@@ -1,6 +1,6 @@
 import { sum } from 'simple-statistics';
 import { assertValues } from './internal/assert-values';
-import { compensatedSumOf } from './internal/compensated-sum-of';
+import { compensatedSumOfDeviations } from './internal/compensated-sum-of';
 
 /**
  * Arithmetic mean of a sample.
@@ -22,10 +22,10 @@ export function mean(values: readonly number[]): number {
   assertValues('mean', values, 1);
   const n = values.length;
   let first = sum(values as number[]) / n;
-  // The same sums as sum(values.map(…)), without the copies (compensatedSumOf).
-  if (!Number.isFinite(first)) first = compensatedSumOf(values, (v) => v / n);
+  // The same sums as sum(values.map(…)), without the copies (compensatedSumOfDeviations).
+  if (!Number.isFinite(first)) first = compensatedSumOfDeviations(values, 0, n, 1);
   const centre = first;
-  const correction = compensatedSumOf(values, (v) => v - centre) / n;
+  const correction = compensatedSumOfDeviations(values, centre, 1, 1) / n;
   const refined = first + correction;
   return Number.isFinite(refined) ? refined : first;
 }

@@ -1,6 +1,6 @@
 import { sum } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { compensatedSumOf } from '@/lib/stats/internal/compensated-sum-of';
+import { compensatedSumOfDeviations } from '@/lib/stats/internal/compensated-sum-of';
 import { centredSums } from '@/lib/stats/internal/centred-sums';
 
 /** A seeded sample with a large offset (where compensation matters), so the check is repeatable. */
@@ -10,14 +10,17 @@ function sample(n: number, offset: number): number[] {
   return Array.from({ length: n }, () => offset + rand() * 1e-3 - 5e-4);
 }
 
-describe('compensatedSumOf', () => {
+describe('compensatedSumOfDeviations', () => {
   it('is bit for bit simple-statistics sum of the mapped copy (the operations it replaces)', () => {
     for (const values of [sample(1, 1e7), sample(17, 1e6), sample(1000, 1e7), sample(999, -3)]) {
       const centre = values[0]! + 1e-4;
-      expect(compensatedSumOf(values, (v) => v - centre)).toBe(sum(values.map((v) => v - centre)));
-      expect(compensatedSumOf(values, (v) => v / values.length)).toBe(sum(values.map((v) => v / values.length)));
+      expect(compensatedSumOfDeviations(values, centre, 1, 1)).toBe(sum(values.map((v) => v - centre)));
+      expect(compensatedSumOfDeviations(values, 0, values.length, 1)).toBe(sum(values.map((v) => v / values.length)));
+      expect(compensatedSumOfDeviations(values, centre, 2 ** -20, 1)).toBe(sum(values.map((v) => (v - centre) / 2 ** -20)));
+      expect(compensatedSumOfDeviations(values, centre, 2 ** -20, 2)).toBe(sum(values.map((v) => ((v - centre) / 2 ** -20) ** 2)));
     }
-    expect(compensatedSumOf([], (v) => v)).toBe(0);
+    expect(compensatedSumOfDeviations([], 1, 1, 1)).toBe(0);
+    expect(compensatedSumOfDeviations([1, 2, 3], 2, 1, 2)).toBe(2);
   });
 
   it('leaves centredSums as the copy-based two-pass formula gave it', () => {

@@ -1,4 +1,4 @@
-import { compensatedSumOf } from './compensated-sum-of';
+import { compensatedSumOfDeviations } from './compensated-sum-of';
 import { powerOfTwoScale } from './power-of-two-scale';
 
 /**
@@ -8,7 +8,7 @@ import { powerOfTwoScale } from './power-of-two-scale';
  * q uses the corrected two-pass formula q = Σe² − (Σe)²/n (Chan, Golub & LeVeque 1983), which
  * removes the first-order error left when the centre is a rounded mean. Sums are
  * Kahan–Babuška–Neumaier compensated, the same operations as simple-statistics `sum` over the
- * scaled deviations (`compensatedSumOf`), without allocating them.
+ * scaled deviations (`compensatedSumOfDeviations`), without allocating them.
  *
  * References: Chan, Golub & LeVeque, "Algorithms for computing the sample variance", The American
  * Statistician 37 (1983) 242–247; Neumaier, ZAMM 54 (1974) 39–51.
@@ -20,11 +20,8 @@ export function centredSums(values: ArrayLike<number>, centre: number): { scale:
   let maxAbs = 0;
   for (let i = 0; i < values.length; i++) maxAbs = Math.max(maxAbs, Math.abs(values[i]! - centre));
   const scale = powerOfTwoScale(maxAbs);
-  const s1 = compensatedSumOf(values, (v) => (v - centre) / scale);
-  const s2 = compensatedSumOf(values, (v) => {
-    const e = (v - centre) / scale;
-    return e * e;
-  });
+  const s1 = compensatedSumOfDeviations(values, centre, scale, 1);
+  const s2 = compensatedSumOfDeviations(values, centre, scale, 2);
   const q = Math.max(0, s2 - (s1 * s1) / values.length);
   return { scale, q };
 }
