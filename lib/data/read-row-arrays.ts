@@ -2,6 +2,7 @@ import 'server-only';
 import { ConnectionError } from 'sequelize';
 import { sequelize } from '@/models';
 import { isConnectionFailure } from '../platform/read-routing';
+import { expandListPlaceholders } from '../platform/expand-list-placeholders';
 
 /**
  * Reads of many rows (a comparison's ten thousand runs) straight from the pool's mariadb connection,
@@ -19,7 +20,7 @@ import { isConnectionFailure } from '../platform/read-routing';
  * driver's `?` placeholders; an array parameter becomes a list (`IN (?)`).
  */
 interface DriverConnection {
-  query(options: { sql: string; rowsAsArray: true; typeCast: null }, values?: unknown[]): Promise<unknown[]>;
+  execute(options: { sql: string; rowsAsArray: true; typeCast: null }, values?: unknown[]): Promise<unknown[]>;
 }
 interface Manager {
   getConnection(options: { type: 'SELECT'; useMaster?: boolean }): Promise<DriverConnection>;
@@ -30,7 +31,8 @@ async function readOnce<Row extends unknown[]>(sql: string, params: readonly unk
   const manager = sequelize.connectionManager as unknown as Manager;
   const connection = await manager.getConnection({ type: 'SELECT', useMaster });
   try {
-    return (await connection.query({ sql, rowsAsArray: true, typeCast: null }, [...params])) as Row[];
+    const statement = expandListPlaceholders(sql, params);
+    return (await connection.execute({ sql: statement.sql, rowsAsArray: true, typeCast: null }, statement.values)) as Row[];
   } finally {
     await manager.releaseConnection(connection);
   }
