@@ -110,15 +110,18 @@ export function compareGroups(inputs: GroupInput[], options: { subject: string; 
       warnings.push(`${name} could not be computed: ${reasonInWords(error)}.`);
     }
   };
-  const studCounts = [...new Set(inputs.flatMap((g) => g.runs.map((r) => r.finalLoadsN.length)))].filter((n) => n > 0).sort((a, b) => a - b);
+  const seenStudCounts = new Set<number>();
+  for (const g of inputs) for (const r of g.runs) if (r.finalLoadsN.length > 0) seenStudCounts.add(r.finalLoadsN.length);
+  const studCounts = [...seenStudCounts].sort((a, b) => a - b);
   const groups: GroupSummary[] = [];
   const chartGroups: ComparisonGroupData[] = [];
   const runLevel: (RunLevelGroup & { key: string; blocked: { lnCv: number; operator: string | number; attempt: number | null }[]; relaxationPercent: number[] })[] = [];
   inputs.forEach((input, index) => {
     const loadsPercent = loadsPercentOf(input.runs);
-    const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [], relaxationPercent: input.runs.flatMap((run) => (typeof run.relaxationPercent === 'number' ? [run.relaxationPercent] : [])) };
+    const level: (typeof runLevel)[number] = { key: input.key, label: input.label, lnCv: [], withinSdPercent: [], meanPercent: [], blocked: [], relaxationPercent: [] };
     const cvs: number[] = [];
     input.runs.forEach((run) => {
+      if (typeof run.relaxationPercent === 'number') level.relaxationPercent.push(run.relaxationPercent);
       const p = runProfile(run);
       if (!p) return;
       level.meanPercent.push(p.meanPercent);

@@ -7,7 +7,8 @@ import type { ComparedRun, GroupGasketFigures } from './compare-types';
  * runs with a known minimum seating stress whose average reaches it (≥).
  */
 export function groupGasketFigures(runs: readonly Pick<ComparedRun, 'gasket'>[]): GroupGasketFigures {
-  const withGasket = runs.flatMap((r) => (r.gasket ? [r.gasket] : []));
+  // filter, not flatMap: a group may hold thousands of runs, and flatMap costs many times as much in V8.
+  const withGasket = runs.filter((r) => r.gasket).map((r) => r.gasket!);
   const withSeating = withGasket.filter((g) => g.minSeatingMpa !== null);
   return {
     meanStressMpa: withGasket.length ? mean(withGasket.map((g) => g.stressMpa)) : null,
