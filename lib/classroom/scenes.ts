@@ -1,6 +1,7 @@
 import type { GasketForStress } from '@/lib/joints/gasket-input';
 import type { NormalisedRun } from '@/lib/record/run-types';
-import { isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
+import { coverageNeedsEvenStuds, isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
+import type { TensionerCoverage } from '@/lib/calc/tensioner-coverage';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 import type { SimLubricant, SimMethod, SimTool } from '@/lib/sim/simulate-run';
 
@@ -88,6 +89,8 @@ export interface LibraryMethod {
   toolKind: SimTool | 'other';
   passes: LibraryMethodPass[];
   checkPasses: number;
+  /** How many studs a tensioner set pulls at once (lib/calc/tensioner-coverage.ts); absent = stud by stud. */
+  tensionerCoverage?: TensionerCoverage;
 }
 
 export interface LibraryLubricant {
@@ -263,7 +266,7 @@ export function sideForRealRun(joint: LibraryJoint, method: LibraryMethod, lubri
     passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, pattern: p.pattern === 'circular' ? 'circular' : 'cross' })),
     checkPasses: method.checkPasses,
   };
-  const hasOrders = passWithoutOrder(method, joint.studCount) === null;
+  const hasOrders = passWithoutOrder(method, joint.studCount) === null && !coverageNeedsEvenStuds(method, joint.studCount);
   return side('model', 'The model', `${method.name}, ${lubricant.name}`, hasOrders ? method : null, wanted, lubricant, joint.studCount);
 }
 
