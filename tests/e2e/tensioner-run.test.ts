@@ -114,6 +114,32 @@ describe('a tensioning run and its hold, recorded, reported and compared', () =>
     await page.context().close();
   });
 
+  it('takes the same method typed by hand: each row names the studs pulled, with their applied loads beneath', async () => {
+    // Invented kN: each pull applies 92 and leaves 80 (measured LTF 1.15); the other pair eases by 3 or 1 kN.
+    const rows = [[80, 0, 80, 0], [77, 80, 77, 80], [80, 79, 80, 79], [79, 80, 79, 80]];
+    const page = await page1280('instructor');
+    await page.goto(`${server.baseUrl}/record`);
+    await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (4 studs)` });
+    await page.getByLabel('Method', { exact: true }).selectOption(String(methodIds[0]));
+    await page.getByRole('tab', { name: 'Enter by hand' }).click();
+    // 50 % coverage: the plan names studs 1 3, then 2 4, in each pass.
+    expect(await page.getByLabel('Step 2, studs pulled').inputValue()).toBe('2 4');
+    for (const [i, row] of rows.entries()) {
+      for (const [j, kN] of row.entries()) await page.getByLabel(`Step ${i + 1}, stud ${j + 1}, kN`, { exact: true }).fill(String(kN));
+      for (const stud of i % 2 === 0 ? [1, 3] : [2, 4]) await page.getByLabel(`Step ${i + 1}, stud ${stud}, applied, kN`, { exact: true }).fill('92');
+    }
+    await page.getByRole('button', { name: 'Save run' }).click();
+    const saved = page.getByText(/^Saved run \d+ with 4 steps\./);
+    await saved.waitFor({ timeout: 20_000 });
+    expect(await saved.textContent()).not.toMatch(/needs review/);
+    const runId = Number(/Saved run (\d+)/.exec((await saved.textContent()) ?? '')![1]);
+    const [count] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM step_positions WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
+    expect(Number(count!.n)).toBe(8);
+    // Removed again, so the comparison below keeps its two runs per method.
+    await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [runId] });
+    await page.context().close();
+  });
+
   it('reports applied and residual load per stud and the measured LTF beside the rule, and takes a hold', async () => {
     const page = await page1280('instructor');
     await page.goto(`${server.baseUrl}/runs/${uploadedRun}`);
