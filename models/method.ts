@@ -2,6 +2,9 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 export const TOOL_KINDS = ['manual_torque_wrench', 'hydraulic_torque_wrench', 'hydraulic_tensioner', 'other'] as const;
 export type ToolKind = (typeof TOOL_KINDS)[number];
+/** How many studs the method's tool set pulls at once (lib/calc/tensioner-coverage.ts); torque methods are `one_stud`. */
+export const TENSIONER_COVERAGES = ['every_stud', 'every_second_stud', 'one_stud'] as const;
+export type TensionerCoverage = (typeof TENSIONER_COVERAGES)[number];
 /**
  * One pass of a method: a % of the target load and the stud order. Cross and circular orders are
  * generated per stud count; a custom order is given explicitly. `orderByStudCount` holds the order
@@ -19,6 +22,7 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
   declare toolKind: ToolKind;
   declare passes: MethodPass[];
   declare checkPasses: CreationOptional<number>;
+  declare tensionerCoverage: CreationOptional<TensionerCoverage>;
   declare notes: CreationOptional<string | null>;
   /** Optimistic-lock version: raised by one on every edit (lib/data/optimistic-lock.ts). */
   declare version: CreationOptional<number>;
@@ -41,6 +45,7 @@ export class Method extends Model<InferAttributes<Method>, InferCreationAttribut
           },
         },
         checkPasses: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 0 },
+        tensionerCoverage: { type: DataTypes.ENUM(...TENSIONER_COVERAGES), allowNull: false, defaultValue: 'one_stud' },
         notes: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         createdAt: { type: DataTypes.DATE, allowNull: false },

@@ -6,7 +6,7 @@ import type { JointForImport } from '@/lib/ingest/normalise';
 import type { ColumnMapping } from '@/lib/ingest/shapes';
 import { jointForImport } from '@/lib/record/joint-import';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import { planSteps } from '@/lib/record/step-plan';
+import { importPlanSteps } from '@/lib/record/step-plan';
 import type { ParsedFile, ParsedPreview, ParseResponse } from './parse-messages';
 
 /** What the panel shows while a long job runs (parsing here, sending in `upload-request.ts`). */
@@ -27,7 +27,7 @@ const sameHeaders = (a: readonly string[], b: readonly string[]) => a.length ===
  */
 /** The joint as lib/ingest needs it, with the chosen method's steps (as the server adds them). */
 function importJoint(joint: RecordJoint, method: RecordMethod | null): JointForImport {
-  return { ...jointForImport(joint), plannedSteps: method ? planSteps(method, joint.studCount).steps : undefined };
+  return { ...jointForImport(joint), plannedSteps: method ? importPlanSteps(method, joint.studCount) : undefined };
 }
 
 export function useFileParse({ joint, method, rememberedMappings, onProgress, onParseStart }: {

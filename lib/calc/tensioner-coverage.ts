@@ -1,5 +1,6 @@
 import { AppError } from '@/lib/http/errors';
 import type { NormalisedRun, NormalisedStep } from '@/lib/record/run-types';
+import type { TensionerCoverage as StoredCoverage } from '@/models/method';
 import { LTF_RULES, loadTransferFactor } from './tensioner';
 
 /**
@@ -15,6 +16,42 @@ import { LTF_RULES, loadTransferFactor } from './tensioner';
  */
 
 export type ToolCoverage = 100 | 50;
+
+/**
+ * How many studs a library method's tool set pulls at once (stored on the method,
+ * `methods.tensioner_coverage`): a tool on every stud (100 % tensioner coverage), a tool on every
+ * second stud (50 %), or one tool moved stud by stud. Torque methods are always `one_stud`.
+ * The same list as models/method.ts, repeated so the browser does not import the model (`satisfies`
+ * keeps the two in step at compile time).
+ */
+export const TENSIONER_COVERAGES = ['every_stud', 'every_second_stud', 'one_stud'] as const satisfies readonly StoredCoverage[];
+export type TensionerCoverage = (typeof TENSIONER_COVERAGES)[number];
+
+export const TENSIONER_COVERAGE_LABELS: Record<TensionerCoverage, string> = {
+  every_stud: '100 % tensioner coverage: a tool on every stud',
+  every_second_stud: '50 % tensioner coverage: a tool on every second stud',
+  one_stud: 'One tool, moved stud by stud',
+};
+
+/** The coverage in a few words, for tables. */
+export const TENSIONER_COVERAGE_SHORT: Record<TensionerCoverage, string> = {
+  every_stud: '100 % coverage',
+  every_second_stud: '50 % coverage',
+  one_stud: 'one tool, stud by stud',
+};
+
+/** The step model's coverage of a stored method coverage; null = one stud per step. */
+export const toolCoverageOf = (coverage: TensionerCoverage | null | undefined): ToolCoverage | null =>
+  coverage === 'every_stud' ? 100 : coverage === 'every_second_stud' ? 50 : null;
+
+/**
+ * The groups of one pass of a method on a joint of `studCount` studs: the coverage's groups, or one
+ * group per stud in the pass's `order` when one tool moves stud by stud.
+ */
+export function passGroups(order: readonly number[], studCount: number, coverage: TensionerCoverage | null | undefined): number[][] {
+  const tool = toolCoverageOf(coverage);
+  return tool === null ? order.map((p) => [p]) : tensionerStepGroups(studCount, tool);
+}
 
 /** Position groups (1-based) tightened together, in order, for one pass. */
 export function tensionerStepGroups(studCount: number, coverage: ToolCoverage): number[][] {

@@ -1,6 +1,7 @@
 import type { GasketForStress } from '@/lib/joints/gasket-input';
 import type { NormalisedRun } from '@/lib/record/run-types';
-import { isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
+import { coverageNeedsEvenStuds, isDryLubricant, LIBRARY_RUN_DEFAULTS, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
+import { TENSIONER_COVERAGE_SHORT, toolCoverageOf, type TensionerCoverage } from '@/lib/calc/tensioner-coverage';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
 import type { SimLubricant, SimMethod, SimTool } from '@/lib/sim/simulate-run';
 
@@ -88,6 +89,8 @@ export interface LibraryMethod {
   toolKind: SimTool | 'other';
   passes: LibraryMethodPass[];
   checkPasses: number;
+  /** How many studs a tensioner set pulls at once (lib/calc/tensioner-coverage.ts); absent = stud by stud. */
+  tensionerCoverage?: TensionerCoverage;
 }
 
 export interface LibraryLubricant {
@@ -107,6 +110,8 @@ interface MethodWanted {
   tool: SimTool;
   passes: { percentOfTarget: number; pattern: 'cross' | 'circular' }[];
   checkPasses: number;
+  /** A tensioner side's tool set: a library method must pull the same studs at once. */
+  tensionerCoverage?: TensionerCoverage;
 }
 
 type LubricantWanted = 'dry' | 'paste';
@@ -125,6 +130,7 @@ export function findMethod(methods: readonly LibraryMethod[], wanted: MethodWant
       (m) =>
         m.toolKind === wanted.tool &&
         m.checkPasses === wanted.checkPasses &&
+        (wanted.tensionerCoverage === undefined || (m.tensionerCoverage ?? 'one_stud') === wanted.tensionerCoverage) &&
         m.passes.length === wanted.passes.length &&
         m.passes.every((p, i) => p.percentOfTarget === wanted.passes[i]!.percentOfTarget && p.pattern === wanted.passes[i]!.pattern && Array.isArray(p.orderByStudCount[String(studCount)])),
     ) ?? null
@@ -135,7 +141,8 @@ export function findMethod(methods: readonly LibraryMethod[], wanted: MethodWant
 function simMethodOf(method: LibraryMethod | null, wanted: MethodWanted, studCount: number): SimMethod {
   if (method) return methodForSim(method, studCount);
   const order = (pattern: 'cross' | 'circular') => (pattern === 'cross' && studCount % 4 === 0 ? crossPatternOrder(studCount) : circularOrder(studCount));
-  return { tool: wanted.tool, checkPasses: wanted.checkPasses, passes: wanted.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: order(p.pattern) })) };
+  const coverage = toolCoverageOf(wanted.tensionerCoverage);
+  return { tool: wanted.tool, checkPasses: wanted.checkPasses, passes: wanted.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, order: order(p.pattern) })), ...(coverage === null ? {} : { coverage }) };
 }
 
 const ONE_CROSS: MethodWanted = { tool: 'manual_torque_wrench', passes: [{ percentOfTarget: 100, pattern: 'cross' }], checkPasses: 0 };
@@ -145,7 +152,8 @@ const THREE_CROSS_CHECK: MethodWanted = {
   passes: [30, 60, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross' as const })),
   checkPasses: 1,
 };
-const TENSIONER_TWO: MethodWanted = { tool: 'hydraulic_tensioner', passes: [100, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross' as const })), checkPasses: 0 };
+/** Two passes with a tool on every stud (100 % tensioner coverage): a library tensioner method must have the same coverage. */
+const TENSIONER_TWO: MethodWanted = { tool: 'hydraulic_tensioner', passes: [100, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross' as const })), checkPasses: 0, tensionerCoverage: 'every_stud' };
 
 /** One joint of a scene, simulated or recorded. */
 export interface SceneSide {
@@ -193,7 +201,8 @@ function side(key: string, label: string, caption: string, method: LibraryMethod
 
 function describeWanted(wanted: MethodWanted): string {
   const passes = wanted.passes.map((p) => `${p.percentOfTarget} % ${p.pattern}`).join(', ');
-  return `${wanted.tool.replaceAll('_', ' ')}: ${passes}${wanted.checkPasses ? ` + ${wanted.checkPasses} circular check` : ''}`;
+  const coverage = wanted.tensionerCoverage ? `, ${TENSIONER_COVERAGE_SHORT[wanted.tensionerCoverage]}` : '';
+  return `${wanted.tool.replaceAll('_', ' ')}: ${passes}${wanted.checkPasses ? ` + ${wanted.checkPasses} circular check` : ''}${coverage}`;
 }
 
 /**
@@ -246,8 +255,7 @@ export function sceneSetup(scene: Exclude<SceneKey, 'real'>, library: Library, j
         side('torque', 'Torque wrench', '30 / 60 / 100 % cross + check, torque through K', method(THREE_CROSS_CHECK), THREE_CROSS_CHECK, paste, n),
         side('tension', 'Hydraulic tensioner', `two passes, every stud at once (100 % tool coverage), load transfer factor ${DEFAULT_LTF}`, method(TENSIONER_TWO), TENSIONER_TWO, paste, n),
       ];
-      // A tool on every stud: each pass is one step that covers them all (lib/calc/tensioner-coverage.ts).
-      sides[1]!.simMethod = { ...sides[1]!.simMethod, coverage: 100 };
+      // A tool on every stud: each pass is one step that covers them all (the method's coverage, lib/calc/tensioner-coverage.ts).
       break;
   }
   return { scene, joint, sides, missing };
@@ -263,7 +271,7 @@ export function sideForRealRun(joint: LibraryJoint, method: LibraryMethod, lubri
     passes: method.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, pattern: p.pattern === 'circular' ? 'circular' : 'cross' })),
     checkPasses: method.checkPasses,
   };
-  const hasOrders = passWithoutOrder(method, joint.studCount) === null;
+  const hasOrders = passWithoutOrder(method, joint.studCount) === null && !coverageNeedsEvenStuds(method, joint.studCount);
   return side('model', 'The model', `${method.name}, ${lubricant.name}`, hasOrders ? method : null, wanted, lubricant, joint.studCount);
 }
 

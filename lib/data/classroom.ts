@@ -42,6 +42,7 @@ export async function classroomLibrary(user: SessionUser): Promise<Library> {
       name: m.name,
       toolKind: m.toolKind,
       checkPasses: m.checkPasses,
+      tensionerCoverage: m.tensionerCoverage,
       passes: m.passes.map((p) => ({ percentOfTarget: p.percentOfTarget, pattern: p.pattern, orderByStudCount: p.orderByStudCount })),
     })),
     lubricants: lubricants.map((l) => ({ id: l.id, name: l.name, nominalNutFactor: l.nominalNutFactor })),

@@ -14,7 +14,7 @@ import type { LubricantInput, MethodInput } from '@/lib/joints/method-input';
 import type { ThreadSpec } from '@/lib/calc/thread';
 import type { GradeId } from '@/lib/calc/grades';
 import { Joint, JointPosition, Lubricant, Method, Run, sequelize } from '@/models';
-import type { MethodPass, ToolKind } from '@/models/method';
+import type { MethodPass, TensionerCoverage, ToolKind } from '@/models/method';
 import type { Role } from '@/models/user';
 import { assertRole, type SessionUser } from '../auth/session';
 
@@ -57,6 +57,8 @@ export interface MethodSummary {
   toolKind: ToolKind;
   passes: MethodPass[];
   checkPasses: number;
+  /** How many studs the tool set pulls at once (lib/calc/tensioner-coverage.ts). */
+  tensionerCoverage: TensionerCoverage;
   notes: string | null;
   runCount: number;
   version: number;
@@ -106,6 +108,7 @@ const methodSummary = (m: Method, runs: number): MethodSummary => ({
   toolKind: m.toolKind,
   passes: m.passes,
   checkPasses: m.checkPasses,
+  tensionerCoverage: m.tensionerCoverage,
   notes: m.notes ?? null,
   runCount: runs,
   version: m.version,

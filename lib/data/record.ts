@@ -12,7 +12,7 @@ import { jointForImport } from '@/lib/record/joint-import';
 import { loggerLineFromColumns } from '@/lib/joints/logger-line-input';
 import type { LoggerLineFormat } from '@/lib/ingest/logger-line';
 import type { RunSource, RunStatus } from '@/models/run';
-import type { MethodPass } from '@/models/method';
+import type { MethodPass, TensionerCoverage, ToolKind } from '@/models/method';
 import { Cohort, CohortMember, HardwareSet, Joint, JointPosition, Lubricant, LubricantLot, Method, User, sequelize } from '@/models';
 import type { SessionUser } from '../auth/session';
 import { taughtCohortIds } from './scope';
@@ -46,7 +46,12 @@ export interface RecordMethod {
   name: string;
   passes: MethodPass[];
   checkPasses: number;
+  toolKind: ToolKind;
+  /** How many studs the tool set pulls at once (lib/calc/tensioner-coverage.ts). */
+  tensionerCoverage: TensionerCoverage;
 }
+
+const recordMethod = (m: Method): RecordMethod => ({ id: m.id, name: m.name, passes: m.passes, checkPasses: m.checkPasses, toolKind: m.toolKind, tensionerCoverage: m.tensionerCoverage });
 
 export interface RecordOption {
   id: number;
@@ -140,7 +145,7 @@ export async function recordOptions(user: SessionUser): Promise<RecordOptions> {
   const cohorts = cohortIds.length ? await Cohort.findAll({ where: { id: cohortIds }, attributes: ['id', 'name', 'startsOn', 'endsOn'], order: [['startsOn', 'DESC']] }) : [];
   return {
     joints: joints.map((j) => jointDto(j, positions.filter((p) => p.jointId === j.id))),
-    methods: methods.map((m) => ({ id: m.id, name: m.name, passes: m.passes, checkPasses: m.checkPasses })),
+    methods: methods.map((m) => recordMethod(m)),
     lubricants,
     cohorts: cohorts.map((c) => ({ id: c.id, name: c.name, startsOn: String(c.startsOn).slice(0, 10), endsOn: String(c.endsOn).slice(0, 10) })),
     operators,
@@ -198,7 +203,7 @@ export async function resolveRunHeader(user: SessionUser, input: unknown, source
   const dto = jointDto(joint, positions);
   return {
     joint: dto,
-    method: { id: method.id, name: method.name, passes: method.passes, checkPasses: method.checkPasses },
+    method: recordMethod(method),
     jointImport: jointForImport(dto),
     header: {
       jointId: joint.id,

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { nameSchema } from '@/lib/validation/display-name';
 import { circularOrder, crossPatternOrder, validatePassOrder } from '@/lib/sim/patterns';
+import { TENSIONER_COVERAGES, type TensionerCoverage } from '@/lib/calc/tensioner-coverage';
 import type { MethodPass, ToolKind } from '@/models/method';
 import { numberFromText, STUD_COUNT_RANGE, type FieldErrors, type ParseResult } from './joint-input';
 
@@ -80,7 +81,28 @@ export interface MethodInput {
   toolKind: ToolKind;
   passes: MethodPass[];
   checkPasses: number;
+  tensionerCoverage: TensionerCoverage;
   notes: string | null;
+}
+
+/**
+ * The coverage a new tensioner method starts with in the form (a tool on every stud). A training
+ * default: the centre sets its own from the tool sets it has.
+ */
+export const DEFAULT_TENSIONER_COVERAGE: TensionerCoverage = 'every_stud';
+
+const tensionerCoverageSchema = z.enum(TENSIONER_COVERAGES, { error: 'Choose how many studs the tool set pulls at once from the list.' });
+
+/**
+ * The coverage field against the tool and the stud counts: only a tensioner pulls several studs at
+ * once, and a tool on every second stud needs an even stud count. Null when it fits.
+ */
+export function tensionerCoverageProblem(coverage: TensionerCoverage, toolKind: string, studCounts: readonly number[]): string | null {
+  if (coverage === 'one_stud') return null;
+  if (toolKind !== 'hydraulic_tensioner') return 'Only a hydraulic tensioner set pulls several studs at once: choose one tool, stud by stud, for this tool.';
+  const odd = studCounts.filter((n) => n % 2 !== 0);
+  if (coverage === 'every_second_stud' && odd.length > 0) return `A tensioner on every second stud needs an even number of studs; ${odd.join(', ')} ${odd.length === 1 ? 'is' : 'are'} odd.`;
+  return null;
 }
 
 const methodScalars = z.object({
@@ -125,6 +147,10 @@ export function parseMethodForm(values: Record<string, string | undefined>): Par
 
   const studCounts = studCountsFromText(values.studCounts);
   if (studCounts.length === 0) errors.studCounts = ['Give at least one stud count the method is used with.'];
+  // A form without the field (a torque tool hides it) is one tool, stud by stud.
+  const coverage = tensionerCoverageSchema.safeParse(values.tensionerCoverage || 'one_stud');
+  const coverageProblem = coverage.success ? tensionerCoverageProblem(coverage.data, values.toolKind ?? '', studCounts) : coverage.error.issues[0]?.message ?? 'Not valid.';
+  if (coverageProblem) errors.tensionerCoverage = [coverageProblem];
   const passCount = numberFromText(values.passCount);
   if (!Number.isInteger(passCount) || passCount < 1 || passCount > MAX_PASSES) {
     errors.passCount = [`A method has between 1 and ${MAX_PASSES} passes.`];
@@ -149,7 +175,7 @@ export function parseMethodForm(values: Record<string, string | undefined>): Par
     const count = Object.keys(errors).length;
     return { ok: false, errors, message: `The method was not saved: ${count} field${count === 1 ? ' needs' : 's need'} attention (see the messages beside them).` };
   }
-  return { ok: true, value: { ...scalars.data, passes } };
+  return { ok: true, value: { ...scalars.data, passes, tensionerCoverage: coverage.success ? coverage.data : 'one_stud' } };
 }
 
 export interface LubricantInput {

@@ -28,6 +28,15 @@ export const manualEntrySchema = z.object({
    * step. Blank cells are null; a row may be left wholly blank only at the end (run stopped early).
    */
   rows: z.array(z.array(manualCellSchema)).min(1, 'Enter the loads of at least one step.').max(2000, 'At most 2,000 steps.'),
+  /**
+   * Tensioner methods only, one per row (index = row): the studs the step pulled ("1 3 5 7") and
+   * each one's applied load by position (index 0 = stud 1, blank for a stud not pulled), in the
+   * grid's unit; the row's loads are then the residual loads after release (lib/record/manual-pulls.ts).
+   */
+  pulls: z
+    .array(z.object({ studs: z.string().max(200, 'A list of studs has at most 200 characters.'), applied: z.array(manualCellSchema).max(200) }))
+    .max(2000, 'At most 2,000 steps.')
+    .optional(),
   /** Hold readings after a pass, in the layout of lib/record/hold-readings.ts (kN, or lbf when the grid is in lbf); optional. */
   holds: z.string().max(20_000, 'Hold readings have at most 20,000 characters.').optional(),
 });

@@ -1,5 +1,5 @@
 import { count } from './format';
-import { hasMultiStudSteps, tensionerPassProblem, tensionerPasses } from './tensioner-passes';
+import { hasMultiStudSteps, methodPullsGroups, tensionerPassProblem, tensionerPasses } from './tensioner-passes';
 import type { RunCheckInput, RunCheckReason } from './types';
 
 /**
@@ -10,7 +10,7 @@ import type { RunCheckInput, RunCheckReason } from './types';
  */
 export function checkPasses({ run, jointStudCount, method }: RunCheckInput): RunCheckReason | null {
   const plannedPasses = method.passes.length + method.checkPasses;
-  if (hasMultiStudSteps(run)) return checkTensionerPasses(run, jointStudCount, method, plannedPasses);
+  if (hasMultiStudSteps(run) || methodPullsGroups(method)) return checkTensionerPasses(run, jointStudCount, method, plannedPasses);
   const plannedSteps = plannedPasses * jointStudCount;
   const recordedPasses = new Set(run.steps.map((step) => step.pass)).size;
   if (recordedPasses === plannedPasses && run.steps.length === plannedSteps) return null;
@@ -23,12 +23,13 @@ export function checkPasses({ run, jointStudCount, method }: RunCheckInput): Run
 }
 
 /**
- * A run whose tensioner steps cover several studs: as many passes as the method prescribes, each
- * covering every stud once, in 1 step (100 % tool coverage), 2 (50 %) or one per stud.
+ * A run whose tensioner steps cover several studs, or of a method whose tool set pulls several at
+ * once: as many passes as the method prescribes, each covering every stud once in the groups of the
+ * method's coverage: 1 step (100 % tensioner coverage), 2 (50 %) or one per stud (one tool).
  */
 function checkTensionerPasses(run: RunCheckInput['run'], studCount: number, method: RunCheckInput['method'], plannedPasses: number): RunCheckReason | null {
   const passes = tensionerPasses(run);
-  const problems = passes.map((pass) => tensionerPassProblem(pass, studCount)).filter((p): p is string => p !== null);
+  const problems = passes.map((pass) => tensionerPassProblem(pass, studCount, method.tensionerCoverage)).filter((p): p is string => p !== null);
   if (passes.length === plannedPasses && problems.length === 0) return null;
   const counted = `The run has ${count(passes.length, 'pass', 'passes')} of tensioner steps; the method "${method.name}" prescribes ${count(plannedPasses, 'pass', 'passes')}`;
   return { rule: 'passes', message: problems.length ? `${counted}, and ${problems[0]}.` : `${counted}.` };

@@ -1,6 +1,6 @@
 import { planSteps } from '../record/step-plan';
 import type { RunCheckInput, RunCheckReason } from './types';
-import { hasMultiStudSteps } from './tensioner-passes';
+import { hasMultiStudSteps, methodPullsGroups } from './tensioner-passes';
 
 /**
  * Order: step by step, the stud tightened is the one the method's order prescribes (check passes
@@ -8,8 +8,8 @@ import { hasMultiStudSteps } from './tensioner-passes';
  * A method without a stud order for the joint's stud count prescribes no order, so nothing is held.
  */
 export function checkStepOrder({ run, jointStudCount, method }: RunCheckInput): RunCheckReason | null {
-  // A run of tensioner steps that cover several studs is held to its groups by checkPasses instead.
-  if (hasMultiStudSteps(run)) return null;
+  // A run of tensioner steps that cover several studs (or of a method that pulls groups) is held to its groups by checkPasses instead.
+  if (hasMultiStudSteps(run) || methodPullsGroups(method)) return null;
   const plan = planSteps(method, jointStudCount);
   if (plan.problem) return null;
   const steps = [...run.steps].sort((a, b) => a.order - b.order);

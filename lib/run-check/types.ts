@@ -1,5 +1,5 @@
 import type { NormalisedRun } from '../record/run-types';
-import type { MethodPass } from '@/models/method';
+import type { MethodPass, TensionerCoverage } from '@/models/method';
 
 /**
  * The check a run passes before it counts (lib/run-check). Pure and browser-safe: the server calls
@@ -20,7 +20,8 @@ export interface RunCheckInput {
   run: NormalisedRun;
   /** The joint's stud count. */
   jointStudCount: number;
-  method: { name: string; passes: readonly MethodPass[]; checkPasses: number };
+  /** `tensionerCoverage` absent = `one_stud` (one stud per step). */
+  method: { name: string; passes: readonly MethodPass[]; checkPasses: number; tensionerCoverage?: TensionerCoverage };
   /** The run's band, ± % of target. */
   bandPercent: number;
   /** The stud's minimum yield load and the table it comes from; null when the grade is not in our table. */

@@ -1,3 +1,4 @@
+import { toolCoverageOf, type TensionerCoverage } from '@/lib/calc/tensioner-coverage';
 import { SimInputError } from './errors';
 import { simulateRun, type GasketStiffness, type SimLubricant, type SimMethod, type SimTool, type SimulateRunResult } from './simulate-run';
 
@@ -16,11 +17,13 @@ export interface LibraryJointForSim {
   studDiameterM: number;
 }
 
-/** A library method: its tool, its passes with an order per stud count, and its circular check passes. */
+/** A library method: its tool, its passes with an order per stud count, its circular check passes and its tensioner coverage. */
 export interface LibraryMethodForSim {
   toolKind: SimTool | 'other';
   passes: readonly { percentOfTarget: number; orderByStudCount: Readonly<Record<string, readonly number[]>> }[];
   checkPasses: number;
+  /** How many studs a tensioner set pulls at once; absent or `one_stud` = stud by stud. Ignored for torque tools. */
+  tensionerCoverage?: TensionerCoverage;
 }
 
 /** A library lubricant: only its nominal nut factor is stored. */
@@ -59,25 +62,35 @@ export function passWithoutOrder(method: LibraryMethodForSim, studCount: number)
   return index < 0 ? null : index + 1;
 }
 
+/** True when a library method is a tensioner whose tool set covers every second stud on a joint with an odd stud count (no such set). */
+export const coverageNeedsEvenStuds = (method: LibraryMethodForSim, studCount: number): boolean =>
+  method.toolKind === 'hydraulic_tensioner' && method.tensionerCoverage === 'every_second_stud' && studCount % 2 !== 0;
+
 /**
- * The simulator's method for a library method on a joint of `studCount` studs.
- * @throws {SimInputError} when a pass has no order for this stud count (check {@link passWithoutOrder} first).
+ * The simulator's method for a library method on a joint of `studCount` studs. A tensioner method
+ * whose tool set pulls several studs at once is simulated by its coverage (groups of studs per step,
+ * lib/calc/tensioner-coverage.ts); torque methods and one tool moved stud by stud keep the pass order.
+ * @throws {SimInputError} when a pass has no order for this stud count (check {@link passWithoutOrder} first)
+ *   or when 50 % coverage meets an odd stud count (check {@link coverageNeedsEvenStuds}).
  */
 export function methodForSim(method: LibraryMethodForSim, studCount: number): SimMethod {
   const missing = passWithoutOrder(method, studCount);
   if (missing !== null) throw new SimInputError(`methodForSim requires an order for ${studCount} studs in pass ${missing}`);
+  if (coverageNeedsEvenStuds(method, studCount)) throw new SimInputError(`methodForSim requires an even stud count for 50 % tensioner coverage, got ${studCount}`);
+  const coverage = method.toolKind === 'hydraulic_tensioner' ? toolCoverageOf(method.tensionerCoverage) : null;
   return {
     tool: simToolOf(method.toolKind),
     checkPasses: method.checkPasses,
     passes: method.passes.map((pass) => ({ percentOfTarget: pass.percentOfTarget, order: [...pass.orderByStudCount[String(studCount)]!] })),
+    ...(coverage === null ? {} : { coverage }),
   };
 }
 
 /**
  * Settings the library does not store, the same on every page: a medium gasket and the simulator's
  * tensioner LTF 1.15 (floor of ✓ [TENS1], docs/REFERENCE.md §4). A library tensioner method is
- * simulated one stud per step, as its pass order reads; a tool set on several studs at once is
- * `SimMethod.coverage` (the Classroom's tensioning scene sets 100 %).
+ * simulated by its `tensionerCoverage` (`SimMethod.coverage` through {@link methodForSim}): a step
+ * per group of studs, or one stud per step as its pass order reads when one tool is moved.
  */
 export const LIBRARY_RUN_DEFAULTS = { gasketStiffness: 'medium', loadTransferFactor: 1.15 } as const;
 

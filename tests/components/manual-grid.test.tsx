@@ -35,4 +35,23 @@ describe('ManualGrid', () => {
     expect(screen.getByLabelText('Step 1, stud 1, kN')).toHaveAttribute('aria-invalid', 'true');
     expect(screen.getByRole('button', { name: 'Save run' })).toBeDisabled();
   });
+
+  it('lets a tensioner row name several studs with their applied loads, and sends them as the schema reads them', () => {
+    // A 50 % coverage tensioner method on 4 studs: odd positions, then even (common practice). Invented loads.
+    const tensioner = { ...method, toolKind: 'hydraulic_tensioner', tensionerCoverage: 'every_second_stud' };
+    render(<ManualGrid joint={joint} method={tensioner as never} header={header} onHeaderErrors={() => {}} units="si" />);
+    expect(screen.getByRole('complementary', { name: 'Caution' })).toHaveTextContent("follow the tool maker's instructions");
+    const studs = screen.getByLabelText('Step 1, studs pulled') as HTMLInputElement;
+    expect(studs.value).toBe('1 3');
+    ['1.2', '0', '1.2', '0'].forEach((v, i) => fireEvent.change(screen.getByLabelText(`Step 1, stud ${i + 1}, kN`), { target: { value: v } }));
+    fireEvent.change(screen.getByLabelText('Step 1, stud 1, applied, kN'), { target: { value: '1.38' } });
+    fireEvent.change(screen.getByLabelText('Step 1, stud 3, applied, kN'), { target: { value: '1.4' } });
+    const payload = manualEntrySchema.parse(JSON.parse((document.querySelector('input[name="payload"]') as HTMLInputElement).value));
+    expect(payload.pulls?.[0]).toEqual({ studs: '1 3', applied: [1.38, null, 1.4, null] });
+    expect(payload.pulls?.[1]?.studs).toBe('2 4');
+    // A stud named twice is refused at once, and the run cannot be saved.
+    fireEvent.change(studs, { target: { value: '1 3 3' } });
+    expect(screen.getByText('Step 1, studs pulled: stud 3 is named twice.')).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Save run' })).toBeDisabled();
+  });
 });

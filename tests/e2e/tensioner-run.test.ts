@@ -10,7 +10,7 @@ import type { NormalisedRun } from '@/lib/record/run-types';
 import type { AppServer } from '../support/app-server';
 import { sharedAppServer } from '../support/shared-app-server';
 import { launchBrowser, signedInPage } from '../support/browser';
-import { createTestJoint, dropTestJoints, dropTestMethods } from '../support/record-fixtures';
+import { createTestJoint, createTestMethod, dropTestJoints, dropTestMethods } from '../support/record-fixtures';
 
 // A tensioning run with 50 % tool coverage (studs 1 and 3, then 2 and 4) is uploaded as a wide logger file
 // without step markers, reported (applied and residual load, measured load transfer factor beside the rule),
@@ -25,16 +25,8 @@ const methodIds: number[] = [];
 const seededRuns: number[] = [];
 let uploadedRun = 0;
 
-/** A two-pass tensioner method for 4 studs (stored order 1-3-2-4, common practice for 4 studs). */
-async function tensionerMethod(name: string): Promise<number> {
-  const now = new Date();
-  const passes = [100, 100].map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross', orderByStudCount: { '4': [1, 3, 2, 4] } }));
-  const [id] = await sequelize.query('INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?,?,?,0,NULL,?,?)', {
-    type: QueryTypes.INSERT,
-    replacements: [`${name} ${Date.now()} (invented)`, 'hydraulic_tensioner', JSON.stringify(passes), now, now],
-  });
-  return Number(id);
-}
+/** A two-pass tensioner method for 4 studs (stored order 1-3-2-4, common practice for 4 studs) with its tool coverage. */
+const tensionerMethod = (name: string, coverage: 'every_stud' | 'every_second_stud'): Promise<number> => createTestMethod(name, [100, 100], { coverage });
 
 /**
  * The logger file: each pull takes its two studs to 92 kN (applied), the tool is released and they keep
@@ -55,10 +47,14 @@ function tensionerCsv(): string {
   return ['# Invented test data for Evenload: a 4-stud joint tensioned with 50 % tool coverage.', 'Time (s),Stud 1 [kN],Stud 2 [kN],Stud 3 [kN],Stud 4 [kN]', ...lines].join('\n');
 }
 
-/** A stored run of a 4-stud joint at 100 % coverage with a hold 1 h after its last pass that keeps `kept` of each load. */
-async function seedHeldRun(methodId: number, operatorId: number, finalKn: number[], kept: number): Promise<void> {
-  const covers = (loads: number[]) => loads.map((n, i) => ({ position: i + 1, appliedN: n * 1150, residualN: n * 1000 }));
-  const run: NormalisedRun = { studCount: 4, targetLoadN: 80_000, steps: [1, 2].map((pass) => ({ order: pass, pass, position: 1, loadsN: finalKn.map((n) => n * 1000), covers: covers(finalKn) })) };
+/**
+ * A stored run of a 4-stud joint with a hold 1 h after its last pass that keeps `kept` of each load; its steps pull
+ * the groups of its method's coverage (every stud, or studs 1 and 3 then 2 and 4), each pass to the final loads.
+ */
+async function seedHeldRun(methodId: number, operatorId: number, finalKn: number[], kept: number, groups: number[][]): Promise<void> {
+  const covers = (group: number[]) => group.map((p) => ({ position: p, appliedN: finalKn[p - 1]! * 1150, residualN: finalKn[p - 1]! * 1000 }));
+  const steps = [1, 2].flatMap((pass) => groups.map((group) => ({ pass, position: group[0]!, loadsN: finalKn.map((n) => n * 1000), covers: covers(group) })));
+  const run: NormalisedRun = { studCount: 4, targetLoadN: 80_000, steps: steps.map((s, i) => ({ ...s, order: i + 1 })) };
   const [lubricant] = await sequelize.query<{ id: number }>('SELECT id FROM lubricants ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
   const { runId } = await sequelize.transaction((transaction) =>
     storeRunWithStatus({ jointId, methodId, lubricantId: lubricant!.id, operatorId, cohortId: null, targetLoadN: 80_000, bandPercent: 10, source: 'manual', status: 'complete', recordedAt: new Date(), notes: 'Invented test run.' }, run, transaction),
@@ -72,12 +68,12 @@ beforeAll(async () => {
   jointId = await createTestJoint(4, 'tensioner');
   const [row] = await sequelize.query<{ name: string }>('SELECT name FROM joints WHERE id = ?', { type: QueryTypes.SELECT, replacements: [jointId] });
   jointName = row!.name;
-  methodIds.push(await tensionerMethod('Tensioner 50 % coverage (e2e)'), await tensionerMethod('Tensioner, other crew (e2e)'));
+  methodIds.push(await tensionerMethod('Tensioner 50 % coverage (e2e)', 'every_second_stud'), await tensionerMethod('Tensioner, other crew (e2e)', 'every_stud'));
   const [admin] = await sequelize.query<{ id: number }>("SELECT id FROM users WHERE role = 'admin' ORDER BY id LIMIT 1", { type: QueryTypes.SELECT });
   // Relaxation by hand: kept 98 % → 2 % lost; 97 % → 3 %; the second method's runs keep 95 % and 94 % (5 % and 6 % lost).
-  await seedHeldRun(methodIds[0]!, admin!.id, [80, 80, 79, 81], 0.97);
-  await seedHeldRun(methodIds[1]!, admin!.id, [80, 80, 80, 80], 0.95);
-  await seedHeldRun(methodIds[1]!, admin!.id, [79, 81, 80, 80], 0.94);
+  await seedHeldRun(methodIds[0]!, admin!.id, [80, 80, 79, 81], 0.97, [[1, 3], [2, 4]]);
+  await seedHeldRun(methodIds[1]!, admin!.id, [80, 80, 80, 80], 0.95, [[1, 2, 3, 4]]);
+  await seedHeldRun(methodIds[1]!, admin!.id, [79, 81, 80, 80], 0.94, [[1, 2, 3, 4]]);
   browser = await launchBrowser();
 });
 
@@ -115,6 +111,32 @@ describe('a tensioning run and its hold, recorded, reported and compared', () =>
     await saved.waitFor({ timeout: 20_000 });
     expect(await saved.textContent()).not.toMatch(/needs review/);
     uploadedRun = Number(/Saved run (\d+)/.exec((await saved.textContent()) ?? '')![1]);
+    await page.context().close();
+  });
+
+  it('takes the same method typed by hand: each row names the studs pulled, with their applied loads beneath', async () => {
+    // Invented kN: each pull applies 92 and leaves 80 (measured LTF 1.15); the other pair eases by 3 or 1 kN.
+    const rows = [[80, 0, 80, 0], [77, 80, 77, 80], [80, 79, 80, 79], [79, 80, 79, 80]];
+    const page = await page1280('instructor');
+    await page.goto(`${server.baseUrl}/record`);
+    await page.getByLabel('Joint', { exact: true }).selectOption({ label: `${jointName} (4 studs)` });
+    await page.getByLabel('Method', { exact: true }).selectOption(String(methodIds[0]));
+    await page.getByRole('tab', { name: 'Enter by hand' }).click();
+    // 50 % coverage: the plan names studs 1 3, then 2 4, in each pass.
+    expect(await page.getByLabel('Step 2, studs pulled').inputValue()).toBe('2 4');
+    for (const [i, row] of rows.entries()) {
+      for (const [j, kN] of row.entries()) await page.getByLabel(`Step ${i + 1}, stud ${j + 1}, kN`, { exact: true }).fill(String(kN));
+      for (const stud of i % 2 === 0 ? [1, 3] : [2, 4]) await page.getByLabel(`Step ${i + 1}, stud ${stud}, applied, kN`, { exact: true }).fill('92');
+    }
+    await page.getByRole('button', { name: 'Save run' }).click();
+    const saved = page.getByText(/^Saved run \d+ with 4 steps\./);
+    await saved.waitFor({ timeout: 20_000 });
+    expect(await saved.textContent()).not.toMatch(/needs review/);
+    const runId = Number(/Saved run (\d+)/.exec((await saved.textContent()) ?? '')![1]);
+    const [count] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM step_positions WHERE run_id = ?', { type: QueryTypes.SELECT, replacements: [runId] });
+    expect(Number(count!.n)).toBe(8);
+    // Removed again, so the comparison below keeps its two runs per method.
+    await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [runId] });
     await page.context().close();
   });
 

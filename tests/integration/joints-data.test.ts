@@ -82,7 +82,7 @@ describe('lib/data/joints against MariaDB', () => {
   });
 
   it('stores methods and lubricants, refusing a second one of the same name', async () => {
-    const method = { name: `${TAG} method`, toolKind: 'manual_torque_wrench' as const, checkPasses: 1, notes: null,
+    const method = { name: `${TAG} method`, toolKind: 'manual_torque_wrench' as const, checkPasses: 1, tensionerCoverage: 'one_stud' as const, notes: null,
       passes: [{ percentOfTarget: 30, pattern: 'cross' as const, orderByStudCount: { '8': [1, 5, 3, 7, 2, 6, 4, 8] } }] };
     const { id } = await saveMethod(instructor, null, method);
     await expect(saveMethod(instructor, null, method)).rejects.toMatchObject({ code: 'conflict', details: { field: 'name' } });

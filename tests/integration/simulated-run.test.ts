@@ -7,6 +7,7 @@ import { sideForRealRun, simulateSide } from '@/lib/classroom/scenes';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
 import { count, sessionUserFor } from './support';
+import { createTestMethod, dropTestMethods } from '../support/record-fixtures';
 
 // "Simulate" on /record: one simulated run of the chosen joint/method/lubricant, stored like any
 // other run. Expected values come from the simulator's own contract (lib/sim/MODEL.md): same seed,
@@ -16,6 +17,7 @@ let other: SessionUser;
 let instructor: SessionUser;
 let ids: { joint: number; method: number; lubricant: number; studs: number; passes: number; checks: number };
 const created: number[] = [];
+const methods: number[] = [];
 
 beforeAll(async () => {
   trainee = await sessionUserFor(DEMO_ACCOUNTS.trainee);
@@ -32,6 +34,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   if (created.length) await sequelize.query('DELETE FROM runs WHERE id IN (?)', { replacements: [created] });
+  await dropTestMethods(methods);
   await sequelize.close();
 });
 
@@ -117,5 +120,26 @@ describe('Record and Classroom simulate the same run', () => {
       const [row] = await sequelize.query<{ final_loads_json: string }>('SELECT final_loads_json FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [saved.runId] });
       expect(row!.final_loads_json).toBe(JSON.stringify(classroom.steps.at(-1)!.loadsN));
     }
+  });
+
+  it('simulates a library tensioner method by its coverage: two steps per pass at 50 %, each stud with applied and residual load', async () => {
+    // 50 % tensioner coverage on 8 studs: studs 1, 3, 5, 7 then 2, 4, 6, 8 (common practice); two passes at 100 %.
+    const methodId = await createTestMethod('Tensioner 50 % (simulate)', [100, 100], { coverage: 'every_second_stud', orders: { '8': [1, 5, 3, 7, 2, 6, 4, 8] } });
+    methods.push(methodId);
+    const saved = await saveSimulatedRun(trainee, { ...input(trainee.id, 777), header: { ...input(trainee.id, 777).header, methodId } });
+    created.push(saved.runId);
+    expect(saved.stepCount).toBe(4);
+    const covers = await sequelize.query<{ step_order: number; position: number; applied_n: number; residual_n: number }>(
+      'SELECT s.step_order, p.position, p.applied_n, p.residual_n FROM step_positions p JOIN tightening_steps s ON s.id = p.step_id WHERE p.run_id = ? ORDER BY s.step_order, p.position',
+      { type: QueryTypes.SELECT, replacements: [saved.runId] },
+    );
+    expect([1, 2, 3, 4].map((o) => covers.filter((c) => Number(c.step_order) === o).map((c) => Number(c.position)))).toEqual([[1, 3, 5, 7], [2, 4, 6, 8], [1, 3, 5, 7], [2, 4, 6, 8]]);
+    // Applied = residual × LTF with LTF above 1 (docs/REFERENCE.md §4): every pull applies more than it leaves.
+    for (const c of covers) expect(Number(c.applied_n)).toBeGreaterThan(Number(c.residual_n));
+    // The run check holds the run to the method's groups: no pass or order reason.
+    const [run] = await sequelize.query<{ review_reasons: string | null }>('SELECT review_reasons FROM runs WHERE id = ?', { type: QueryTypes.SELECT, replacements: [saved.runId] });
+    const rules = (JSON.parse(run!.review_reasons ?? '[]') as Array<{ rule: string }>).map((r) => r.rule);
+    expect(rules).not.toContain('passes');
+    expect(rules).not.toContain('step_order');
   });
 });

@@ -7,13 +7,15 @@ import { studTransfers } from '@/lib/calc/tensioner-coverage';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO_ACCOUNTS } from '../support/http-session';
+import { createTestMethod, dropTestMethods } from '../support/record-fixtures';
 
-// A 50 % tool coverage run of the demo's "Tensioner, two passes" method on an 8-stud joint, invented loads:
+// A 50 % tool coverage run of an invented two-pass tensioner method with 50 % coverage on an 8-stud joint, invented loads:
 // each pull applies 1.2 × the residual it leaves (so every measured LTF is 1.2 by construction).
 const ODD = [1, 3, 5, 7];
 const EVEN = [2, 4, 6, 8];
 let admin: SessionUser;
 let runId = 0;
+let methodId = 0;
 
 async function tensioningRun(targetLoadN: number): Promise<NormalisedRun> {
   const loads = new Array<number>(8).fill(0);
@@ -35,19 +37,21 @@ beforeAll(async () => {
 
 afterAll(async () => {
   if (runId) await sequelize.query('DELETE FROM runs WHERE id = ?', { replacements: [runId] });
+  await dropTestMethods(methodId ? [methodId] : []);
   await sequelize.close();
 });
 
 describe('storing a tensioning run whose steps cover several studs', () => {
   it('stores it complete, with the applied and residual load of every stud each step covered, and reads it back', async () => {
     const [joint] = await sequelize.query<{ id: number; target_load_n: number }>('SELECT id, target_load_n FROM joints WHERE stud_count = 8 ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
-    const [method] = await sequelize.query<{ id: number }>("SELECT id FROM methods WHERE tool_kind = 'hydraulic_tensioner' AND name = 'Tensioner, two passes'", { type: QueryTypes.SELECT });
+    // Stored order: the 8-stud star (common practice); the tool set on every second stud does not follow it.
+    methodId = await createTestMethod('Tensioner 50 % (storing)', [100, 100], { coverage: 'every_second_stud', orders: { '8': [1, 5, 3, 7, 2, 6, 4, 8] } });
     const [lubricant] = await sequelize.query<{ id: number }>('SELECT id FROM lubricants ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
     const target = Number(joint!.target_load_n);
     const run = await tensioningRun(target);
     const stored = await sequelize.transaction((transaction) =>
       storeRunWithStatus(
-        { jointId: joint!.id, methodId: method!.id, lubricantId: lubricant!.id, operatorId: admin.id, cohortId: null, targetLoadN: target, bandPercent: 10, source: 'manual', status: 'complete', recordedAt: new Date(), recordedById: admin.id, notes: 'Test tensioning run (invented).' },
+        { jointId: joint!.id, methodId, lubricantId: lubricant!.id, operatorId: admin.id, cohortId: null, targetLoadN: target, bandPercent: 10, source: 'manual', status: 'complete', recordedAt: new Date(), recordedById: admin.id, notes: 'Test tensioning run (invented).' },
         run,
         transaction,
       ),

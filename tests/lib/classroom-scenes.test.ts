@@ -13,7 +13,7 @@ const library: Library = {
     { id: 1, name: 'One cross', toolKind: 'manual_torque_wrench', checkPasses: 0, passes: [{ percentOfTarget: 100, pattern: 'cross', orderByStudCount: orders('cross') }] },
     { id: 2, name: 'Three cross + check', toolKind: 'manual_torque_wrench', checkPasses: 1, passes: [30, 60, 100].map((p) => ({ percentOfTarget: p, pattern: 'cross' as const, orderByStudCount: orders('cross') })) },
     { id: 3, name: 'One circle', toolKind: 'manual_torque_wrench', checkPasses: 0, passes: [{ percentOfTarget: 100, pattern: 'circular', orderByStudCount: orders('circular') }] },
-    { id: 4, name: 'Tensioner', toolKind: 'hydraulic_tensioner', checkPasses: 0, passes: [100, 100].map((p) => ({ percentOfTarget: p, pattern: 'cross' as const, orderByStudCount: orders('cross') })) },
+    { id: 4, name: 'Tensioner', toolKind: 'hydraulic_tensioner', tensionerCoverage: 'every_stud', checkPasses: 0, passes: [100, 100].map((p) => ({ percentOfTarget: p, pattern: 'cross' as const, orderByStudCount: orders('cross') })) },
   ],
   lubricants: [
     { id: 10, name: 'Dry', nominalNutFactor: 0.2 },
@@ -43,6 +43,11 @@ describe('scene setup from the library', () => {
     expect(passes.missing).toEqual([]);
     expect(sceneSetup('lube', library, 7)!.sides.map((s) => s.lubricantId)).toEqual([10, 11]);
     expect(sceneSetup('tool', library, 7)!.sides.map((s) => s.methodId)).toEqual([2, 4]);
+    // The tensioning side pulls every stud at once: a tensioner method moved stud by stud is not that method.
+    const oneTool = sceneSetup('tool', { ...library, methods: library.methods.map((m) => (m.id === 4 ? { ...m, tensionerCoverage: 'one_stud' as const } : m)) }, 7)!;
+    expect(oneTool.sides[1]!.methodId).toBeNull();
+    expect(oneTool.sides[1]!.simMethod.coverage).toBe(100);
+    expect(oneTool.missing.length).toBeGreaterThan(0);
     expect(sceneSetup('passes', library, 99)).toBeNull();
   });
   it('says which row is missing and still runs the scene on built-in settings', () => {

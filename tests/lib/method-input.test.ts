@@ -66,6 +66,19 @@ describe('parseMethodForm', () => {
     expect(r.errors['pass-0-percent']?.[0]).toMatch(/between 1 % and 120 %/);
     expect(r.errors.checkPasses?.[0]).toMatch(/between 0 and 5/);
   });
+  it('stores a tensioner coverage: one tool by default, 100 % or 50 % for a tensioner only, 50 % only on even stud counts', () => {
+    const torque = parseMethodForm(form());
+    expect(torque.ok && torque.value.tensionerCoverage).toBe('one_stud');
+    const tensioner = parseMethodForm(form({ toolKind: 'hydraulic_tensioner', tensionerCoverage: 'every_second_stud' }));
+    expect(tensioner.ok && tensioner.value.tensionerCoverage).toBe('every_second_stud');
+    const onTorque = parseMethodForm(form({ tensionerCoverage: 'every_stud' }));
+    expect(!onTorque.ok && onTorque.errors.tensionerCoverage?.[0]).toMatch(/^Only a hydraulic tensioner set pulls several studs at once/);
+    // 50 % coverage is the odd positions, then the even ones (common practice): 5 studs cannot be split so.
+    const odd = parseMethodForm(form({ toolKind: 'hydraulic_tensioner', tensionerCoverage: 'every_second_stud', studCounts: '5,8', 'pass-0-order-5': '1 2 3 4 5', 'pass-1-order-5': '1 2 3 4 5' }));
+    expect(!odd.ok && odd.errors.tensionerCoverage).toEqual(['A tensioner on every second stud needs an even number of studs; 5 is odd.']);
+    const unknown = parseMethodForm(form({ toolKind: 'hydraulic_tensioner', tensionerCoverage: 'every_third_stud' }));
+    expect(!unknown.ok && unknown.errors.tensionerCoverage?.[0]).toMatch(/Choose how many studs/);
+  });
 });
 
 describe('parseLubricantForm', () => {
@@ -77,4 +90,5 @@ describe('parseLubricantForm', () => {
     const missing = parseLubricantForm({ name: '', nominalNutFactor: 'abc' });
     expect(missing.ok === false && Object.keys(missing.errors).sort()).toEqual(['name', 'nominalNutFactor']);
   });
+
 });

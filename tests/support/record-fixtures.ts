@@ -38,14 +38,19 @@ export const CROSS_4 = [1, 3, 2, 4];
 /**
  * An invented test method of cross passes at `percents` of target with a 4-stud order (the demo
  * methods have none for 4 studs), so a 4-stud test run can follow its method; remove it with
- * {@link dropTestMethods} after the runs that use it.
+ * {@link dropTestMethods} after the runs that use it. A tensioner method gives its coverage
+ * (how many studs its tool set pulls at once) and may carry orders for other stud counts.
  */
-export async function createTestMethod(name: string, percents: number[]): Promise<number> {
+export async function createTestMethod(
+  name: string,
+  percents: number[],
+  tensioner?: { coverage: 'every_stud' | 'every_second_stud' | 'one_stud'; orders?: Record<string, number[]> },
+): Promise<number> {
   const now = new Date();
-  const passes = percents.map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross', orderByStudCount: { '4': CROSS_4 } }));
-  const [id] = await sequelize.query('INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?,?,?,0,NULL,?,?)', {
+  const passes = percents.map((percentOfTarget) => ({ percentOfTarget, pattern: 'cross', orderByStudCount: tensioner?.orders ?? { '4': CROSS_4 } }));
+  const [id] = await sequelize.query('INSERT INTO methods (name, tool_kind, passes, check_passes, tensioner_coverage, notes, created_at, updated_at) VALUES (?,?,?,0,?,NULL,?,?)', {
     type: QueryTypes.INSERT,
-    replacements: [`${name} ${Date.now()} (invented)`, 'manual_torque_wrench', JSON.stringify(passes), now, now],
+    replacements: [`${name} ${Date.now()} (invented)`, tensioner ? 'hydraulic_tensioner' : 'manual_torque_wrench', JSON.stringify(passes), tensioner?.coverage ?? 'one_stud', now, now],
   });
   return Number(id);
 }

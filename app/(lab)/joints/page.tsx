@@ -5,6 +5,7 @@ import { formatForce, formatNumber } from '@/lib/calc/units';
 import { threadLabel } from '@/lib/calc/thread';
 import { JOINT_LIBRARY_ROLES, listJointLibrary } from '@/lib/data/joints';
 import { TOOL_LABELS } from '@/lib/joints/method-input';
+import { TENSIONER_COVERAGE_SHORT } from '@/lib/calc/tensioner-coverage';
 import { requirePageUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Joint library' };
@@ -55,7 +56,7 @@ export default async function JointLibraryPage({ searchParams }: { searchParams:
         {library.methods.map((m) => (
           <tr key={m.id} className="border-t border-rule">
             <td className="px-3 py-2"><Link className={linkClass} href={`/joints/methods/${m.id}`}>{m.name}</Link></td>
-            <td className="px-3 py-2">{TOOL_LABELS[m.toolKind]}</td>
+            <td className="px-3 py-2">{TOOL_LABELS[m.toolKind]}{m.toolKind === 'hydraulic_tensioner' ? <span className="block text-xs text-muted">{TENSIONER_COVERAGE_SHORT[m.tensionerCoverage]}</span> : null}</td>
             <td className="px-3 py-2">{m.passes.map((p) => `${p.percentOfTarget}\u00a0% ${p.pattern}`).join(' → ')}</td>
             <td className="px-3 py-2 text-right">{m.checkPasses}</td>
             <td className="px-3 py-2">{[...new Set(m.passes.flatMap((p) => Object.keys(p.orderByStudCount)))].join(', ')}</td>

@@ -5,7 +5,7 @@ import { studYieldLoad } from '@/lib/joints/joint-properties';
 import { checkRun } from '@/lib/run-check/check-run';
 import type { RunCheckReason } from '@/lib/run-check/types';
 import type { NormalisedRun } from '@/lib/record/run-types';
-import type { MethodPass } from '@/models/method';
+import type { MethodPass, TensionerCoverage } from '@/models/method';
 
 export interface CheckedStatus {
   status: 'complete' | 'needs_review';
@@ -26,7 +26,7 @@ export async function checkBeforeStoring(ids: { jointId: number; methodId: numbe
       'SELECT stud_count, stud_grade, thread_system, thread_diameter, thread_pitch, target_load_n FROM joints WHERE id = ?',
       { type: QueryTypes.SELECT, transaction, replacements: [ids.jointId] },
     ),
-    sequelize.query<{ name: string; passes: string | MethodPass[]; check_passes: number }>('SELECT name, passes, check_passes FROM methods WHERE id = ?', {
+    sequelize.query<{ name: string; passes: string | MethodPass[]; check_passes: number; tensioner_coverage: TensionerCoverage }>('SELECT name, passes, check_passes, tensioner_coverage FROM methods WHERE id = ?', {
       type: QueryTypes.SELECT,
       transaction,
       replacements: [ids.methodId],
@@ -38,7 +38,7 @@ export async function checkBeforeStoring(ids: { jointId: number; methodId: numbe
   const reasons = checkRun({
     run,
     jointStudCount: Number(joint.stud_count),
-    method: { name: method.name, passes: typeof method.passes === 'string' ? (JSON.parse(method.passes) as MethodPass[]) : method.passes, checkPasses: Number(method.check_passes) },
+    method: { name: method.name, passes: typeof method.passes === 'string' ? (JSON.parse(method.passes) as MethodPass[]) : method.passes, checkPasses: Number(method.check_passes), tensionerCoverage: method.tensioner_coverage },
     bandPercent: ids.bandPercent,
     yieldLoad: studYieldLoad({
       studGrade: joint.stud_grade,

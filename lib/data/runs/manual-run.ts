@@ -6,6 +6,7 @@ import { loadToN } from '@/lib/ingest/units';
 import { resolveRunHeader } from '@/lib/data/record';
 import { manualEntrySchema } from '@/lib/record/manual-entry-schema';
 import { planSteps } from '@/lib/record/step-plan';
+import { stepOfPull } from '@/lib/record/manual-pulls';
 import type { NormalisedRun } from '@/lib/record/run-types';
 import type { SessionUser } from '@/lib/auth/session';
 import { storeRunWithStatus } from './store-run';
@@ -17,7 +18,9 @@ const fmtKn = (n: number) => `${formatDecimals(n / 1000, 2, 0)} kN`;
 /**
  * Saves a run typed into the grid (source 'manual', status complete) in one transaction. The step
  * order comes from the method's pass orders for the joint's stud count (see planSteps); every
- * entered row must give a load for every stud. Loads are converted to N here.
+ * entered row must give a load for every stud. Loads are converted to N here. A tensioner method's
+ * rows may name several studs with their applied loads (`pulls`, lib/record/manual-pulls.ts); the
+ * covers go to step_positions through storeRunWithStatus, as an uploaded run's do.
  *
  * @throws AppError('invalid_input') naming the row (step) and stud of the first bad cell, with
  *   `row` and `column` (`Stud N`) details; AppError('forbidden') for an operator this person may
@@ -31,12 +34,19 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
     if (field === 'rows' && typeof row === 'number' && typeof column === 'number') {
       throw new AppError('invalid_input', `Row ${row + 1}, stud ${column + 1}: ${issue!.message}`, { row: row + 1, column: `Stud ${column + 1}` });
     }
+    const stud = issue?.path[3];
+    if (field === 'pulls' && typeof row === 'number' && typeof stud === 'number') {
+      throw new AppError('invalid_input', `Row ${row + 1}, applied load of stud ${stud + 1}: ${issue!.message}`, { row: row + 1, column: `Applied ${stud + 1}` });
+    }
     throw new AppError('invalid_input', issue?.message ?? 'The grid is not valid.', { field: String(field) });
   }
-  const { header: headerInput, unit, rows } = parsed.data;
+  const { header: headerInput, unit, rows, pulls } = parsed.data;
   if (unit === 'N' && parsed.data.holds?.trim()) throw new AppError('invalid_input', 'Hold readings are typed in kN or lbf: choose kN or lbf as the unit, or add the holds on the run report.', { field: 'holds' });
   const resolved = await resolveRunHeader(user, headerInput, 'manual', 'complete');
   const { joint, method } = resolved;
+  if (pulls?.length && method.toolKind !== 'hydraulic_tensioner') {
+    throw new AppError('invalid_input', `Only a tensioner step pulls several studs at once; the method "${method.name}" tightens one stud per step.`, { field: 'rows' });
+  }
   const plan = planSteps(method, joint.studCount);
   if (plan.problem) throw new AppError('invalid_input', plan.problem, { field: 'methodId', fieldErrors: { methodId: [plan.problem] } });
   let last = rows.length;
@@ -59,7 +69,10 @@ export async function saveManualRun(user: SessionUser, input: unknown): Promise<
       }
       return n;
     });
-    run.steps.push({ order: r + 1, pass: step.pass, position: step.position, loadsN });
+    // A tensioner row names the studs it pulled, with their applied loads (stored as ingest stores them: step_positions).
+    const pull = pulls?.[r];
+    const pulled = pull ? stepOfPull(pull, loadsN, { studCount: joint.studCount, unit, where: `Row ${r + 1} (pass ${step.pass})`, row: r + 1, maxStudLoadN: joint.maxStudLoadN, maxStudLoadText: `${fmtKn(joint.maxStudLoadN)} (${joint.maxStudLoadSource})` }) : null;
+    run.steps.push({ order: r + 1, pass: step.pass, position: pulled?.position ?? step.position, loadsN, ...(pulled?.covers ? { covers: pulled.covers } : {}) });
   }
   const holds = parsed.data.holds?.trim() ? manualHolds(parsed.data.holds, run, unit) : [];
   const { runId, status } = await sequelize.transaction(async (transaction) => {

@@ -5,7 +5,7 @@ import { AppError } from '@/lib/http/errors';
 import { runHeaderSchema } from '@/lib/record/run-header-schema';
 import type { SessionUser } from '@/lib/auth/session';
 import { studDiameterM } from '@/lib/joints/joint-properties';
-import { lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
+import { coverageNeedsEvenStuds, lubricantForSim, methodForSim, passWithoutOrder, simulateLibraryRun } from '@/lib/sim/from-library';
 import { Joint, Lubricant, Method, Run, sequelize } from '@/models';
 import { runScope } from '@/lib/data/scope';
 import type { RunStatus } from '@/models/run';
@@ -72,6 +72,10 @@ export async function saveSimulatedRun(user: SessionUser, input: unknown): Promi
       field: 'methodId',
       fieldErrors: { methodId: [`No order for ${joint.studCount} studs in pass ${missing}.`] },
     });
+  }
+  if (coverageNeedsEvenStuds(method, joint.studCount)) {
+    const message = `The method "${method.name}" puts a tensioner on every second stud, which needs an even number of studs; this joint has ${joint.studCount}.`;
+    throw new AppError('invalid_input', message, { field: 'methodId', fieldErrors: { methodId: [message] } });
   }
   const { run } = simulateLibraryRun({
     joint: { studCount: joint.studCount, targetLoadN: joint.targetLoadN, studDiameterM: studDiameterM(joint) },

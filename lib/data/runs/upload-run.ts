@@ -7,7 +7,7 @@ import { parseColumnMapping } from '@/lib/ingest/parse-text';
 import { rememberMapping, resolveRunHeader } from '@/lib/data/record';
 import { runScope } from '@/lib/data/scope';
 import { UPLOAD_LIMIT_BYTES } from '@/lib/record/limits';
-import { planSteps } from '@/lib/record/step-plan';
+import { importPlanSteps } from '@/lib/record/step-plan';
 import type { SessionUser } from '@/lib/auth/session';
 import { Run, Upload, sequelize } from '@/models';
 import { parseUploadInWorker } from './parse-in-worker';
@@ -96,7 +96,7 @@ export async function storeUploadedRun(user: SessionUser, input: UploadInput): P
   const existing = await existingUpload(sha256);
   if (existing) throw await duplicate(user, existing.runId);
   const mapping = input.mapping === null || input.mapping === undefined ? undefined : parseColumnMapping(input.mapping);
-  const plannedSteps = planSteps(resolved.method, resolved.joint.studCount).steps;
+  const plannedSteps = importPlanSteps(resolved.method, resolved.joint.studCount);
   const parsed = await parseUploadInWorker(input.bytes, UPLOAD_LIMIT_BYTES, mapping, { ...resolved.jointImport, plannedSteps });
   if (!mapping && !parsed.mappingCertain && !input.acceptGuess) throw uncertainGuess(parsed);
   const report = {
