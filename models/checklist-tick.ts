@@ -10,6 +10,8 @@ export class ChecklistTick extends Model<InferAttributes<ChecklistTick>, InferCr
   declare observedByName: string;
   declare observedAt: Date;
   declare note: string | null;
+  /** Optimistic lock: raised by one on every save (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
 
   static initModel(sequelize: Sequelize) {
     ChecklistTick.init(
@@ -22,6 +24,7 @@ export class ChecklistTick extends Model<InferAttributes<ChecklistTick>, InferCr
         observedByName: { type: DataTypes.STRING(160), allowNull: false },
         observedAt: { type: DataTypes.DATE, allowNull: false },
         note: { type: DataTypes.STRING(400), allowNull: true },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       },
       { sequelize, tableName: 'checklist_ticks', underscored: true, timestamps: false },
     );

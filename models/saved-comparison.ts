@@ -14,6 +14,8 @@ export class SavedComparison extends Model<InferAttributes<SavedComparison>, Inf
   declare dataSha256: string;
   /** sha256 of the frozen runs' ids and last changes when the data was last found unchanged (`runsFingerprint`); null: not yet known. */
   declare runsFingerprint: CreationOptional<string | null>;
+  /** The layout of its data tables (lib/saved-comparisons/data-tables.ts `PackageLayout`): 1 without gasket columns, 2 with. */
+  declare packageLayout: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User>;
 
@@ -30,6 +32,7 @@ export class SavedComparison extends Model<InferAttributes<SavedComparison>, Inf
         softwareVersion: { type: DataTypes.STRING(80), allowNull: false },
         dataSha256: { type: DataTypes.CHAR(64), allowNull: false },
         runsFingerprint: { type: DataTypes.CHAR(64), allowNull: true },
+        packageLayout: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 },
         createdAt: { type: DataTypes.DATE, allowNull: false },
       },
       { sequelize, tableName: 'saved_comparisons', underscored: true, timestamps: true, updatedAt: false },

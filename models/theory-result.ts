@@ -11,6 +11,8 @@ export class TheoryResult extends Model<InferAttributes<TheoryResult>, InferCrea
   declare enteredById: number;
   declare enteredByName: string;
   declare enteredAt: Date;
+  /** Optimistic lock: raised by one on every save (lib/data/optimistic-lock.ts). */
+  declare version: CreationOptional<number>;
 
   static initModel(sequelize: Sequelize) {
     TheoryResult.init(
@@ -23,6 +25,7 @@ export class TheoryResult extends Model<InferAttributes<TheoryResult>, InferCrea
         enteredById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         enteredByName: { type: DataTypes.STRING(160), allowNull: false },
         enteredAt: { type: DataTypes.DATE, allowNull: false },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       },
       { sequelize, tableName: 'theory_results', underscored: true, timestamps: false },
     );

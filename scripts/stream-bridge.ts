@@ -19,6 +19,7 @@
 import { createReadStream } from 'node:fs';
 import { createInterface } from 'node:readline';
 import { createLoggerLineParser, type LineBatch, type LoggerLineFormat } from '../lib/ingest/logger-line';
+import { clockRestartSentence } from '../lib/ingest/logger-clock';
 import type { JointForImport } from '../lib/ingest/normalise';
 import type { StreamReading } from '../lib/record/stream-reading';
 
@@ -95,8 +96,9 @@ async function bridgeJointLines(options: Options, input: NodeJS.ReadableStream):
   const parser = createLoggerLineParser(body.format, body.joint);
   const sender = createSender(options);
   let malformed = 0;
-  const take = async ({ readings, malformed: bad }: LineBatch) => {
+  const take = async ({ readings, malformed: bad, clockRestarts }: LineBatch) => {
     for (const m of bad) console.error(`stream-bridge: skipped ${m.reason}`);
+    for (const restart of clockRestarts) console.error(`stream-bridge: line ${restart.line}: ${clockRestartSentence(restart)}`);
     malformed += bad.length;
     for (const r of readings) await sender.add(r);
   };

@@ -8,9 +8,7 @@ import type { Seeder } from '../lib/platform/migrator';
 import { hashPassword } from '../lib/auth/passwords';
 import { storeRun } from '../lib/data/runs/store-run';
 import { buildDemoScenario } from '../lib/demo/demo-scenario';
-import { DEMO_GASKET_RINGS } from '../lib/demo/demo-library';
-import { GASKET_TRAINING_DEFAULTS, TRAINING_DEFAULT_SOURCE } from '../lib/joints/gasket-input';
-import { inToMm } from '../lib/calc/units';
+import { demoGasketOf } from '../lib/demo/demo-library';
 
 export const DEMO_PASSWORD = 'even-load-demo';
 
@@ -45,7 +43,7 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
     }
     const jointId = new Map<string, { id: number; bandPercent: number }>();
     for (const joint of scenario.joints) {
-      const ring = DEMO_GASKET_RINGS[joint.key];
+      const gasket = demoGasketOf(joint.key);
       const [id] = await q(
         `INSERT INTO joints (name, nominal_size, pressure_class, stud_count, thread_system, thread_diameter, thread_pitch, stud_grade, nut_grade,
           gasket_type, target_load_n, band_percent, notes, created_at, updated_at,
@@ -54,8 +52,7 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
         [joint.name, joint.nominalSize, joint.pressureClass, joint.studCount, 'inch', joint.thread.diameter, joint.thread.threadsPerInch,
           joint.studGrade, joint.nutGrade, joint.gasketType, joint.targetLoadN, 10,
           'Target: 50 % of the B7 minimum yield on the tensile stress area.', now, now,
-          ring ? inToMm(ring.innerIn) : null, ring ? inToMm(ring.outerIn) : null, GASKET_TRAINING_DEFAULTS.minSeatingMpa, GASKET_TRAINING_DEFAULTS.maxMpa,
-          TRAINING_DEFAULT_SOURCE, 'Raised face']);
+          gasket?.innerMm ?? null, gasket?.outerMm ?? null, gasket?.minSeatingMpa ?? null, gasket?.maxMpa ?? null, gasket?.source ?? null, gasket?.flangeFacing ?? null]);
       jointId.set(joint.key, { id: Number(id), bandPercent: 10 });
       for (const [index, factor] of joint.calibrationFactors.entries()) {
         await q('INSERT INTO joint_positions (joint_id, position, calibration_factor) VALUES (?,?,?)', [Number(id), index + 1, factor]);

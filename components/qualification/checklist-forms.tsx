@@ -52,6 +52,7 @@ function TickForm({ cohortId, traineeId, entry }: { cohortId: number; traineeId:
     <form action={action} onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-center gap-2" aria-label={entry.label} noValidate>
       <input type="hidden" name="itemId" value={entry.id} />
       <input type="hidden" name="observed" value={observed ? '0' : '1'} />
+      <input type="hidden" name="version" value={entry.tick?.version ?? 0} />
       <span className="min-w-48 font-medium">{observed ? '✓ ' : ''}{entry.label}</span>
       {entry.tick ? <span className="text-xs text-muted">{observed ? 'observed' : 'un-ticked'} by {entry.tick.byName}, {formatDateTime(entry.tick.at)}{entry.tick.note ? `: “${entry.tick.note}”` : ''}</span> : null}
       <input name="note" placeholder="Note (optional)" aria-label={`Note on ${entry.label}`} maxLength={400} className="w-48 max-w-full rounded-md border border-rule bg-paper px-2 py-1" />

@@ -15,7 +15,7 @@ export function CourseEvidenceSection({ cohortId, traineeId, evidence, checklist
   return (
     <section aria-labelledby="evidence-heading" className="no-print space-y-3 rounded-card border border-rule p-3">
       <h2 id="evidence-heading" className="font-semibold">Theory and observation</h2>
-      <TheoryResultForm cohortId={cohortId} traineeId={traineeId} score={evidence.theory?.scorePercent ?? null} takenOn={evidence.theory?.takenOn ?? null} />
+      <TheoryResultForm cohortId={cohortId} traineeId={traineeId} score={evidence.theory?.scorePercent ?? null} takenOn={evidence.theory?.takenOn ?? null} version={evidence.theory?.version ?? 0} />
       {evidence.checklist.length ? <ChecklistTicks cohortId={cohortId} traineeId={traineeId} entries={evidence.checklist} /> : <p className="text-sm text-muted">Set the cohort&rsquo;s observation checklist below to tick its items.</p>}
       <details className="rounded-md border border-rule p-2" open={checklistItems.length === 0}>
         <summary className="cursor-pointer text-sm font-medium">Cohort settings: theory pass mark and observation checklist (for every trainee of the cohort)</summary>

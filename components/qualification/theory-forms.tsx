@@ -29,11 +29,12 @@ export function PassMarkForm({ cohortId, traineeId, passMark, isDefault }: { coh
   );
 }
 
-/** One trainee's theory result: score in percent and the day it was taken. */
-export function TheoryResultForm({ cohortId, traineeId, score, takenOn }: { cohortId: number; traineeId: number; score: number | null; takenOn: string | null }) {
+/** One trainee's theory result: score in percent and the day it was taken; `version` is the result's as read (0 for none yet). */
+export function TheoryResultForm({ cohortId, traineeId, score, takenOn, version }: { cohortId: number; traineeId: number; score: number | null; takenOn: string | null; version: number }) {
   const [state, action, pending] = useActionState(theoryResultAction.bind(null, cohortId, traineeId), IDLE_FORM_STATE);
   return (
     <form action={action} onSubmit={keepValuesSubmit(action)} className="flex flex-wrap items-end gap-3 text-sm" noValidate aria-label="Theory result">
+      <input type="hidden" name="version" value={version} />
       <label className="block">
         <span className="block font-medium">Theory score (%)</span>
         <input name="score" inputMode="decimal" defaultValue={score ?? ''} aria-describedby="score-error" className={`${INPUT} w-24`} />

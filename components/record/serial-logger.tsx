@@ -2,6 +2,7 @@
 
 import type { RecordJoint } from '@/lib/data/record';
 import { LINE_DELIMITERS } from '@/lib/ingest/logger-line';
+import { clockRestartSentence } from '@/lib/ingest/logger-clock';
 import { channelFieldsText, DELIMITER_WORDS } from '@/lib/joints/logger-line-input';
 import { BridgeInstructions } from './bridge-instructions';
 import { useSerialLogger, type SerialState } from './use-serial-logger';
@@ -83,6 +84,11 @@ export function SerialLogger({ runId, joint }: { runId: number; joint: RecordJoi
         <p className="text-sm" data-testid="serial-counts">
           <span className="num font-medium">{state.sent}</span> readings sent{state.waiting ? <>, <span className="num">{state.waiting}</span> waiting</> : null} ·{' '}
           <span className={state.malformedCount ? 'text-danger' : ''}><span className="num font-medium">{state.malformedCount}</span> malformed line{state.malformedCount === 1 ? '' : 's'} skipped</span>
+        </p>
+      ) : null}
+      {state.clockRestart ? (
+        <p role="status" className="rounded-md border border-rule bg-paper px-3 py-2 text-sm" data-testid="serial-clock-restart">
+          {clockRestartSentence(state.clockRestart)}
         </p>
       ) : null}
       {state.malformed.length ? (

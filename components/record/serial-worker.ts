@@ -18,14 +18,14 @@ self.onmessage = (event: MessageEvent<SerialWorkerRequest>) => {
   const msg = event.data;
   try {
     if (msg.type === 'start') {
-      parser = createLoggerLineParser(msg.format, msg.joint);
+      parser = createLoggerLineParser(msg.format, msg.joint, { lastStoredS: msg.lastStoredS });
       decoder = new TextDecoder();
     } else if (parser && msg.type === 'bytes') {
       post({ type: 'batch', ...parser.push(decoder.decode(msg.bytes, { stream: true })), ended: false });
     } else if (parser && msg.type === 'end') {
       const tail = parser.push(decoder.decode());
       const last = parser.end();
-      post({ type: 'batch', readings: [...tail.readings, ...last.readings], malformed: [...tail.malformed, ...last.malformed], ended: true });
+      post({ type: 'batch', readings: [...tail.readings, ...last.readings], malformed: [...tail.malformed, ...last.malformed], clockRestarts: [...tail.clockRestarts, ...last.clockRestarts], ended: true });
     }
   } catch (error) {
     post({ type: 'error', message: isAppError(error) ? error.message : `The lines could not be read: ${(error as Error)?.message ?? error}` });

@@ -3,6 +3,7 @@
 import { useEffect, useRef, useState } from 'react';
 import type { RecordJoint } from '@/lib/data/record';
 import type { MalformedLine } from '@/lib/ingest/logger-line';
+import type { ClockRestart } from '@/lib/ingest/logger-clock';
 import { jointForImport } from '@/lib/record/joint-import';
 import { streamBody, type StreamReading } from '@/lib/record/stream-reading';
 import type { SerialWorkerResponse } from './serial-messages';
@@ -11,7 +12,9 @@ import type { SerialWorkerResponse } from './serial-messages';
  * "Connect logger": reads a serial port with the Web Serial API (Chromium-based browsers), hands
  * the bytes to the serial worker (`serial-worker.ts`, the joint's line parser) and posts its
  * readings in batches to `POST /api/runs/:id/stream` with the page's session, one request at a
- * time. What was sent stays on the server whatever happens to the port afterwards.
+ * time. What was sent stays on the server whatever happens to the port afterwards. Each connection
+ * starts from the run's last stored time (asked of the server, or the last reading queued here), so a
+ * logger whose clock restarted continues after it and never replaces stored readings.
  */
 
 /** The few parts of the Web Serial API used here (not in TypeScript's DOM library yet). */
@@ -41,15 +44,31 @@ export interface SerialState {
   malformed: MalformedLine[];
   /** Why the connection ended or could not start, in words. */
   detail: string | null;
+  /** The latest restart of the logger's clock in this connection (its readings continue after the last one). */
+  clockRestart: ClockRestart | null;
 }
 
-const INITIAL: SerialState = { phase: 'idle', sent: 0, waiting: 0, malformedCount: 0, malformed: [], detail: null };
+const INITIAL: SerialState = { phase: 'idle', sent: 0, waiting: 0, malformedCount: 0, malformed: [], detail: null, clockRestart: null };
 /** Readings per request (the endpoint takes at most 20,000). */
 const BATCH = 2000;
 /** Read errors after which the port gives a new stream (Web Serial spec): the line is lost, the connection is not. */
 const NON_FATAL = new Set(['BreakError', 'FramingError', 'ParityError', 'BufferOverrunError']);
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+/** The run's last stored time as the server has it; null when it cannot be asked (the caller falls back on what it queued). */
+async function lastStoredTime(runId: number): Promise<number | null> {
+  try {
+    const response = await fetch(`/api/runs/${runId}/stream`, { cache: 'no-store' });
+    if (!response.ok) return null;
+    const status = (await response.json()) as { lastTimeS?: number | null };
+    return typeof status.lastTimeS === 'number' ? status.lastTimeS : null;
+  } catch {
+    return null;
+  }
+}
+
+const laterOf = (a: number | null, b: number | null) => (a === null ? b : b === null ? a : Math.max(a, b));
 const serialOf = () => (typeof navigator === 'undefined' ? undefined : (navigator as Navigator & { serial?: SerialLike }).serial);
 
 interface Connection {
@@ -65,6 +84,8 @@ export function useSerialLogger(runId: number, joint: RecordJoint) {
   const [support, setSupport] = useState<SerialSupport>('checking');
   const [state, setState] = useState<SerialState>(INITIAL);
   const current = useRef<Connection | null>(null);
+  /** The latest time queued in any connection of this page (the server may not have it yet). */
+  const lastQueuedT = useRef<number | null>(null);
 
   useEffect(() => {
     // Browsers hide navigator.serial outside secure contexts, so that is asked first.
@@ -134,16 +155,20 @@ export function useSerialLogger(runId: number, joint: RecordJoint) {
         return;
       }
       c.queue.push(...msg.readings);
+      for (const r of msg.readings) lastQueuedT.current = laterOf(lastQueuedT.current, r.t);
       if (msg.ended) c.parsedAll = true;
+      const restart = msg.clockRestarts.at(-1) ?? null;
       setState((s) => ({
         ...s,
+        clockRestart: restart ?? s.clockRestart,
         waiting: c.queue.length,
         malformedCount: s.malformedCount + msg.malformed.length,
         malformed: msg.malformed.length ? [...s.malformed, ...msg.malformed].slice(-3) : s.malformed,
       }));
       void send(c);
     };
-    worker.postMessage({ type: 'start', format: joint.loggerLine, joint: jointForImport(joint) });
+    const lastStoredS = laterOf(await lastStoredTime(runId), lastQueuedT.current);
+    worker.postMessage({ type: 'start', format: joint.loggerLine, joint: jointForImport(joint), lastStoredS });
     const timer = setInterval(() => void send(c), 1000);
     setState({ ...INITIAL, phase: 'reading' });
 

@@ -1,7 +1,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { DATA_TABLES, FINAL_LOADS_TABLE, READINGS_TABLE, RUNS_TABLE, STEPS_TABLE, tableCsv } from '../saved-comparisons/data-tables';
+import { CURRENT_PACKAGE_LAYOUT, dataTablesOf, FINAL_LOADS_TABLE, READINGS_TABLE, STEPS_TABLE, tableCsv, type PackageLayout } from '../saved-comparisons/data-tables';
 import { sequelize } from '@/models';
 import { pseudonymFor } from './pseudonym';
 
@@ -25,14 +25,17 @@ const isoSeconds = (value: Date | string) => new Date(value).toISOString().repla
 /**
  * The data a saved comparison used, as the package's CSV tables, rows in key order, so the same
  * runs give the same bytes and the same hash. Operators are pseudonyms keyed by the saved
- * comparison (the same in every download of it, unrelated to other exports).
+ * comparison (the same in every download of it, unrelated to other exports). `layout` is the one the
+ * comparison was frozen with (layout 1 has no gasket columns).
  */
-export async function dataTables(slug: string, runs: readonly FrozenRun[], groupLabels: ReadonlyMap<string, string>): Promise<DataTables> {
+export async function dataTables(slug: string, runs: readonly FrozenRun[], groupLabels: ReadonlyMap<string, string>, layout: PackageLayout = CURRENT_PACKAGE_LAYOUT): Promise<DataTables> {
+  const tables = dataTablesOf(layout);
+  const runsTable = tables[0]!;
   const ids = runs.map((r) => r.id);
   const groupOf = new Map(runs.map((r) => [r.id, r.group]));
   const none = !ids.length;
-  const runRows = none ? [] : await sequelize.query<{ id: number; operator_id: number; joint_id: number; method_id: number; lubricant_id: number; source: string; status: string; recorded_at: Date; stud_count: number; pass_count: number; target_load_n: number; final_loads_json: string | null }>(
-    'SELECT id, operator_id, joint_id, method_id, lubricant_id, source, status, recorded_at, stud_count, pass_count, target_load_n, final_loads_json FROM runs WHERE id IN (?) ORDER BY id',
+  const runRows = none ? [] : await sequelize.query<{ id: number; operator_id: number; joint_id: number; method_id: number; lubricant_id: number; source: string; status: string; recorded_at: Date; stud_count: number; pass_count: number; target_load_n: number; final_loads_json: string | null; final_gasket_stress_mpa: number | null; gasket_min_seating_mpa: number | null }>(
+    'SELECT id, operator_id, joint_id, method_id, lubricant_id, source, status, recorded_at, stud_count, pass_count, target_load_n, final_loads_json, final_gasket_stress_mpa, gasket_min_seating_mpa FROM runs WHERE id IN (?) ORDER BY id',
     { type: QueryTypes.SELECT, replacements: [ids] },
   );
   const steps = none ? [] : await sequelize.query<{ id: number; run_id: number; step_order: number; pass_number: number; position: number; applied_torque_nm: number | null; applied_pressure_bar: number | null; time_s: number | null }>(
@@ -45,15 +48,16 @@ export async function dataTables(slug: string, runs: readonly FrozenRun[], group
   );
   const operatorKey = `saved-comparison:${slug}`;
   const files: Record<string, string> = {
-    [RUNS_TABLE.path]: tableCsv(RUNS_TABLE, runRows.map((r) => {
+    [runsTable.path]: tableCsv(runsTable, runRows.map((r) => {
       const group = groupOf.get(r.id) ?? '';
-      return [r.id, group, groupLabels.get(group) ?? group, pseudonymFor(r.operator_id, operatorKey), r.joint_id, r.method_id, r.lubricant_id, r.source, r.status, isoSeconds(r.recorded_at), r.stud_count, r.pass_count, r.target_load_n];
+      const row = [r.id, group, groupLabels.get(group) ?? group, pseudonymFor(r.operator_id, operatorKey), r.joint_id, r.method_id, r.lubricant_id, r.source, r.status, isoSeconds(r.recorded_at), r.stud_count, r.pass_count, r.target_load_n];
+      return layout === 1 ? row : [...row, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa];
     })),
     [FINAL_LOADS_TABLE.path]: tableCsv(FINAL_LOADS_TABLE, runRows.flatMap((r) => (r.final_loads_json ? (JSON.parse(r.final_loads_json) as number[]) : []).map((load, i) => [r.id, i + 1, load]))),
     [STEPS_TABLE.path]: tableCsv(STEPS_TABLE, steps.map((s) => [s.id, s.run_id, s.step_order, s.pass_number, s.position, s.applied_torque_nm, s.applied_pressure_bar, s.time_s])),
     [READINGS_TABLE.path]: tableCsv(READINGS_TABLE, readings.map((g) => [g.step_id, g.run_id, g.position, g.load_n])),
   };
-  const lines = DATA_TABLES.map((t) => `${sha256Hex(files[t.path]!)}  ${t.path}\n`).join('');
+  const lines = tables.map((t) => `${sha256Hex(files[t.path]!)}  ${t.path}\n`).join('');
   return { files, dataSha256: sha256Hex(lines) };
 }
 

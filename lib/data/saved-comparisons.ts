@@ -16,6 +16,7 @@ import { pseudonymiseJson, type Replacement } from '../saved-comparisons/pseudon
 import { pseudonymFor } from './pseudonym';
 import { comparisonRunKeys, compareQuerySchema, compareRunsJson, type CompareQuery, type CompareResponse } from './compare';
 import { dataTables, runsFingerprint, sha256Hex, type DataTables, type FrozenRun } from './saved-comparison-tables';
+import { CURRENT_PACKAGE_LAYOUT, type PackageLayout } from '../saved-comparisons/data-tables';
 import { runScopeSql } from './scope';
 
 /** A frozen comparison carries every reading of its runs in its package; above this many runs, narrow the filters. */
@@ -65,6 +66,7 @@ export async function freezeComparison(user: SessionUser, input: { title: string
     softwareVersion: softwareVersion(),
     dataSha256,
     runsFingerprint: fingerprint,
+    packageLayout: CURRENT_PACKAGE_LAYOUT,
     createdAt: new Date(),
   });
   return { slug };
@@ -91,7 +93,9 @@ export interface SavedComparisonView {
 }
 
 /** The view with what its package needs: the runs and the data tables as they are now. */
-type SavedComparisonFull = SavedComparisonView & { runs: FrozenRun[]; tables: DataTables | null };
+type SavedComparisonFull = SavedComparisonView & { runs: FrozenRun[]; tables: DataTables | null; layout: PackageLayout };
+
+const layoutOf = (row: SavedComparison): PackageLayout => (row.packageLayout === 1 ? 1 : 2);
 
 const NOT_FOUND = 'This saved comparison does not exist, or it holds runs you may not see.';
 const frozenRuns = (row: SavedComparison): FrozenRun[] => (JSON.parse(row.runIdsJson) as [number, string][]).map(([id, group]) => ({ id, group }));
@@ -104,7 +108,7 @@ const frozenRuns = (row: SavedComparison): FrozenRun[] => (JSON.parse(row.runIds
 async function changedSinceFrozen(row: SavedComparison, original: FrozenRun[], labels: Map<string, string>): Promise<{ dataChanged: boolean; tables: DataTables | null }> {
   const fingerprint = await runsFingerprint(original.map((r) => r.id));
   if (row.runsFingerprint === fingerprint) return { dataChanged: false, tables: null };
-  const tables = await dataTables(row.slug, original, labels);
+  const tables = await dataTables(row.slug, original, labels, layoutOf(row));
   const dataChanged = tables.dataSha256 !== row.dataSha256;
   if (!dataChanged) await SavedComparison.update({ runsFingerprint: fingerprint }, { where: { id: row.id } });
   return { dataChanged, tables };
@@ -128,6 +132,7 @@ async function viewOf(row: SavedComparison, results: CompareResponse, query: Com
     runs,
     // The tables (when they were rebuilt) serve the package only when the runs were not relabelled for a reviewer.
     tables: runs === original ? tables : null,
+    layout: layoutOf(row),
   };
 }
 
@@ -197,13 +202,13 @@ export async function savedComparisonPackage(user: SessionUser, slug: string): P
 
 /** The zip of one saved comparison as `savedComparison` or `savedComparisonForReview` gave it. */
 export async function buildPackage(saved: SavedComparisonFull): Promise<{ fileName: string; bytes: Uint8Array }> {
-  const tables = saved.tables ?? (await dataTables(saved.slug, saved.runs, labelsOf(saved.results)));
+  const tables = saved.tables ?? (await dataTables(saved.slug, saved.runs, labelsOf(saved.results), saved.layout));
   const files: Record<string, string> = { ...tables.files };
   files[RESULTS_PATH] = `${JSON.stringify({ headline: saved.headline, results: saved.results }, null, 2)}\n`;
-  files[PYTHON_SCRIPT_PATH] = pythonScript({ title: saved.title, groupKeys: saved.results.groups.map((g) => g.key), headline: saved.headline, dataSha256: saved.dataSha256 });
+  files[PYTHON_SCRIPT_PATH] = pythonScript({ title: saved.title, groupKeys: saved.results.groups.map((g) => g.key), headline: saved.headline, dataSha256: saved.dataSha256, layout: saved.layout });
   const fileSha256 = Object.fromEntries(Object.entries(files).map(([path, text]) => [path, sha256Hex(text)]));
   const descriptor = dataPackageDescriptor(
-    { slug: saved.slug, title: saved.title, author: saved.author, createdAt: saved.createdAt, link: saved.link, citation: saved.citation, query: saved.query, runCount: saved.runCount, softwareVersion: saved.softwareVersion, dataSha256: saved.dataSha256 },
+    { slug: saved.slug, title: saved.title, author: saved.author, createdAt: saved.createdAt, link: saved.link, citation: saved.citation, query: saved.query, runCount: saved.runCount, softwareVersion: saved.softwareVersion, dataSha256: saved.dataSha256, layout: saved.layout },
     fileSha256,
   );
   files[DATA_PACKAGE_PATH] = `${JSON.stringify({ ...descriptor, evenload: { ...descriptor.evenload, dataUnchangedSinceFrozen: !saved.dataChanged } }, null, 2)}\n`;

@@ -1,5 +1,6 @@
 import { inchTensileStressAreaIn2 } from '@/lib/calc/thread';
-import { N_PER_LBF } from '@/lib/calc/units';
+import { inToMm, N_PER_LBF } from '@/lib/calc/units';
+import { GASKET_TRAINING_DEFAULTS, TRAINING_DEFAULT_SOURCE } from '@/lib/joints/gasket-input';
 import { SimInputError } from '@/lib/sim/errors';
 import { lubricantForSim } from '@/lib/sim/from-library';
 import { circularOrder, crossPatternOrder } from '@/lib/sim/patterns';
@@ -83,14 +84,41 @@ const B7_MIN_YIELD_PSI = 105_000; // docs/REFERENCE.md §2 ✓ [NANL], [BACO], �
 const TARGET_FRACTION_OF_YIELD = 0.5; // docs/REFERENCE.md §4: "typically 50 %" ✓ [RODERY]; rule of thumb ✓ [ENGTIPS]
 
 /**
- * Gasket contact rings of the demo joints, inches (invented, near a spiral-wound sealing element of the
- * size), with the training stress limits: at the demo targets the average gasket stress lands just
- * above the seating stress (about 10,100 psi for flange A, 10,900 psi for flange B, computed).
+ * Gasket contact rings of the demo joints, inches. INVENTED DEMO VALUES: near the sealing element of a
+ * spiral-wound gasket of the size (ASME B16.20 tables; sizes from memory, unverified), not a
+ * product's data. With the training stress limits below, the average gasket stress at the demo
+ * targets lands just above the seating stress (computed: flange A 8 × 0.2260 in² × 52,500 psi over
+ * π/4 (5.875² − 4.75²) = 9.388 in² ≈ 10,100 psi ≈ 70 MPa; flange B 12 × 0.3345 in² × 52,500 psi over
+ * π/4 (8.375² − 6.75²) = 19.30 in² ≈ 10,900 psi ≈ 75 MPa), so the demo's runs straddle seating.
  */
 export const DEMO_GASKET_RINGS: Record<string, { innerIn: number; outerIn: number }> = {
   'nps4-cl150-8': { innerIn: 4.75, outerIn: 5.875 },
   'nps6-cl300-12': { innerIn: 6.75, outerIn: 8.375 },
 };
+
+/** A demo joint's gasket as the joints table stores it (SI). */
+export interface DemoGasket {
+  innerMm: number;
+  outerMm: number;
+  minSeatingMpa: number;
+  maxMpa: number;
+  /** Shown on screen beside the limits: "training default: set your own". */
+  source: string;
+  flangeFacing: string;
+}
+
+/**
+ * The gasket of a demo joint (null for a key without one). The contact ring is an invented demo
+ * value (above); the stress limits are the training defaults every new joint starts from: seating
+ * 69 MPa = 10,000 psi, the ASME VIII-1 Appendix 2 y of spiral-wound, non-asbestos filled
+ * (docs/REFERENCE.md §7 ✓), maximum 207 MPa ≈ 30,000 psi (§7, from memory), labelled on screen as
+ * "training default: set your own".
+ */
+export function demoGasketOf(jointKey: string): DemoGasket | null {
+  const ring = DEMO_GASKET_RINGS[jointKey];
+  if (!ring) return null;
+  return { innerMm: inToMm(ring.innerIn), outerMm: inToMm(ring.outerIn), ...GASKET_TRAINING_DEFAULTS, source: TRAINING_DEFAULT_SOURCE, flangeFacing: 'Raised face' };
+}
 
 export function buildJoint(
   rng: Rng,

@@ -16,6 +16,7 @@ import { AppError, isAppError } from '@/lib/http/errors';
 import { STREAM_NEGATIVE_FLOOR_SHARE } from '@/lib/record/stream-reading';
 import type { StreamReading } from '@/lib/record/stream-reading';
 import { positionOfChannel } from './channel-map';
+import { createLoggerClock, type ClockRestart } from './logger-clock';
 import { createCellReader, formatLoadN } from './readers/cells';
 import type { JointForImport } from './readers/types';
 import { quoteInput } from './text-limits';
@@ -73,6 +74,8 @@ export interface MalformedLine {
 export interface LineBatch {
   readings: StreamReading[];
   malformed: MalformedLine[];
+  /** Restarts of the logger's clock in these lines; their readings were placed after the last one (lib/ingest/logger-clock.ts). */
+  clockRestarts: ClockRestart[];
 }
 
 /** A parser for one connection: feed it chunks of text as they arrive. */
@@ -93,12 +96,15 @@ const HAS_LETTER = /\p{L}/u;
  * first line whose time field has letters is a header and is skipped. Every other line gives one
  * reading per channel field, or is malformed (too few fields, a field that is not a number, a
  * negative time, a load above the joint's limit or negative beyond gauge noise): malformed lines
- * are returned with their reason and never stop the stream.
+ * are returned with their reason and never stop the stream. Times go through the connection's
+ * logger clock (`logger-clock.ts`): a line whose time is not after the last one (or, on a new
+ * connection, not after `lastStoredS`, the run's last stored time) is a restart of the logger's
+ * clock, and its readings continue after the last one instead of replacing stored readings.
  *
  * @throws AppError('invalid_input') at once for a format the joint cannot use (a channel with no
  *   stud, microstrain without stress area).
  */
-export function createLoggerLineParser(format: LoggerLineFormat, joint: JointForImport): LoggerLineParser {
+export function createLoggerLineParser(format: LoggerLineFormat, joint: JointForImport, options: { lastStoredS?: number | null } = {}): LoggerLineParser {
   const fields = channelFieldIndexes(format, joint.studCount);
   const positions = fields.map((_, k) => positionOfChannel(`CH${k + 1}`, joint.channelMap));
   positions.forEach((p, k) => {
@@ -112,6 +118,7 @@ export function createLoggerLineParser(format: LoggerLineFormat, joint: JointFor
   let buffer = '';
   let lineNo = 0;
   let sawData = false;
+  const clock = createLoggerClock(options.lastStoredS ?? null);
 
   const readLine = (raw: string, out: LineBatch) => {
     lineNo++;
@@ -131,6 +138,8 @@ export function createLoggerLineParser(format: LoggerLineFormat, joint: JointFor
         readings.push({ t, stud: positions[k]!, load });
       }
       sawData = true;
+      const placed = clock.place(t, lineNo);
+      for (const reading of readings) reading.t = placed;
       out.readings.push(...readings);
     } catch (error) {
       if (!isAppError(error)) throw error;
@@ -140,7 +149,7 @@ export function createLoggerLineParser(format: LoggerLineFormat, joint: JointFor
 
   return {
     push(text) {
-      const out: LineBatch = { readings: [], malformed: [] };
+      const out: LineBatch = { readings: [], malformed: [], clockRestarts: [] };
       buffer += text;
       const re = /\r\n|\n|\r(?!$)/g;
       let start = 0;
@@ -154,13 +163,15 @@ export function createLoggerLineParser(format: LoggerLineFormat, joint: JointFor
         out.malformed.push({ line: lineNo, text: buffer.slice(0, 80), reason: `Line ${lineNo}: longer than ${MAX_LOGGER_LINE_CHARS} characters without a line end; check the baud rate.` });
         buffer = '';
       }
+      out.clockRestarts = clock.takeRestarts();
       return out;
     },
     end() {
-      const out: LineBatch = { readings: [], malformed: [] };
+      const out: LineBatch = { readings: [], malformed: [], clockRestarts: [] };
       const rest = buffer.replace(/\r$/, '');
       buffer = '';
       if (rest.trim() !== '') readLine(rest, out);
+      out.clockRestarts = clock.takeRestarts();
       return out;
     },
     get lineCount() {

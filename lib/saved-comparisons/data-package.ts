@@ -5,7 +5,7 @@
  * unit in the custom `unit` property and in the description), the frozen results as a JSON
  * resource, and the comparison's own facts under the custom `evenload` property. Pure.
  */
-import { DATA_TABLES, type TableDefinition } from './data-tables';
+import { dataTablesOf, type PackageLayout, type TableDefinition } from './data-tables';
 
 export const DATA_PACKAGE_PATH = 'datapackage.json';
 export const RESULTS_PATH = 'results.json';
@@ -22,6 +22,7 @@ export interface SavedComparisonFacts {
   runCount: number;
   softwareVersion: string;
   dataSha256: string;
+  layout: PackageLayout;
 }
 
 function tableResource(table: TableDefinition, sha256: string) {
@@ -46,6 +47,7 @@ function tableResource(table: TableDefinition, sha256: string) {
 
 /** The descriptor; `fileSha256` gives the sha256 of each data file and of results.json by path. */
 export function dataPackageDescriptor(facts: SavedComparisonFacts, fileSha256: Record<string, string>) {
+  const tables = dataTablesOf(facts.layout);
   return {
     profile: 'tabular-data-package',
     name: `evenload-comparison-${facts.slug.toLowerCase()}`,
@@ -56,7 +58,7 @@ export function dataPackageDescriptor(facts: SavedComparisonFacts, fileSha256: R
     homepage: facts.link,
     contributors: [{ title: facts.author, role: 'author' }],
     resources: [
-      ...DATA_TABLES.map((t) => tableResource(t, fileSha256[t.path] ?? '')),
+      ...tables.map((t) => tableResource(t, fileSha256[t.path] ?? '')),
       {
         name: 'frozen_results',
         path: RESULTS_PATH,
@@ -74,7 +76,8 @@ export function dataPackageDescriptor(facts: SavedComparisonFacts, fileSha256: R
       runCount: facts.runCount,
       softwareVersion: facts.softwareVersion,
       dataSha256: facts.dataSha256,
-      dataSha256Method: `sha256 of the lines "<sha256>  <path>\\n" of ${DATA_TABLES.map((t) => t.path).join(', ')}, in that order`,
+      dataSha256Method: `sha256 of the lines "<sha256>  <path>\\n" of ${tables.map((t) => t.path).join(', ')}, in that order`,
+      packageLayout: facts.layout,
     },
   };
 }

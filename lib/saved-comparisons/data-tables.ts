@@ -26,7 +26,8 @@ export interface TableDefinition {
   primaryKey: readonly string[];
 }
 
-export const RUNS_TABLE: TableDefinition = {
+/** The runs table as packages frozen before the gasket columns had it (package layout 1). */
+const RUNS_TABLE_WITHOUT_GASKET: TableDefinition = {
   name: 'runs',
   path: 'data/runs.csv',
   title: 'Runs',
@@ -46,6 +47,26 @@ export const RUNS_TABLE: TableDefinition = {
     { name: 'stud_count', type: 'integer', description: 'Studs in the joint.' },
     { name: 'pass_count', type: 'integer', description: 'Passes in the run.' },
     { name: 'target_load_n', type: 'number', description: 'The target preload per stud.', unit: 'N' },
+  ],
+};
+
+/** The runs table with each run's stored gasket figures, the values Compare used (package layout 2). */
+export const RUNS_TABLE: TableDefinition = {
+  ...RUNS_TABLE_WITHOUT_GASKET,
+  fields: [
+    ...RUNS_TABLE_WITHOUT_GASKET.fields,
+    {
+      name: 'final_gasket_stress_mpa',
+      type: 'number',
+      description: 'Average gasket stress after the final step: the sum of the final stud loads over the gasket contact area of the joint as recorded. Empty when the joint has no contact area.',
+      unit: 'MPa',
+    },
+    {
+      name: 'gasket_min_seating_mpa',
+      type: 'number',
+      description: 'The minimum seating stress of the joint’s gasket as recorded with the run. Empty when not given.',
+      unit: 'MPa',
+    },
   ],
 };
 
@@ -96,6 +117,19 @@ export const READINGS_TABLE: TableDefinition = {
 
 /** The data tables in the order they are hashed and listed. */
 export const DATA_TABLES = [RUNS_TABLE, FINAL_LOADS_TABLE, STEPS_TABLE, READINGS_TABLE] as const;
+
+/**
+ * The layout of the data tables a saved comparison was frozen with (`saved_comparisons.package_layout`):
+ * 1 before the runs table had the gasket columns, 2 since. A package is built in its comparison's
+ * layout, so its files still hash to the frozen sha256 when the data has not changed.
+ */
+export type PackageLayout = 1 | 2;
+export const CURRENT_PACKAGE_LAYOUT: PackageLayout = 2;
+
+/** The data tables of a layout, in the order they are hashed and listed. */
+export function dataTablesOf(layout: PackageLayout): readonly TableDefinition[] {
+  return layout === 1 ? [RUNS_TABLE_WITHOUT_GASKET, FINAL_LOADS_TABLE, STEPS_TABLE, READINGS_TABLE] : DATA_TABLES;
+}
 
 /** A table's CSV text: the header from its definition, then its rows (already in key order). */
 export function tableCsv(table: TableDefinition, rows: readonly (readonly CsvValue[])[]): string {

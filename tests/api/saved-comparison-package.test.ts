@@ -123,6 +123,8 @@ describe('a saved comparison’s data package', () => {
     }
     const loads = descriptor.resources.find((r) => r.name === 'final_loads')!.schema!.fields.find((f) => f.name === 'final_load_n')!;
     expect(loads.unit).toBe('N');
+    const runs = descriptor.resources.find((r) => r.name === 'runs')!.schema!.fields;
+    for (const name of ['final_gasket_stress_mpa', 'gasket_min_seating_mpa']) expect(runs.find((f) => f.name === name)).toMatchObject({ type: 'number', unit: 'MPa' });
   });
 
   it('holds the frozen runs: one runs.csv row per run, as many as the frozen results counted', async () => {
@@ -152,5 +154,22 @@ describe('a saved comparison’s data package', () => {
     // CV ratio: exp of statsmodels CompareMeans.tconfint_diff(usevar="unequal") on ln CV.
     expect(frozen.headline.cvRatio!.label).toBe(python.cvRatio!.label);
     for (const part of ['ratio', 'lower', 'upper'] as const) expectRelative(frozen.headline.cvRatio![part], python.cvRatio![part], `CV ratio ${part}`);
+  });
+
+  it('recomputes each group’s mean gasket stress and share reaching seating from the runs table, as the frozen groups table shows them', () => {
+    const output = JSON.parse(execFileSync(PYTHON, [path.join(workDir, 'reproduce.py')], { encoding: 'utf8', timeout: 120_000 })) as { recomputed: Headline };
+    const python = output.recomputed.groups;
+    expect(python.map((g) => g.key)).toEqual(frozen.headline.groups.map((g) => g.key));
+    // The demo joints carry gasket data (lib/demo/demo-library.ts), so the check compares numbers, not only absences.
+    expect(frozen.headline.groups.filter((g) => g.meanGasketStressMpa !== null).length).toBeGreaterThanOrEqual(2);
+    frozen.headline.groups.forEach((app, i) => {
+      const recomputed = python[i]!;
+      for (const name of ['meanGasketStressMpa', 'seatedShare'] as const) {
+        const value = app[name];
+        // Python's mean (math.fsum) and share against the app's frozen figures, or both absent for a group without gasket data.
+        if (value === null || value === 0) expect(recomputed[name], `${name} of ${app.label}`).toBe(value);
+        else expectRelative(value, recomputed[name]!, `${name} of ${app.label}`);
+      }
+    });
   });
 });

@@ -10,10 +10,10 @@ const { DecisionPanel } = await import('@/components/qualification/decision-pane
 // An invented trainee: two witnessed attempts (one signed off, not every criterion met), theory 65 % against 70 %, 3 of 5 items observed.
 const checklist = DEFAULT_CHECKLIST.map((label, i) => ({
   id: i + 1, label, retired: false,
-  tick: i < 3 ? { id: 10 + i, observed: true, byName: 'Ines Instructor', at: '2026-12-02T10:00:00.000Z', note: null } : null,
+  tick: i < 3 ? { id: 10 + i, observed: true, byName: 'Ines Instructor', at: '2026-12-02T10:00:00.000Z', note: null, version: 1 } : null,
 }));
 const evidenceOf = (over: Partial<CourseEvidenceDto>): CourseEvidenceDto => {
-  const base = { passMark: 70, passMarkIsDefault: true, theory: { id: 1, scorePercent: 65, takenOn: '2026-12-02', enteredByName: 'Ines Instructor', enteredAt: '2026-12-02T11:00:00.000Z', passed: false }, checklist, attemptsMet: 0, outstanding: [] as string[] };
+  const base = { passMark: 70, passMarkIsDefault: true, theory: { id: 1, scorePercent: 65, takenOn: '2026-12-02', enteredByName: 'Ines Instructor', enteredAt: '2026-12-02T11:00:00.000Z', passed: false, version: 1 }, checklist, attemptsMet: 0, outstanding: [] as string[] };
   const merged = { ...base, ...over };
   const inForce = merged.checklist.filter((e) => !e.retired).map((e) => ({ label: e.label, observed: e.tick?.observed ?? false }));
   return { ...merged, outstanding: outstandingItems({ attemptsMet: merged.attemptsMet, theoryScore: merged.theory?.scorePercent ?? null, theoryPassMark: merged.passMark, checklist: inForce }) };
@@ -43,8 +43,8 @@ describe('DecisionPanel', () => {
   });
 
   it('says nothing is outstanding and asks for no reason when the evidence is complete; shows a recorded override', () => {
-    const observedAll = checklist.map((e) => ({ ...e, tick: { id: 20 + e.id, observed: true, byName: 'Ines Instructor', at: '2026-12-02T10:00:00.000Z', note: null } }));
-    const complete = evidenceOf({ attemptsMet: 1, theory: { id: 1, scorePercent: 70, takenOn: '2026-12-02', enteredByName: 'Ines Instructor', enteredAt: '2026-12-02T11:00:00.000Z', passed: true }, checklist: observedAll });
+    const observedAll = checklist.map((e) => ({ ...e, tick: { id: 20 + e.id, observed: true, byName: 'Ines Instructor', at: '2026-12-02T10:00:00.000Z', note: null, version: 1 } }));
+    const complete = evidenceOf({ attemptsMet: 1, theory: { id: 1, scorePercent: 70, takenOn: '2026-12-02', enteredByName: 'Ines Instructor', enteredAt: '2026-12-02T11:00:00.000Z', passed: true, version: 1 }, checklist: observedAll });
     const outcome = { id: 3, decision: 'pass' as const, scopes: ['Hand torque'], decidedByName: 'Ines Instructor', decidedAt: '2026-12-03T09:00:00.000Z', version: 2, overrideReason: 'Watched again on the joint' };
     render(<DecisionPanel cohortId={1} traineeId={2} outcome={outcome} evidence={complete} attempts={attempts} />);
     expect(screen.getByText('Nothing outstanding for a pass.')).toBeInTheDocument();

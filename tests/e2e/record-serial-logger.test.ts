@@ -78,35 +78,43 @@ async function startRecording(page: Page): Promise<number> {
   return Number(/run (\d+)/.exec(started!)![1]);
 }
 
+/**
+ * Stands in for `navigator.serial`: the k-th opening of the port plays `texts[k]` in 37-byte chunks,
+ * then the device is lost (as a cable pulled out). Records the baud rate of each opening.
+ */
+async function playSerialPort(page: Page, texts: string[]) {
+  await page.addInitScript(({ texts, chunk }) => {
+    const opened: number[] = [];
+    (window as unknown as { __serialOpened: number[] }).__serialOpened = opened;
+    const port = {
+      readable: null as ReadableStream<Uint8Array> | null,
+      async open({ baudRate }: { baudRate: number }) {
+        const bytes = new TextEncoder().encode(texts[opened.length] ?? '');
+        opened.push(baudRate);
+        let offset = 0;
+        port.readable = new ReadableStream<Uint8Array>({
+          async pull(controller) {
+            await new Promise((resolve) => setTimeout(resolve, 10));
+            if (offset >= bytes.length) {
+              port.readable = null;
+              controller.error(new DOMException('The device has been lost.', 'NetworkError'));
+              return;
+            }
+            controller.enqueue(bytes.slice(offset, offset + chunk));
+            offset += chunk;
+          },
+        });
+      },
+      async close() {},
+    };
+    Object.defineProperty(Navigator.prototype, 'serial', { configurable: true, get: () => ({ requestPort: async () => port, addEventListener() {} }) });
+  }, { texts, chunk: 37 });
+}
+
 describe('Connect logger (Web Serial) on Stream live', () => {
   it('reads the played lines in the joint format, sends them, survives a lost device and stores the final loads', async () => {
     const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 1000 } });
-    await page.addInitScript(({ text, chunk }) => {
-      const bytes = new TextEncoder().encode(text);
-      const opened: number[] = [];
-      (window as unknown as { __serialOpened: number[] }).__serialOpened = opened;
-      let offset = 0;
-      const port = {
-        readable: null as ReadableStream<Uint8Array> | null,
-        async open({ baudRate }: { baudRate: number }) {
-          opened.push(baudRate);
-          port.readable = new ReadableStream<Uint8Array>({
-            async pull(controller) {
-              await new Promise((resolve) => setTimeout(resolve, 10));
-              if (offset >= bytes.length) {
-                port.readable = null;
-                controller.error(new DOMException('The device has been lost.', 'NetworkError'));
-                return;
-              }
-              controller.enqueue(bytes.slice(offset, offset + chunk));
-              offset += chunk;
-            },
-          });
-        },
-        async close() {},
-      };
-      Object.defineProperty(Navigator.prototype, 'serial', { configurable: true, get: () => ({ requestPort: async () => port, addEventListener() {} }) });
-    }, { text: PLAYED, chunk: 37 });
+    await playSerialPort(page, [PLAYED]);
 
     const runId = await startRecording(page);
     await page.getByRole('button', { name: 'Connect logger' }).click();
@@ -140,6 +148,26 @@ describe('Connect logger (Web Serial) on Stream live', () => {
     expect(expected).toEqual([78_500, 79_900, 81_200, 80_600]);
     expect(finals.map((f) => Number(f.position))).toEqual([1, 2, 3, 4]);
     finals.forEach((f, i) => expect(Number(f.load_n)).toBeCloseTo(expected[i]!, 6));
+    await page.context().close();
+  });
+
+  it('continues after the last stored reading when the logger comes back with its clock restarted, and says so', async () => {
+    const page = await signedInPage(browser, server.baseUrl, 'instructor', { viewport: { width: 1280, height: 1000 } });
+    // Invented lines in the joint's format: 0, 0,5 and 1 s, twice: the logger restarts its clock after the lost connection.
+    const lines = ['0;10,0;10,0;10,0;10,0', '0,5;20,0;20,0;20,0;20,0', '1;30,0;30,0;30,0;30,0'].join('\r\n') + '\r\n';
+    await playSerialPort(page, [lines, lines]);
+    const runId = await startRecording(page);
+    const lost = /^The logger was disconnected mid-run/;
+    await page.getByRole('button', { name: 'Connect logger' }).click();
+    await page.getByText(lost).waitFor({ timeout: 30_000 });
+    await page.getByRole('button', { name: 'Connect logger' }).click();
+    // Expected from the rule in lib/ingest/logger-clock.ts: last stored 1 s + 1 s (spacing not yet known) = 2 s.
+    await page.getByTestId('serial-clock-restart').waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId('serial-clock-restart').textContent()).toBe('The logger’s clock restarted (it sent 0 s after later times); its readings continue after the last one, from 2 s in this run. Nothing stored was replaced.');
+    await page.getByText(lost).waitFor({ timeout: 30_000 });
+    const samples = await sequelize.query<{ t: number; n: number }>('SELECT time_s AS t, COUNT(*) AS n FROM stream_samples WHERE run_id = ? GROUP BY time_s ORDER BY time_s', { type: QueryTypes.SELECT, replacements: [runId] });
+    // Six moments of four studs each, none replaced: 0, 0.5, 1, then 2, 2.5, 3 s.
+    expect(samples.map((s) => [Number(s.t), Number(s.n)])).toEqual([[0, 4], [0.5, 4], [1, 4], [2, 4], [2.5, 4], [3, 4]]);
     await page.context().close();
   });
 

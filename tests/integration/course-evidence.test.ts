@@ -10,7 +10,7 @@ import { issueTrainingRecord } from '@/lib/data/qualification/training-records';
 import { DEFAULT_CHECKLIST } from '@/lib/qualification/course-outcome';
 import type { SessionUser } from '@/lib/auth/session';
 import { jointTarget, storeFixtureRun } from './run-fixture';
-import { count, demoPeople } from './support';
+import { count, demoPeople, removeCohortAndEvidence } from './support';
 
 // Issue 17 item 3: the theory result against the cohort's pass mark, the observation checklist and
 // the rule for a pass with something outstanding (an override reason, stored and audited, or refused).
@@ -44,19 +44,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  const ids = async (sql: string) => (await sequelize.query<{ id: number }>(sql, { type: QueryTypes.SELECT, replacements: [cohortId] })).map((r) => r.id);
-  const byType: Record<string, number[]> = {
-    theory_result: await ids('SELECT id FROM theory_results WHERE cohort_id = ?'),
-    checklist_tick: await ids('SELECT t.id FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ?'),
-    course_outcome: await ids('SELECT id FROM course_outcomes WHERE cohort_id = ?'),
-    training_record: await ids('SELECT id FROM training_records WHERE cohort_id = ?'),
-    run: await ids('SELECT id FROM runs WHERE cohort_id = ?'),
-    criteria: [cohortId],
-  };
-  for (const [type, list] of Object.entries(byType)) if (list.length) await sequelize.query('DELETE FROM audit_log WHERE object_type = ? AND object_id IN (?)', { replacements: [type, list] });
-  await sequelize.query('DELETE FROM run_verdicts WHERE cohort_id = ?', { replacements: [cohortId] });
-  await sequelize.query('DELETE FROM runs WHERE cohort_id = ?', { replacements: [cohortId] });
-  await sequelize.query('DELETE FROM cohorts WHERE id = ?', { replacements: [cohortId] });
+  await removeCohortAndEvidence(cohortId);
   await sequelize.close();
 });
 
@@ -67,17 +55,17 @@ describe('course evidence', () => {
       setTheoryPassMark(instructor, cohortId, { passMark: 'seventy' }),
       setTheoryPassMark(instructor, cohortId, { passMark: '101' }),
       setTheoryPassMark(instructor, cohortId, { passMark: '70.5' }),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: 'x', takenOn: '2026-12-02' }),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '100.5', takenOn: '2026-12-02' }),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72.25', takenOn: '2026-12-02' }),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-02-30' }),
+      recordTheoryResult(instructor, cohortId, trainee.id, { score: 'x', takenOn: '2026-12-02' }, 0),
+      recordTheoryResult(instructor, cohortId, trainee.id, { score: '100.5', takenOn: '2026-12-02' }, 0),
+      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72.25', takenOn: '2026-12-02' }, 0),
+      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-02-30' }, 0),
       saveChecklist(instructor, cohortId, { items: [], added: [] }),
       saveChecklist(instructor, cohortId, { items: [], added: ['ab'] }),
-      setChecklistTick(instructor, cohortId, trainee.id, { itemId: 'none', observed: true, note: '' }),
+      setChecklistTick(instructor, cohortId, trainee.id, { itemId: 'none', observed: true, note: '' }, 0),
     ];
     for (const refusal of refusals) await expect(refusal).rejects.toMatchObject({ code: 'invalid_input' });
     await expect(setTheoryPassMark(trainee, cohortId, { passMark: '70' })).rejects.toMatchObject({ code: 'forbidden' });
-    await expect(recordTheoryResult(otherInstructor, cohortId, trainee.id, { score: '80', takenOn: '2026-12-02' })).rejects.toMatchObject({ code: 'not_found' });
+    await expect(recordTheoryResult(otherInstructor, cohortId, trainee.id, { score: '80', takenOn: '2026-12-02' }, 0)).rejects.toMatchObject({ code: 'not_found' });
     expect(await evidenceRows()).toEqual(before);
   });
 
@@ -90,10 +78,10 @@ describe('course evidence', () => {
     expect(json(mark.after_json)).toEqual({ theoryPassMark: 72, effective: 72 });
 
     // The rule stated in lib/qualification/course-outcome.ts: 72 against 72 passes, 71.9 does not.
-    const first = await recordTheoryResult(instructor, cohortId, trainee.id, { score: '71,9', takenOn: '2026-12-02' });
+    const first = await recordTheoryResult(instructor, cohortId, trainee.id, { score: '71,9', takenOn: '2026-12-02' }, 0);
     expect(first).toMatchObject({ scorePercent: 71.9, passed: false, enteredByName: instructor.name });
     expect((await evidence()).outstanding).toContain('The theory result (71.9 %) is below the pass mark (72 %).');
-    const second = await recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-12-03' });
+    const second = await recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-12-03' }, first.version);
     expect(second).toMatchObject({ id: first.id, scorePercent: 72, passed: true });
     const entry = await lastAudit('theory_result', second.id);
     expect(entry).toMatchObject({ actor_id: instructor.id, action: 'update' });
@@ -107,8 +95,8 @@ describe('course evidence', () => {
     const items = (await evidence()).checklist;
     expect(items.map((i) => i.label)).toEqual([...DEFAULT_CHECKLIST]);
     const [surface, lubrication] = items;
-    const tick = await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(surface!.id), observed: true, note: 'Threads brushed and checked' });
-    await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(lubrication!.id), observed: true, note: '' });
+    const tick = await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(surface!.id), observed: true, note: 'Threads brushed and checked' }, 0);
+    await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(lubrication!.id), observed: true, note: '' }, 0);
     const tickAudit = await lastAudit('checklist_tick', tick.id);
     expect(tickAudit).toMatchObject({ actor_id: instructor.id, action: 'tick' });
     expect(json(tickAudit.before_json)).toBeNull();
@@ -130,7 +118,7 @@ describe('course evidence', () => {
     expect(json(listAudit.after_json)).toMatchObject({ retired: [surface!.id] });
 
     const rows = await evidenceRows();
-    await expect(setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(surface!.id), observed: false, note: '' })).rejects.toMatchObject({ code: 'conflict' });
+    await expect(setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(surface!.id), observed: false, note: '' }, tick.version)).rejects.toMatchObject({ code: 'conflict' });
     // A stale form naming the retired item changes nothing either.
     await expect(saveChecklist(instructor, cohortId, { items: [{ id: surface!.id, label: 'Surface', retire: false }], added: [] })).rejects.toMatchObject({ code: 'conflict' });
     expect(await evidenceRows()).toEqual(rows);
@@ -169,7 +157,7 @@ describe('course evidence', () => {
     // Every stud exactly at the target: inside any band, CV 0 (computed), so every default criterion is met.
     expect(await signOffRun(instructor, even, 'Even at the target')).toMatchObject({ allMet: true });
     for (const item of (await evidence()).checklist.filter((i) => !i.retired && !i.tick?.observed)) {
-      await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(item.id), observed: true, note: '' });
+      await setChecklistTick(instructor, cohortId, trainee.id, { itemId: String(item.id), observed: true, note: '' }, item.tick?.version ?? 0);
     }
     expect((await evidence()).outstanding).toEqual([]);
     const clean = await decideCourseOutcome(instructor, cohortId, trainee.id, { decision: 'pass', scopes: ['Hand torque'] }, notYet.version);

@@ -55,3 +55,20 @@ export async function demoPeople() {
     admin: await sessionUserFor(DEMO_ACCOUNTS.admin),
   };
 }
+
+/** Removes a test cohort with its runs, verdicts and course evidence, and the audit rows of all of them. */
+export async function removeCohortAndEvidence(cohortId: number) {
+  const ids = async (sql: string) => (await sequelize.query<{ id: number }>(sql, { type: QueryTypes.SELECT, replacements: [cohortId] })).map((r) => r.id);
+  const byType: Record<string, number[]> = {
+    theory_result: await ids('SELECT id FROM theory_results WHERE cohort_id = ?'),
+    checklist_tick: await ids('SELECT t.id FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ?'),
+    course_outcome: await ids('SELECT id FROM course_outcomes WHERE cohort_id = ?'),
+    training_record: await ids('SELECT id FROM training_records WHERE cohort_id = ?'),
+    run: await ids('SELECT id FROM runs WHERE cohort_id = ?'),
+    criteria: [cohortId],
+  };
+  for (const [type, list] of Object.entries(byType)) if (list.length) await sequelize.query('DELETE FROM audit_log WHERE object_type = ? AND object_id IN (?)', { replacements: [type, list] });
+  await sequelize.query('DELETE FROM run_verdicts WHERE cohort_id = ?', { replacements: [cohortId] });
+  await sequelize.query('DELETE FROM runs WHERE cohort_id = ?', { replacements: [cohortId] });
+  await sequelize.query('DELETE FROM cohorts WHERE id = ?', { replacements: [cohortId] });
+}

@@ -6,6 +6,7 @@ import type { SessionUser } from '../../auth/session';
 import { parseFields } from '../../http/server-action';
 import { manageableCohort } from '../cohort-access';
 import { writeAudit } from '../audit-log';
+import { nextVersion } from '../optimistic-lock';
 import { cohortTrainee } from './cohort-trainee';
 import { DEFAULT_THEORY_PASS_MARK, outstandingItems, theoryPassed } from '../../qualification/course-outcome';
 import { checklistSchema, passMarkSchema, theoryResultSchema, tickSchema } from '../../qualification/course-evidence-input';
@@ -17,6 +18,8 @@ export interface TheoryResultDto {
   enteredByName: string;
   enteredAt: string;
   passed: boolean;
+  /** Sent back by the form (optimistic lock). */
+  version: number;
 }
 
 export interface ChecklistTickDto {
@@ -25,6 +28,8 @@ export interface ChecklistTickDto {
   byName: string;
   at: string;
   note: string | null;
+  /** Sent back by the tick's form (optimistic lock). */
+  version: number;
 }
 
 export interface ChecklistEntryDto {
@@ -54,8 +59,8 @@ export async function courseEvidenceOf(cohort: Cohort, traineeId: number, transa
   // One after another: inside the decision's transaction they share one connection.
   const theoryRow = await TheoryResult.findOne({ where: { cohortId: cohort.id, userId: traineeId }, transaction });
   const items = await ChecklistItem.findAll({ where: { cohortId: cohort.id }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
-  const ticks = await sequelize.query<{ id: number; item_id: number; observed: number; observed_by_name: string; observed_at: Date; note: string | null }>(
-    'SELECT t.id, t.item_id, t.observed, t.observed_by_name, t.observed_at, t.note FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ? AND t.user_id = ?',
+  const ticks = await sequelize.query<{ id: number; item_id: number; observed: number; observed_by_name: string; observed_at: Date; note: string | null; version: number }>(
+    'SELECT t.id, t.item_id, t.observed, t.observed_by_name, t.observed_at, t.note, t.version FROM checklist_ticks t JOIN checklist_items i ON i.id = t.item_id WHERE i.cohort_id = ? AND t.user_id = ?',
     { type: QueryTypes.SELECT, replacements: [cohort.id, traineeId], transaction },
   );
   const met = await sequelize.query<{ n: number }>(
@@ -64,13 +69,13 @@ export async function courseEvidenceOf(cohort: Cohort, traineeId: number, transa
   );
   const tickOf = (itemId: number): ChecklistTickDto | null => {
     const row = ticks.find((t) => Number(t.item_id) === itemId);
-    return row ? { id: Number(row.id), observed: Boolean(row.observed), byName: row.observed_by_name, at: new Date(row.observed_at).toISOString(), note: row.note } : null;
+    return row ? { id: Number(row.id), observed: Boolean(row.observed), byName: row.observed_by_name, at: new Date(row.observed_at).toISOString(), note: row.note, version: Number(row.version) } : null;
   };
   const entries = items.map((item) => ({ id: Number(item.id), label: item.label, retired: item.retiredAt !== null, tick: tickOf(Number(item.id)) }));
   const checklist = [...entries.filter((e) => !e.retired), ...entries.filter((e) => e.retired && e.tick)];
   const score = theoryRow ? Number(theoryRow.scorePercent) : null;
   const theory = theoryRow
-    ? { id: Number(theoryRow.id), scorePercent: score!, takenOn: theoryRow.takenOn, enteredByName: theoryRow.enteredByName, enteredAt: theoryRow.enteredAt.toISOString(), passed: theoryPassed(score!, passMark) }
+    ? { id: Number(theoryRow.id), scorePercent: score!, takenOn: theoryRow.takenOn, enteredByName: theoryRow.enteredByName, enteredAt: theoryRow.enteredAt.toISOString(), passed: theoryPassed(score!, passMark), version: theoryRow.version }
     : null;
   const attemptsMet = Number(met[0]?.n ?? 0);
   const inForce = checklist.filter((e) => !e.retired).map((e) => ({ label: e.label, observed: e.tick?.observed ?? false }));
@@ -96,16 +101,21 @@ export async function setTheoryPassMark(user: SessionUser | null, cohortId: numb
   return passMark;
 }
 
-/** Enters (or corrects) one trainee's theory result: score in percent, the day, who entered it. */
-export async function recordTheoryResult(user: SessionUser | null, cohortId: number, traineeId: number, input: unknown, now = new Date()): Promise<TheoryResultDto> {
+/**
+ * Enters (or corrects) one trainee's theory result: score in percent, the day, who entered it.
+ * `sentVersion` is the version the form was opened with (0 when there was no result yet): a save
+ * from a form opened before someone else's save answers `conflict` and changes nothing.
+ */
+export async function recordTheoryResult(user: SessionUser | null, cohortId: number, traineeId: number, input: unknown, sentVersion: unknown, now = new Date()): Promise<TheoryResultDto> {
   await manageableCohort(user, cohortId);
   const data = parseFields(theoryResultSchema, input, 'The theory result was not saved; check the fields marked.');
   return sequelize.transaction(async (transaction) => {
     const cohort = await lockedCohort(user, cohortId, transaction);
     await cohortTrainee(cohort.id, traineeId, transaction);
     const row = await TheoryResult.findOne({ where: { cohortId: cohort.id, userId: traineeId }, transaction, lock: transaction.LOCK.UPDATE });
+    const version = nextVersion(row?.version ?? 0, sentVersion);
     const before = row ? { scorePercent: Number(row.scorePercent), takenOn: row.takenOn, enteredByName: row.enteredByName } : null;
-    const values = { scorePercent: data.score, takenOn: data.takenOn, enteredById: user!.id, enteredByName: user!.name, enteredAt: now };
+    const values = { scorePercent: data.score, takenOn: data.takenOn, enteredById: user!.id, enteredByName: user!.name, enteredAt: now, version };
     const saved = row ? await row.update(values, { transaction }) : await TheoryResult.create({ cohortId: cohort.id, userId: traineeId, ...values }, { transaction });
     const passMark = passMarkOf(cohort);
     await writeAudit(transaction, user, {
@@ -115,7 +125,7 @@ export async function recordTheoryResult(user: SessionUser | null, cohortId: num
       before,
       after: { scorePercent: data.score, takenOn: data.takenOn, enteredByName: user!.name, passMark, passed: theoryPassed(data.score, passMark) },
     });
-    return { id: Number(saved.id), scorePercent: data.score, takenOn: data.takenOn, enteredByName: user!.name, enteredAt: now.toISOString(), passed: theoryPassed(data.score, passMark) };
+    return { id: Number(saved.id), scorePercent: data.score, takenOn: data.takenOn, enteredByName: user!.name, enteredAt: now.toISOString(), passed: theoryPassed(data.score, passMark), version };
   });
 }
 
@@ -154,8 +164,12 @@ export async function saveChecklist(user: SessionUser | null, cohortId: number, 
   });
 }
 
-/** Ticks (or un-ticks) one checklist item for one trainee: who, when, an optional note. The row is kept either way. */
-export async function setChecklistTick(user: SessionUser | null, cohortId: number, traineeId: number, input: unknown, now = new Date()): Promise<ChecklistTickDto> {
+/**
+ * Ticks (or un-ticks) one checklist item for one trainee: who, when, an optional note. The row is
+ * kept either way. `sentVersion` is the tick's version when the form was opened (0 for no tick yet);
+ * a stale one answers `conflict` and changes nothing.
+ */
+export async function setChecklistTick(user: SessionUser | null, cohortId: number, traineeId: number, input: unknown, sentVersion: unknown, now = new Date()): Promise<ChecklistTickDto> {
   await manageableCohort(user, cohortId);
   const data = parseFields(tickSchema, input, 'The observation was not saved; check the fields marked.');
   return sequelize.transaction(async (transaction) => {
@@ -165,8 +179,9 @@ export async function setChecklistTick(user: SessionUser | null, cohortId: numbe
     if (!item) throw new AppError('not_found', 'That checklist item does not exist in this cohort.');
     if (item.retiredAt !== null) throw new AppError('conflict', 'That item has been retired from the checklist; reload.');
     const row = await ChecklistTick.findOne({ where: { itemId: item.id, userId: traineeId }, transaction, lock: transaction.LOCK.UPDATE });
+    const version = nextVersion(row?.version ?? 0, sentVersion);
     const before = row ? { observed: Boolean(row.observed), note: row.note, byName: row.observedByName } : null;
-    const values = { observed: data.observed, note: data.note, observedById: user!.id, observedByName: user!.name, observedAt: now };
+    const values = { observed: data.observed, note: data.note, observedById: user!.id, observedByName: user!.name, observedAt: now, version };
     const saved = row ? await row.update(values, { transaction }) : await ChecklistTick.create({ itemId: Number(item.id), userId: traineeId, ...values }, { transaction });
     await writeAudit(transaction, user, {
       objectType: 'checklist_tick',
@@ -175,6 +190,6 @@ export async function setChecklistTick(user: SessionUser | null, cohortId: numbe
       before,
       after: { item: item.label, traineeId, observed: data.observed, note: data.note, byName: user!.name },
     });
-    return { id: Number(saved.id), observed: data.observed, byName: user!.name, at: now.toISOString(), note: data.note };
+    return { id: Number(saved.id), observed: data.observed, byName: user!.name, at: now.toISOString(), note: data.note, version };
   });
 }

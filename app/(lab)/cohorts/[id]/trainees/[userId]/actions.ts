@@ -51,7 +51,7 @@ export const theoryPassMarkAction = withActionRole(COHORT_ROLES, async (user, fo
 
 /** The trainee's theory result (score in percent and the day). */
 export const theoryResultAction = withActionRole(COHORT_ROLES, async (user, form, cohortId: number, traineeId: number) => {
-  const result = await recordTheoryResult(user, cohortId, traineeId, { score: form.get('score') ?? undefined, takenOn: form.get('takenOn') ?? undefined });
+  const result = await recordTheoryResult(user, cohortId, traineeId, { score: form.get('score') ?? undefined, takenOn: form.get('takenOn') ?? undefined }, form.get('version'));
   revalidatePath(sheetPath(cohortId, traineeId));
   return okState(`Theory result saved: ${result.scorePercent} %, ${result.passed ? 'passed' : 'not yet passed'}.`);
 });
@@ -66,7 +66,7 @@ export const checklistAction = withActionRole(COHORT_ROLES, async (user, form, c
 
 /** Ticks or un-ticks one checklist item for the trainee, with an optional note. */
 export const checklistTickAction = withActionRole(COHORT_ROLES, async (user, form, cohortId: number, traineeId: number) => {
-  const tick = await setChecklistTick(user, cohortId, traineeId, { itemId: form.get('itemId') ?? undefined, observed: form.get('observed') === '1', note: String(form.get('note') ?? '') });
+  const tick = await setChecklistTick(user, cohortId, traineeId, { itemId: form.get('itemId') ?? undefined, observed: form.get('observed') === '1', note: String(form.get('note') ?? '') }, form.get('version'));
   revalidatePath(sheetPath(cohortId, traineeId));
   return okState(tick.observed ? 'Observed.' : 'Marked as not observed.');
 });
