@@ -60,8 +60,8 @@ export const up: Seeder = async ({ context: { sequelize } }) => {
     }
     const methodId = new Map<string, number>();
     for (const method of scenario.methods) {
-      const [id] = await q('INSERT INTO methods (name, tool_kind, passes, check_passes, notes, created_at, updated_at) VALUES (?,?,?,?,?,?,?)',
-        [method.name, method.tool, JSON.stringify(method.passes), method.checkPasses, method.basis, now, now]);
+      const [id] = await q('INSERT INTO methods (name, tool_kind, passes, check_passes, tensioner_coverage, notes, created_at, updated_at) VALUES (?,?,?,?,?,?,?,?)',
+        [method.name, method.tool, JSON.stringify(method.passes), method.checkPasses, method.tensionerCoverage ?? 'one_stud', method.basis, now, now]);
       methodId.set(method.key, Number(id));
     }
     const lubricantId = new Map<string, number>();

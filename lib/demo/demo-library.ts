@@ -53,6 +53,8 @@ export interface DemoMethod {
   checkPasses: number;
   /** Where the method comes from, in words. */
   basis: string;
+  /** How many studs a tensioner pulls at once (methods.tensioner_coverage); absent: one tool, stud by stud. */
+  tensionerCoverage?: 'every_stud' | 'every_second_stud' | 'one_stud';
 }
 
 export interface DemoLubricant extends SimLubricant {
@@ -198,6 +200,16 @@ export function buildMethods(studCounts: readonly number[]): DemoMethod[] {
       checkPasses: 0,
       // docs/REFERENCE.md §4: applied load = residual × LTF ✓ [FE-LTF], LTF 1.15 ✓ [TENS1].
       basis: "One tool moved stud by stud, cross order, second pass to recover elastic interaction losses (common practice); applied load = residual × LTF, LTF 1.15 (training default: set your own from the tool maker's data).",
+    },
+    {
+      // Invented demo method, so the classroom's tensioning scene (which pulls every stud) has a method to save against.
+      key: 'tensioner-every-stud',
+      name: 'Tensioner on every stud, two passes',
+      tool: 'hydraulic_tensioner',
+      passes: [pass(100, 'cross'), pass(100, 'cross')],
+      checkPasses: 0,
+      tensionerCoverage: 'every_stud',
+      basis: "One tool on every stud, pulled together (100 % coverage), second pass to recover the load lost when the tools are released (common practice); applied load = residual × LTF, LTF 1.15 (training default: set your own from the tool maker's data).",
     },
     {
       key: 'hydraulic-wrench-three-pass',
