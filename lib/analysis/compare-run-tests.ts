@@ -78,13 +78,16 @@ export function runLevelTests(groups: readonly RunLevelGroup[], attempt: (name: 
     { values: sd, on: 'within-run SD', measure: 'within-run scatter', effect: () => sdDifferenceEffect(groups), ids: ['welch-within-sd', 'anova-within-sd'] as const },
   ];
   for (const m of means) {
+    // One effect per measure, shared by its two tests (Welch's and the one-way ANOVA).
+    let effect: EffectSize | undefined;
+    const effectOnce = () => (effect ??= m.effect());
     attempt(`Welch's ANOVA of ${m.on}`, () => {
       const r = welchAnova(m.values);
-      tests.push({ id: m.ids[0], question: TEST_QUESTIONS[m.ids[0]], name: `Welch's ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`, measure: m.measure, effect: m.effect() });
+      tests.push({ id: m.ids[0], question: TEST_QUESTIONS[m.ids[0]], name: `Welch's ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${formatDecimals(r.dfWithin, 1)}`, measure: m.measure, effect: effectOnce() });
     });
     attempt(`The one-way ANOVA of ${m.on}`, () => {
       const r = oneWayAnova(m.values);
-      tests.push({ id: m.ids[1], question: TEST_QUESTIONS[m.ids[1]], name: `One-way ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, measure: m.measure, effect: m.effect() });
+      tests.push({ id: m.ids[1], question: TEST_QUESTIONS[m.ids[1]], name: `One-way ANOVA on ${m.on}`, statistic: r.statistic, pValue: r.pValue, df: `${r.dfBetween}, ${r.dfWithin}`, measure: m.measure, effect: effectOnce() });
     });
   }
   attempt('The Brown–Forsythe test of run means', () => {
