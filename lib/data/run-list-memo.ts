@@ -1,6 +1,6 @@
 import 'server-only';
-import { QueryTypes } from 'sequelize';
 import { sequelize } from '@/models';
+import { pooledSelect } from '../platform/pooled-select';
 
 /**
  * The runs list's answers, remembered per instance and checked against MariaDB on every request.
@@ -19,7 +19,7 @@ export const RUN_LIST_VERSION_SQL = '(SELECT CAST(SUM(v.version) AS CHAR) FROM r
 
 /** The stamp now, as text (a sum of BIGINT counters). */
 export async function runListVersion(): Promise<string> {
-  const [row] = await sequelize.query<{ version: string }>(`SELECT ${RUN_LIST_VERSION_SQL} AS version`, { type: QueryTypes.SELECT });
+  const [row] = await pooledSelect<{ version: string | null }>(sequelize, `SELECT ${RUN_LIST_VERSION_SQL} AS version`);
   return String(row?.version ?? '');
 }
 
