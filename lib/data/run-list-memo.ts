@@ -1,6 +1,8 @@
 import 'server-only';
 import { sequelize } from '@/models';
+import { freshReads } from '../platform/fresh-read';
 import { pooledSelect } from '../platform/pooled-select';
+import { replicaReadState } from '../platform/replica-routing';
 
 /**
  * The runs list's answers, remembered per instance and checked against MariaDB on every request.
@@ -17,10 +19,21 @@ import { pooledSelect } from '../platform/pooled-select';
 /** The stamp as SQL, for a column of the statement that reads the page. */
 export const RUN_LIST_VERSION_SQL = '(SELECT CAST(SUM(v.version) AS CHAR) FROM run_list_versions v)';
 
-/** The stamp now, as text (a sum of BIGINT counters). */
-export async function runListVersion(): Promise<string> {
+async function readStamp(): Promise<string> {
   const [row] = await pooledSelect<{ version: string | null }>(sequelize, `SELECT ${RUN_LIST_VERSION_SQL} AS version`);
   return String(row?.version ?? '');
+}
+
+/** Requests that arrive together share one stamp read begun after each of them arrived (`freshReads`). */
+const sharedStamp = freshReads(readStamp);
+
+/**
+ * The stamp now, as text (a sum of BIGINT counters). Without replicas every read goes to the
+ * primary, so concurrent requests share reads; with replicas each request reads on the target its
+ * own cookies choose (read-your-writes after its person's write).
+ */
+export async function runListVersion(): Promise<string> {
+  return replicaReadState() === 'none' ? sharedStamp() : readStamp();
 }
 
 /** At most this many answers per instance (the oldest dropped first): about 12 kB each at 25 rows. */
