@@ -29,6 +29,7 @@ import { RunAnalysisRow } from './run-analysis';
 import { RunComment } from './run-comment';
 import { RunHold } from './run-hold';
 import { RunCount } from './run-count';
+import { RunListVersion } from './run-list-version';
 import { RunVerdict } from './run-verdict';
 import { SignInAttempt } from './sign-in-attempt';
 import { StreamSample } from './stream-sample';
@@ -98,6 +99,7 @@ export const MODELS = [
   ChecklistTick,
   StepPosition,
   RunCount,
+  RunListVersion,
 ] as const;
 
 // Module code runs once per module instance: init and wire the models here.
@@ -184,4 +186,5 @@ export {
   Job,
   RefresherReminder,
   RunCount,
+  RunListVersion,
 };

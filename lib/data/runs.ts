@@ -6,6 +6,7 @@ import { RUN_SOURCES, RUN_STATUSES } from '@/models/run';
 import type { SessionUser } from '../auth/session';
 import { isoDateSchema } from '../validation/iso-date';
 import { operatorLabel, refuseOperatorIdsForResearcher, runScope, runScopeSql } from './scope';
+import { RUN_LIST_VERSION_SQL, rememberRunList, rememberedRunList } from './run-list-memo';
 
 const id = z.coerce.number().int().positive().max(2 ** 31);
 const isoDate = isoDateSchema();
@@ -82,14 +83,15 @@ export async function runListFilterSql(
  * row the filter matches, as an uncorrelated subquery computed once, so the runs list costs one round
  * trip and one pooled connection: `'maintained'` sums the counters of `run_counts` (a handful of rows;
  * only for a filter on scope, cohort, operator, status and source, see `answeredByRunCounts`),
- * `'count'` counts the runs.
+ * `'count'` counts the runs. `withVersion` adds the runs list's version stamp (`run-list-memo.ts`),
+ * read in the same statement so it names exactly the data of these rows.
  */
-export async function selectRunRows(filter: { sql: string; params: unknown[] }, orderBy: string, limit: number, offset = 0, total: false | 'count' | 'maintained' = false): Promise<RunRowSql[]> {
+export async function selectRunRows(filter: { sql: string; params: unknown[] }, orderBy: string, limit: number, offset = 0, total: false | 'count' | 'maintained' = false, withVersion = false): Promise<RunRowSql[]> {
   const totalSql = total === 'maintained' ? `(SELECT COALESCE(SUM(r.n), 0) FROM run_counts r WHERE ${filter.sql})` : `(SELECT COUNT(*) FROM runs r WHERE ${filter.sql})`;
   return sequelize.query<RunRowSql>(
     `SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
        j.name AS joint_name, m.name AS method_name, l.name AS lubricant_name, o.id AS operator_id, o.name AS operator_name, c.name AS cohort_name
-       ${total ? `, ${totalSql} AS total` : ''}
+       ${total ? `, ${totalSql} AS total` : ''}${withVersion ? `, ${RUN_LIST_VERSION_SQL} AS list_version` : ''}
      FROM (SELECT r.id, r.recorded_at, r.stud_count, r.source, r.status, r.pass_count, r.target_load_n, r.final_mean_n, r.final_cv,
              r.joint_id, r.method_id, r.lubricant_id, r.operator_id, r.cohort_id
            FROM runs r WHERE ${filter.sql} ORDER BY ${orderBy} LIMIT ? OFFSET ?) r
@@ -118,6 +120,8 @@ export interface RunRowSql {
   cohort_name: string | null;
   /** With `total`: every row the filter matches. */
   total?: number | bigint;
+  /** With `withVersion`: the runs list's version stamp. */
+  list_version?: string | null;
 }
 
 const SORT_COLUMNS: Record<RunListQuery['sort'], string> = { recordedAt: 'r.recorded_at', finalCv: 'r.final_cv', finalMeanN: 'r.final_mean_n', passCount: 'r.pass_count' };
@@ -132,36 +136,61 @@ export const answeredByRunCounts = (query: Omit<RunListQuery, 'sort' | 'dir' | '
 
 /**
  * One page of the runs list in one raw query: the page with its names and the total (every filter is
- * on the columns of `runs`). Sort column and direction come from a fixed list.
+ * on the columns of `runs`), and the version stamp it was read at (null for a page without rows).
+ * Sort column and direction come from a fixed list.
  */
-export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
-  const filter = await runListFilterSql(user, query);
+async function pageOfRuns(user: SessionUser, query: RunListQuery, filter: { sql: string; params: unknown[] }): Promise<{ page: RunPage; version: string | null }> {
   const direction = query.dir === 'asc' ? 'ASC' : 'DESC';
   const offset = (query.page - 1) * query.pageSize;
-  const rows = await selectRunRows(filter, `${SORT_COLUMNS[query.sort]} ${direction}, r.id DESC`, query.pageSize, offset, answeredByRunCounts(query) ? 'maintained' : 'count');
+  const rows = await selectRunRows(filter, `${SORT_COLUMNS[query.sort]} ${direction}, r.id DESC`, query.pageSize, offset, answeredByRunCounts(query) ? 'maintained' : 'count', true);
   // A page past the end has no row to carry the count: then it is asked for on its own.
   const total = rows[0] ? Number(rows[0].total) : offset === 0 ? 0 : await countRuns(filter);
   return {
-    total,
-    page: query.page,
-    pageSize: query.pageSize,
-    rows: rows.map((r) => ({
-      id: r.id,
-      recordedAt: new Date(r.recorded_at).toISOString(),
-      jointName: r.joint_name,
-      studCount: r.stud_count,
-      methodName: r.method_name,
-      lubricantName: r.lubricant_name,
-      operatorName: operatorLabel(user, { id: r.operator_id, name: r.operator_name }),
-      cohortName: r.cohort_name,
-      source: r.source,
-      status: r.status,
-      passCount: r.pass_count,
-      targetLoadN: r.target_load_n,
-      finalMeanN: r.final_mean_n,
-      finalCv: r.final_cv,
-    })),
+    version: rows[0]?.list_version == null ? null : String(rows[0].list_version),
+    page: {
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+      rows: rows.map((r) => ({
+        id: r.id,
+        recordedAt: new Date(r.recorded_at).toISOString(),
+        jointName: r.joint_name,
+        studCount: r.stud_count,
+        methodName: r.method_name,
+        lubricantName: r.lubricant_name,
+        operatorName: operatorLabel(user, { id: r.operator_id, name: r.operator_name }),
+        cohortName: r.cohort_name,
+        source: r.source,
+        status: r.status,
+        passCount: r.pass_count,
+        targetLoadN: r.target_load_n,
+        finalMeanN: r.final_mean_n,
+        finalCv: r.final_cv,
+      })),
+    },
   };
+}
+
+/** One page of the runs list (for pages and other data functions). */
+export async function listRuns(user: SessionUser, query: RunListQuery): Promise<RunPage> {
+  return (await pageOfRuns(user, query, await runListFilterSql(user, query))).page;
+}
+
+/**
+ * One page of the runs list as the JSON of `GET /api/runs`: the remembered answer while the runs
+ * list's version stamp in MariaDB is unchanged (checked on every call), else computed and kept
+ * (`run-list-memo.ts`). The key holds the person, their role, their scope's SQL and parameters and
+ * the whole query.
+ */
+export async function listRunsJson(user: SessionUser, query: RunListQuery): Promise<string> {
+  const filter = await runListFilterSql(user, query);
+  const key = JSON.stringify([user.id, user.role, filter.sql, filter.params, query]);
+  const remembered = await rememberedRunList(key);
+  if (remembered !== null) return remembered;
+  const { page, version } = await pageOfRuns(user, query, filter);
+  const json = JSON.stringify(page);
+  if (version !== null) rememberRunList(key, version, json);
+  return json;
 }
 
 async function countRuns(filter: { sql: string; params: unknown[] }): Promise<number> {
