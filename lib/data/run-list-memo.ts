@@ -1,8 +1,7 @@
 import 'server-only';
-import { sequelize } from '@/models';
 import { freshReads } from '../platform/fresh-read';
-import { pooledSelect } from '../platform/pooled-select';
 import { replicaReadState } from '../platform/replica-routing';
+import { readRowArrays } from './read-row-arrays';
 
 /**
  * The runs list's answers, remembered per instance and checked against MariaDB on every request.
@@ -20,8 +19,8 @@ import { replicaReadState } from '../platform/replica-routing';
 export const RUN_LIST_VERSION_SQL = '(SELECT CAST(SUM(v.version) AS CHAR) FROM run_list_versions v)';
 
 async function readStamp(): Promise<string> {
-  const [row] = await pooledSelect<{ version: string | null }>(sequelize, `SELECT ${RUN_LIST_VERSION_SQL} AS version`);
-  return String(row?.version ?? '');
+  const [row] = await readRowArrays<[version: string | null]>(`SELECT ${RUN_LIST_VERSION_SQL} AS version`);
+  return String(row?.[0] ?? '');
 }
 
 /** Requests that arrive together share one stamp read begun after each of them arrived (`freshReads`). */
