@@ -51,19 +51,20 @@ afterAll(async () => {
 describe('course evidence', () => {
   it('refuses bad input at the boundary and changes no row', async () => {
     const before = await evidenceRows();
+    // Each refusal is started only when awaited, so none is left rejected while an earlier one is checked.
     const refusals = [
-      setTheoryPassMark(instructor, cohortId, { passMark: 'seventy' }),
-      setTheoryPassMark(instructor, cohortId, { passMark: '101' }),
-      setTheoryPassMark(instructor, cohortId, { passMark: '70.5' }),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: 'x', takenOn: '2026-12-02' }, 0),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '100.5', takenOn: '2026-12-02' }, 0),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72.25', takenOn: '2026-12-02' }, 0),
-      recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-02-30' }, 0),
-      saveChecklist(instructor, cohortId, { items: [], added: [] }),
-      saveChecklist(instructor, cohortId, { items: [], added: ['ab'] }),
-      setChecklistTick(instructor, cohortId, trainee.id, { itemId: 'none', observed: true, note: '' }, 0),
+      () => setTheoryPassMark(instructor, cohortId, { passMark: 'seventy' }),
+      () => setTheoryPassMark(instructor, cohortId, { passMark: '101' }),
+      () => setTheoryPassMark(instructor, cohortId, { passMark: '70.5' }),
+      () => recordTheoryResult(instructor, cohortId, trainee.id, { score: 'x', takenOn: '2026-12-02' }, 0),
+      () => recordTheoryResult(instructor, cohortId, trainee.id, { score: '100.5', takenOn: '2026-12-02' }, 0),
+      () => recordTheoryResult(instructor, cohortId, trainee.id, { score: '72.25', takenOn: '2026-12-02' }, 0),
+      () => recordTheoryResult(instructor, cohortId, trainee.id, { score: '72', takenOn: '2026-02-30' }, 0),
+      () => saveChecklist(instructor, cohortId, { items: [], added: [] }),
+      () => saveChecklist(instructor, cohortId, { items: [], added: ['ab'] }),
+      () => setChecklistTick(instructor, cohortId, trainee.id, { itemId: 'none', observed: true, note: '' }, 0),
     ];
-    for (const refusal of refusals) await expect(refusal).rejects.toMatchObject({ code: 'invalid_input' });
+    for (const refusal of refusals) await expect(refusal()).rejects.toMatchObject({ code: 'invalid_input' });
     await expect(setTheoryPassMark(trainee, cohortId, { passMark: '70' })).rejects.toMatchObject({ code: 'forbidden' });
     await expect(recordTheoryResult(otherInstructor, cohortId, trainee.id, { score: '80', takenOn: '2026-12-02' }, 0)).rejects.toMatchObject({ code: 'not_found' });
     expect(await evidenceRows()).toEqual(before);
