@@ -107,14 +107,14 @@ interface RunRowSql {
 type RunRowArray = [
   id: number, groupId: number, operatorId: number, targetLoadN: number, finalMeanN: number | null, finalSdN: number | null,
   gasketStressMpa: number | null, gasketMinSeatingMpa: number | null, finalLoadsF64: Uint8Array | null, finalLoadsJson: string | null,
-  driftF64: Uint8Array | null, driftJson: string | null, updatedAt: Date, studCount: number,
+  driftF64: Uint8Array | null, driftJson: string | null, updatedAt: string, studCount: number,
 ];
 
 /** The columns of RunRowArray; the group column is `${column} AS group_id`. */
 const runColumnsSql = (groupColumn: string) =>
   `r.id, ${groupColumn} AS group_id, r.operator_id, r.target_load_n, r.final_mean_n, r.final_sd_n, r.final_gasket_stress_mpa, r.gasket_min_seating_mpa,
    r.final_loads_f64, IF(r.final_loads_f64 IS NULL, r.final_loads_json, NULL) AS final_loads_json, r.drift_f64, IF(r.drift_f64 IS NULL, r.drift_json, NULL) AS drift_json,
-   r.updated_at, r.stud_count`;
+   CAST(r.updated_at AS CHAR) AS updated_at, r.stud_count`;
 
 const runRowOf = (a: RunRowArray): RunRowSql => ({
   id: a[0], group_id: a[1], operator_id: a[2], target_load_n: a[3], final_mean_n: a[4], final_sd_n: a[5],
@@ -135,14 +135,15 @@ const driftOf = (r: RunRowSql): (number | null)[] => (r.drift_f64 ? decodeFloat6
  */
 interface FingerprintParts {
   n: number;
-  changed: Date | null;
+  /** The last change as MariaDB writes a DATETIME ('YYYY-MM-DD hh:mm:ss', so text order is time order); no Date objects for 10,000 rows. */
+  changed: string | null;
   ids: number;
   leftOut: number;
   names: string | null;
   holds: string | null;
 }
 
-const fingerprintText = (p: FingerprintParts) => `${p.n}:${p.changed ? p.changed.toISOString() : '-'}:${p.ids}:${p.leftOut}:${p.names ?? '-'}:${p.holds ?? '-'}`;
+const fingerprintText = (p: FingerprintParts) => `${p.n}:${p.changed ?? '-'}:${p.ids}:${p.leftOut}:${p.names ?? '-'}:${p.holds ?? '-'}`;
 
 /** The group names' last change and the hold readings, as text, the same in both ways of taking a fingerprint. */
 const NAMES_AND_HOLDS_SQL = `CAST(GREATEST(COALESCE((SELECT MAX(updated_at) FROM methods), 0), COALESCE((SELECT MAX(updated_at) FROM lubricants), 0),
@@ -209,13 +210,13 @@ export async function compareRunsCached(user: SessionUser, query: CompareQuery, 
  * costs about one bare aggregate plus a primary-key read.
  */
 async function fingerprintByAggregate(where: string[], match: string, params: unknown[]): Promise<FingerprintParts> {
-  const [fp] = await sequelize.query<{ n: number | string | null; changed: Date | null; ids: number | string | null; left_out: number | string | null; names: string | null; holds: string | null }>(
-    `SELECT SUM(${match}) AS n, MAX(IF(${match}, r.updated_at, NULL)) AS changed, SUM(IF(${match}, r.id, 0)) AS ids,
+  const [fp] = await sequelize.query<{ n: number | string | null; changed: string | null; ids: number | string | null; left_out: number | string | null; names: string | null; holds: string | null }>(
+    `SELECT SUM(${match}) AS n, CAST(MAX(IF(${match}, r.updated_at, NULL)) AS CHAR) AS changed, SUM(IF(${match}, r.id, 0)) AS ids,
        SUM(r.source = 'simulated' AND NOT (${match})) AS left_out, ${NAMES_AND_HOLDS_SQL}
      FROM runs r WHERE ${where.join(' AND ')}`,
     { type: QueryTypes.SELECT, replacements: params },
   );
-  return { n: Number(fp?.n ?? 0), changed: fp?.changed ? new Date(fp.changed) : null, ids: Number(fp?.ids ?? 0), leftOut: Number(fp?.left_out ?? 0), names: fp?.names ?? null, holds: fp?.holds ?? null };
+  return { n: Number(fp?.n ?? 0), changed: fp?.changed ?? null, ids: Number(fp?.ids ?? 0), leftOut: Number(fp?.left_out ?? 0), names: fp?.names ?? null, holds: fp?.holds ?? null };
 }
 
 /** Every filter except the source, as SQL on the alias `r`, scoped to this person. */
@@ -310,11 +311,11 @@ async function computeComparison(user: SessionUser, query: CompareQuery, where: 
 
 /** The chosen runs' part of the fingerprint, from the rows read: what `fingerprintByAggregate` sums. */
 function fingerprintOfRead(rows: readonly RunRowArray[]): Pick<FingerprintParts, 'n' | 'changed' | 'ids'> {
-  let changed: Date | null = null;
+  let changed: string | null = null;
   let ids = 0;
   for (const row of rows) {
     ids += Number(row[0]);
-    if (!changed || row[12].getTime() > changed.getTime()) changed = row[12];
+    if (changed === null || row[12] > changed) changed = row[12];
   }
   return { n: rows.length, changed, ids };
 }
